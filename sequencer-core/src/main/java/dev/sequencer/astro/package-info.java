@@ -1,0 +1,8 @@
+/**
+ * The offline astronomy context: time scales from a bundled leap-second table, Earth frames with no
+ * Earth-orientation data, and Sun and Moon position providers accurate to about 10 arcseconds.
+ *
+ * <p>Nothing here touches Orekit's JVM-wide default {@code DataContext}; every Orekit object is built
+ * from the {@link dev.sequencer.astro.AstroContext} passed in.
+ */
+package dev.sequencer.astro;

@@ -1,0 +1,56 @@
+package dev.sequencer.model;
+
+import java.util.List;
+import java.util.Objects;
+import java.util.Optional;
+
+/**
+ * A planning problem: horizon, observer, constraints, slew model, start pointing, requests and solver
+ * settings. {@code observer}, {@code startPointing} and {@code solver} may be {@code null} (absent in the
+ * file); {@code constraints} is never null (absent means {@link Constraints#none()}).
+ */
+public record Scenario(
+    int format,
+    String name,
+    TimeWindow horizon,
+    Observer observer,
+    Constraints constraints,
+    SlewSettings slew,
+    Pointing startPointing,
+    List<Request> requests,
+    SolverSettings solver) {
+  /** The only format version this library reads and writes. */
+  public static final int FORMAT = 1;
+
+  public Scenario {
+    Objects.requireNonNull(horizon, "horizon");
+    Objects.requireNonNull(slew, "slew");
+    constraints = constraints == null ? Constraints.none() : constraints;
+    requests = List.copyOf(requests);
+  }
+
+  /** The solver settings, or the defaults when the file gives none. */
+  public SolverSettings solverOrDefaults() {
+    return solver == null ? SolverSettings.defaults() : solver;
+  }
+
+  /** The request with this id, if any. */
+  public Optional<Request> request(String id) {
+    return requests.stream().filter(r -> r.id().equals(id)).findFirst();
+  }
+
+  /** A copy with other requests. */
+  public Scenario withRequests(List<Request> newRequests) {
+    return new Scenario(format, name, horizon, observer, constraints, slew, startPointing, newRequests, solver);
+  }
+
+  /** A copy with other solver settings. */
+  public Scenario withSolver(SolverSettings newSolver) {
+    return new Scenario(format, name, horizon, observer, constraints, slew, startPointing, requests, newSolver);
+  }
+
+  /** A copy with another slew model. */
+  public Scenario withSlew(SlewSettings newSlew) {
+    return new Scenario(format, name, horizon, observer, constraints, newSlew, startPointing, requests, solver);
+  }
+}
