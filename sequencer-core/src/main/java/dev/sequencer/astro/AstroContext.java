@@ -4,6 +4,7 @@ import java.nio.file.Files;
 import java.nio.file.Path;
 import java.time.Instant;
 import java.time.LocalDate;
+import java.time.LocalTime;
 import java.time.ZoneOffset;
 import java.util.List;
 import java.util.Objects;
@@ -14,6 +15,8 @@ import org.orekit.data.LazyLoadedDataContext;
 import org.orekit.frames.Frame;
 import org.orekit.frames.Frames;
 import org.orekit.time.AbsoluteDate;
+import org.orekit.time.DateComponents;
+import org.orekit.time.DateTimeComponents;
 import org.orekit.time.TimeScale;
 import org.orekit.time.TimeScales;
 import org.orekit.utils.Constants;
@@ -157,8 +160,16 @@ public final class AstroContext {
     return new AbsoluteDate(t, dataContext.getTimeScales().getUTC());
   }
 
-  /** Converts an Orekit date to a UTC instant (a leap second 23:59:60 maps to 23:59:59.999999999). */
+  /**
+   * Converts an Orekit date to a UTC instant. {@code java.time} has no 23:59:60, so any date inside a
+   * leap second maps to 23:59:59.999999999 of that day (Orekit's own conversion throws there).
+   */
   public Instant instant(AbsoluteDate date) {
+    DateTimeComponents utcComponents = date.getComponents(utc());
+    if (utcComponents.getTime().getSecond() >= 60.0) {
+      DateComponents day = utcComponents.getDate();
+      return LocalDate.of(day.getYear(), day.getMonth(), day.getDay()).atTime(LocalTime.MAX).toInstant(ZoneOffset.UTC);
+    }
     return date.toInstant(dataContext.getTimeScales());
   }
 
