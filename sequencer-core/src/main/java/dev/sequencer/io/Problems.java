@@ -16,7 +16,7 @@ final class Problems {
 
   /** Records that {@code node} breaks {@code rule}; the message ends with "(was <node>)". */
   void invalid(String path, String rule, JsonNode node) {
-    add(path, rule + " (was " + node + ")", text(node));
+    add(path, rule + " (was " + (node.isNumber() ? node.asText() : node.toString()) + ")", text(node));
   }
 
   /** Records a missing required field. */
@@ -45,8 +45,11 @@ final class Problems {
     }
   }
 
-  /** The value as written: a string's own text, otherwise the JSON text. */
+  /** The value as written: a string's own text, a number's digits (or NaN, Infinity), else the JSON text. */
   static String text(JsonNode node) {
-    return node == null ? null : node.isTextual() ? node.textValue() : node.toString();
+    if (node == null) {
+      return null;
+    }
+    return node.isTextual() || node.isNumber() ? node.asText() : node.toString();
   }
 }
