@@ -1,0 +1,68 @@
+package dev.sequencer.io;
+
+import com.fasterxml.jackson.core.JsonLocation;
+import com.fasterxml.jackson.core.JsonProcessingException;
+import com.fasterxml.jackson.core.StreamReadFeature;
+import com.fasterxml.jackson.core.json.JsonReadFeature;
+import com.fasterxml.jackson.databind.DeserializationFeature;
+import com.fasterxml.jackson.databind.JsonNode;
+import com.fasterxml.jackson.databind.json.JsonMapper;
+import java.io.IOException;
+import java.io.InputStream;
+import java.io.UncheckedIOException;
+import java.nio.charset.StandardCharsets;
+import java.nio.file.Files;
+import java.nio.file.Path;
+
+/**
+ * Text to JSON tree. NaN and Infinity are accepted by the parser so that the readers can report them
+ * with a path; duplicate keys and trailing content are parse errors.
+ */
+final class Json {
+  private static final JsonMapper MAPPER =
+      JsonMapper.builder()
+          .enable(JsonReadFeature.ALLOW_NON_NUMERIC_NUMBERS)
+          .enable(StreamReadFeature.STRICT_DUPLICATE_DETECTION)
+          .enable(DeserializationFeature.FAIL_ON_TRAILING_TOKENS)
+          .build();
+
+  private Json() {}
+
+  /** The document's root object, or null after reporting malformed JSON (with line and column). */
+  static JsonNode parseObject(String text, Problems p) {
+    JsonNode root;
+    try {
+      root = MAPPER.readTree(text);
+    } catch (JsonProcessingException e) {
+      JsonLocation at = e.getLocation();
+      String where = at == null ? "" : " at line " + at.getLineNr() + ", column " + at.getColumnNr();
+      p.add("", "malformed JSON" + where + ": " + e.getOriginalMessage(), null);
+      return null;
+    }
+    if (root == null || root.isMissingNode()) {
+      p.add("", "empty input: expected a JSON object", null);
+      return null;
+    }
+    if (!root.isObject()) {
+      p.invalid("", "the document must be a JSON object", root);
+      return null;
+    }
+    return root;
+  }
+
+  static String read(Path file) {
+    try {
+      return Files.readString(file, StandardCharsets.UTF_8);
+    } catch (IOException e) {
+      throw new UncheckedIOException("cannot read " + file, e);
+    }
+  }
+
+  static String read(InputStream in) {
+    try {
+      return new String(in.readAllBytes(), StandardCharsets.UTF_8);
+    } catch (IOException e) {
+      throw new UncheckedIOException("cannot read the input stream", e);
+    }
+  }
+}

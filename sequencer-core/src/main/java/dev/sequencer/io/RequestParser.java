@@ -1,0 +1,263 @@
+package dev.sequencer.io;
+
+import com.fasterxml.jackson.databind.JsonNode;
+import com.fasterxml.jackson.databind.node.ArrayNode;
+import dev.sequencer.model.EarthPoint;
+import dev.sequencer.model.FlexibleExposure;
+import dev.sequencer.model.OrbitingTarget;
+import dev.sequencer.model.Request;
+import dev.sequencer.model.Target;
+import dev.sequencer.model.TimeWindow;
+import dev.sequencer.model.Tle;
+import dev.sequencer.model.UtilityPoint;
+import java.time.Instant;
+import java.util.ArrayList;
+import java.util.HashMap;
+import java.util.List;
+import java.util.Map;
+
+/**
+ * Reads the {@code requests} array: ids, targets (checked against the observer kind), fixed or
+ * flexible durations, priorities and allowed windows (clipped to the horizon with a warning).
+ */
+final class RequestParser {
+  static final List<String> REQUEST =
+      List.of("id", "target", "durationS", "priority", "required", "windows", "minDurationS", "maxDurationS",
+          "durationStepS", "utility");
+  static final List<String> FLEXIBLE = List.of("minDurationS", "maxDurationS", "durationStepS", "utility");
+  static final List<String> TLE_TARGET = List.of("tle");
+  static final List<String> EARTH_POINT = List.of("latitudeDeg", "longitudeDeg", "altitudeM");
+
+  private final Problems p;
+  private final TimeWindow horizon;
+  private final ObserverKind kind;
+
+  /** {@code horizon} is null when it was invalid (then windows are not clipped). */
+  RequestParser(Problems problems, TimeWindow horizon, ObserverKind kind) {
+    this.p = problems;
+    this.horizon = horizon;
+    this.kind = kind;
+  }
+
+  List<Request> parse(ArrayNode nodes, String path) {
+    if (nodes.isEmpty()) {
+      p.add(path, "must list at least one request", "[]");
+    }
+    List<Request> out = new ArrayList<>();
+    Map<String, Integer> firstIndex = new HashMap<>();
+    for (int i = 0; i < nodes.size(); i++) {
+      JsonNode n = nodes.get(i);
+      Fields f = Fields.of(n, label(path, i, n), p, REQUEST);
+      if (f == null) {
+        continue;
+      }
+      int before = p.count();
+      String id = f.get("id", true) == null ? null : Values.id(n.get("id"), f.path("id"), p);
+      if (id != null) {
+        Integer first = firstIndex.putIfAbsent(id, i);
+        if (first != null) {
+          p.add(f.path("id"), "duplicate id, already used by " + path + "[" + first + "]", id);
+        }
+      }
+      Request r = request(f, id);
+      if (p.count() == before) {
+        out.add(r);
+      }
+    }
+    return out;
+  }
+
+  /** {@code requests[3] (id "R4")} when the id is a string, else {@code requests[3]}. */
+  static String label(String arrayPath, int i, JsonNode n) {
+    String base = arrayPath + "[" + i + "]";
+    JsonNode id = n.isObject() ? n.get("id") : null;
+    return id != null && id.isTextual() ? base + " (id \"" + id.textValue() + "\")" : base;
+  }
+
+  private Request request(Fields f, String id) {
+    Target target = target(f);
+    boolean flexible = FLEXIBLE.stream().anyMatch(f::has);
+    Double durationS = null;
+    Double priority = null;
+    FlexibleExposure flex = null;
+    if (flexible) {
+      for (String name : List.of("durationS", "priority")) {
+        JsonNode v = f.get(name, false);
+        if (v != null) {
+          p.invalid(f.path(name), "must be absent for a flexible request (it gives " + String.join("/", FLEXIBLE)
+              + "; the utility replaces " + name + ")", v);
+        }
+      }
+      flex = flexible(f);
+    } else {
+      durationS = f.number("durationS", true, Range.NON_NEGATIVE);
+      priority = f.number("priority", true, Range.POSITIVE);
+    }
+    Boolean required = f.bool("required", false);
+    List<TimeWindow> windows = windows(f);
+    if (id == null) {
+      return null;
+    }
+    return new Request(id, target, durationS, priority, Boolean.TRUE.equals(required), windows, flex);
+  }
+
+  private Target target(Fields f) {
+    JsonNode t = f.get("target", false);
+    String path = f.path("target");
+    if (kind == ObserverKind.NONE) {
+      if (t != null) {
+        p.invalid(path, "must be absent when the scenario has no observer", t);
+      }
+      return null;
+    }
+    if (t == null) {
+      if (kind != ObserverKind.INVALID) {
+        p.missing(path);
+      }
+      return null;
+    }
+    if (!t.isObject()) {
+      p.invalid(path, "must be an object", t);
+      return null;
+    }
+    if (t.has("tle")) {
+      Fields tf = Fields.of(t, path, p, TLE_TARGET);
+      Tle tle = TleCheck.read(tf.get("tle", true), tf.path("tle"), p, horizon);
+      return tle == null ? null : new OrbitingTarget(tle);
+    }
+    if (t.has("raDeg") || t.has("decDeg")) {
+      return ScenarioParser.raDec(t, path, p);
+    }
+    if (EARTH_POINT.stream().anyMatch(t::has)) {
+      Fields ef = Fields.of(t, path, p, EARTH_POINT);
+      Double lat = ef.number("latitudeDeg", true, Range.LATITUDE);
+      Double lon = ef.number("longitudeDeg", true, Range.LONGITUDE);
+      Double alt = ef.number("altitudeM", true, Range.ALTITUDE_M);
+      if (kind == ObserverKind.GROUND) {
+        p.add(path, "a point on the Earth can only be observed from an orbit observer, and this one is on the ground",
+            Problems.text(t));
+        return null;
+      }
+      return lat == null || lon == null || alt == null ? null : new EarthPoint(lat, lon, alt);
+    }
+    p.invalid(path, "must be {raDeg, decDeg}, {tle} or {latitudeDeg, longitudeDeg, altitudeM}", t);
+    return null;
+  }
+
+  private FlexibleExposure flexible(Fields f) {
+    int before = p.count();
+    Double min = f.number("minDurationS", true, Range.NON_NEGATIVE);
+    Double max = f.number("maxDurationS", true, Range.NON_NEGATIVE);
+    Double step = f.number("durationStepS", false, Range.POSITIVE);
+    if (min != null && max != null && max < min) {
+      p.add(f.path("maxDurationS"), "must be >= minDurationS " + Range.num(min) + " (was " + Range.num(max) + ")",
+          Range.num(max));
+    }
+    List<UtilityPoint> utility = utility(f, min, max);
+    if (p.count() != before) {
+      return null;
+    }
+    return new FlexibleExposure(min, max, step == null ? FlexibleExposure.DEFAULT_STEP_S : step, utility);
+  }
+
+  /** Points with increasing seconds from minDurationS to maxDurationS and finite values >= 0. */
+  private List<UtilityPoint> utility(Fields f, Double min, Double max) {
+    List<UtilityPoint> out = new ArrayList<>();
+    ArrayNode a = f.array("utility", true);
+    if (a == null) {
+      return out;
+    }
+    String path = f.path("utility");
+    if (a.isEmpty()) {
+      p.add(path, "must list at least one [seconds, value] point", "[]");
+      return out;
+    }
+    boolean complete = true;
+    for (int i = 0; i < a.size(); i++) {
+      String pp = path + "[" + i + "]";
+      if (!Values.isArray(a.get(i), pp, p, 2, "a [seconds, value] pair")) {
+        complete = false;
+        continue;
+      }
+      Double s = Values.number(a.get(i).get(0), pp + "[0]", p, Range.NON_NEGATIVE);
+      Double v = Values.number(a.get(i).get(1), pp + "[1]", p, Range.NON_NEGATIVE);
+      if (s == null || v == null) {
+        complete = false;
+        continue;
+      }
+      if (!out.isEmpty() && s <= out.get(out.size() - 1).exposureS()) {
+        p.add(pp + "[0]", "seconds must increase: " + Range.num(s) + " is not after "
+            + Range.num(out.get(out.size() - 1).exposureS()), Range.num(s));
+        complete = false;
+        continue;
+      }
+      out.add(new UtilityPoint(s, v));
+    }
+    if (complete && min != null && out.get(0).exposureS() != min) {
+      p.add(path + "[0][0]", "the first point must be at minDurationS " + Range.num(min) + " (was "
+          + Range.num(out.get(0).exposureS()) + ")", Range.num(out.get(0).exposureS()));
+    }
+    double last = out.isEmpty() ? Double.NaN : out.get(out.size() - 1).exposureS();
+    if (complete && max != null && last != max) {
+      p.add(path + "[" + (a.size() - 1) + "][0]", "the last point must be at maxDurationS " + Range.num(max)
+          + " (was " + Range.num(last) + ")", Range.num(last));
+    }
+    return out;
+  }
+
+  /**
+   * Allowed windows: each with end after start, in order and apart (a window must start after the
+   * previous one ends), and overlapping the horizon; a window partly outside is clipped with a warning.
+   */
+  private List<TimeWindow> windows(Fields f) {
+    List<TimeWindow> out = new ArrayList<>();
+    ArrayNode a = f.array("windows", false);
+    String path = f.path("windows");
+    if (a == null) {
+      if (kind == ObserverKind.NONE && !f.has("windows")) {
+        p.add(path, "is required when the scenario has no observer", null);
+      }
+      return out;
+    }
+    if (a.isEmpty()) {
+      p.add(path, "must list at least one window (omit the field to allow any time)", "[]");
+      return out;
+    }
+    Instant previousEnd = null;
+    for (int i = 0; i < a.size(); i++) {
+      String wp = path + "[" + i + "]";
+      TimeWindow w = Values.window(a.get(i), wp, p, true);
+      if (w == null) {
+        previousEnd = null;
+        continue;
+      }
+      if (previousEnd != null && !w.start().isAfter(previousEnd)) {
+        p.add(wp, "starts at " + w.start() + ", not after the previous window's end " + previousEnd
+            + "; windows must be in time order and apart (merge overlapping ones)", Problems.text(a.get(i)));
+      }
+      previousEnd = w.end();
+      TimeWindow clipped = clip(w, wp, a.get(i));
+      if (clipped != null) {
+        out.add(clipped);
+      }
+    }
+    return out;
+  }
+
+  private TimeWindow clip(TimeWindow w, String path, JsonNode node) {
+    if (horizon == null) {
+      return w;
+    }
+    if (!w.end().isAfter(horizon.start()) || !w.start().isBefore(horizon.end())) {
+      p.add(path, "lies entirely outside the horizon [" + horizon.start() + ", " + horizon.end() + "]",
+          Problems.text(node));
+      return null;
+    }
+    Instant start = w.start().isBefore(horizon.start()) ? horizon.start() : w.start();
+    Instant end = w.end().isAfter(horizon.end()) ? horizon.end() : w.end();
+    if (!start.equals(w.start()) || !end.equals(w.end())) {
+      p.warn(path, "clipped to the horizon: [" + w.start() + ", " + w.end() + "] became [" + start + ", " + end + "]");
+    }
+    return new TimeWindow(start, end);
+  }
+}

@@ -1,0 +1,229 @@
+package dev.sequencer.io;
+
+import com.fasterxml.jackson.databind.node.ArrayNode;
+import com.fasterxml.jackson.databind.node.ObjectNode;
+import dev.sequencer.model.AzElPointing;
+import dev.sequencer.model.Constraints;
+import dev.sequencer.model.EarthPoint;
+import dev.sequencer.model.GroundSite;
+import dev.sequencer.model.KeplerianElements;
+import dev.sequencer.model.Observer;
+import dev.sequencer.model.OrbitObserver;
+import dev.sequencer.model.OrbitingTarget;
+import dev.sequencer.model.Pointing;
+import dev.sequencer.model.RaDec;
+import dev.sequencer.model.Request;
+import dev.sequencer.model.Scenario;
+import dev.sequencer.model.SlewSettings;
+import dev.sequencer.model.SolverSettings;
+import dev.sequencer.model.Target;
+import dev.sequencer.model.TimeWindow;
+import dev.sequencer.model.Tle;
+import java.nio.file.Path;
+import java.util.List;
+
+/**
+ * Writes a scenario as format-1 JSON in the spec's field order, so that {@link ScenarioReader} gives an
+ * equal scenario back. Absent parts ({@code null} name, observer, start pointing, solver; no
+ * constraints; no windows; {@code required} false) are omitted. It does not validate.
+ */
+public final class ScenarioWriter {
+  private ScenarioWriter() {}
+
+  /** The scenario as pretty, byte-stable JSON text ending in a newline. */
+  public static String toJson(Scenario s) {
+    ObjectNode o = JsonOut.NODES.objectNode();
+    o.put("format", s.format());
+    if (s.name() != null) {
+      o.put("name", s.name());
+    }
+    o.set("horizon", window(s.horizon()));
+    if (s.observer() != null) {
+      o.set("observer", observer(s.observer()));
+    }
+    if (!s.constraints().equals(Constraints.none())) {
+      o.set("constraints", constraints(s.constraints()));
+    }
+    o.set("slew", slew(s.slew()));
+    if (s.startPointing() != null) {
+      o.set("startPointing", pointing(s.startPointing()));
+    }
+    ArrayNode requests = o.putArray("requests");
+    s.requests().forEach(r -> requests.add(request(r)));
+    if (s.solver() != null) {
+      o.set("solver", solver(s.solver()));
+    }
+    return JsonOut.pretty(o);
+  }
+
+  /** Writes the scenario to {@code file} atomically (temporary file, then move). */
+  public static void write(Scenario s, Path file) {
+    AtomicFiles.writeUtf8(file, toJson(s));
+  }
+
+  private static ObjectNode window(TimeWindow w) {
+    ObjectNode o = JsonOut.NODES.objectNode();
+    o.put("start", JsonOut.instant(w.start()));
+    o.put("end", JsonOut.instant(w.end()));
+    return o;
+  }
+
+  private static ObjectNode observer(Observer observer) {
+    ObjectNode o = JsonOut.NODES.objectNode();
+    if (observer instanceof GroundSite g) {
+      ObjectNode gn = o.putObject("ground");
+      gn.set("latitudeDeg", JsonOut.number(g.latitudeDeg()));
+      gn.set("longitudeDeg", JsonOut.number(g.longitudeDeg()));
+      gn.set("altitudeM", JsonOut.number(g.altitudeM()));
+      if (!g.horizonMask().isEmpty()) {
+        ArrayNode mask = gn.putArray("horizonMask");
+        g.horizonMask().forEach(p -> mask.add(JsonOut.numbers(List.of(p.azimuthDeg(), p.elevationDeg()))));
+      }
+    } else if (observer instanceof OrbitObserver orbit) {
+      ObjectNode on = o.putObject("orbit");
+      if (orbit.orbit() instanceof Tle tle) {
+        on.set("tle", tle(tle));
+      } else if (orbit.orbit() instanceof KeplerianElements k) {
+        ObjectNode kn = on.putObject("keplerian");
+        kn.put("epoch", JsonOut.instant(k.epoch()));
+        kn.set("semiMajorAxisKm", JsonOut.number(k.semiMajorAxisKm()));
+        kn.set("eccentricity", JsonOut.number(k.eccentricity()));
+        kn.set("inclinationDeg", JsonOut.number(k.inclinationDeg()));
+        kn.set("raanDeg", JsonOut.number(k.raanDeg()));
+        kn.set("argumentOfPerigeeDeg", JsonOut.number(k.argumentOfPerigeeDeg()));
+        kn.set("meanAnomalyDeg", JsonOut.number(k.meanAnomalyDeg()));
+      }
+    }
+    return o;
+  }
+
+  private static ArrayNode tle(Tle tle) {
+    ArrayNode a = JsonOut.NODES.arrayNode();
+    a.add(tle.line1());
+    a.add(tle.line2());
+    return a;
+  }
+
+  private static ObjectNode constraints(Constraints c) {
+    ObjectNode o = JsonOut.NODES.objectNode();
+    putIfPresent(o, "sunSeparationMinDeg", c.sunSeparationMinDeg());
+    putIfPresent(o, "moonSeparationMinDeg", c.moonSeparationMinDeg());
+    putIfPresent(o, "earthLimbMinDeg", c.earthLimbMinDeg());
+    putIfPresent(o, "elevationMinDeg", c.elevationMinDeg());
+    putIfPresent(o, "elevationMaxDeg", c.elevationMaxDeg());
+    putIfPresent(o, "sunElevationMaxDeg", c.sunElevationMaxDeg());
+    if (c.targetSunlitRequired() != null) {
+      o.put("targetSunlitRequired", c.targetSunlitRequired());
+    }
+    return o;
+  }
+
+  private static void putIfPresent(ObjectNode o, String name, Double v) {
+    if (v != null) {
+      o.set(name, JsonOut.number(v));
+    }
+  }
+
+  private static ObjectNode slew(SlewSettings slew) {
+    ObjectNode o = JsonOut.NODES.objectNode();
+    o.put("model", slew.model());
+    if (slew instanceof SlewSettings.Eigenaxis e) {
+      o.set("rateDegPerS", JsonOut.number(e.rateDegPerS()));
+      o.set("accelDegPerS2", JsonOut.number(e.accelDegPerS2()));
+      o.set("settleS", JsonOut.number(e.settleS()));
+    } else if (slew instanceof SlewSettings.AltAz a) {
+      o.set("azimuthRateDegPerS", JsonOut.number(a.azimuthRateDegPerS()));
+      o.set("elevationRateDegPerS", JsonOut.number(a.elevationRateDegPerS()));
+      o.set("azimuthAccelDegPerS2", JsonOut.number(a.azimuthAccelDegPerS2()));
+      o.set("elevationAccelDegPerS2", JsonOut.number(a.elevationAccelDegPerS2()));
+      o.set("settleS", JsonOut.number(a.settleS()));
+      if (a.azimuthRangeDeg() != null) {
+        o.set("azimuthRangeDeg", JsonOut.numbers(a.azimuthRangeDeg()));
+      }
+    } else if (slew instanceof SlewSettings.Fixed f) {
+      o.set("seconds", JsonOut.number(f.seconds()));
+    } else if (slew instanceof SlewSettings.Matrix m) {
+      ArrayNode rows = o.putArray("seconds");
+      m.seconds().forEach(row -> rows.add(JsonOut.numbers(row)));
+      if (m.fromStartSeconds() != null) {
+        o.set("fromStartSeconds", JsonOut.numbers(m.fromStartSeconds()));
+      }
+    }
+    return o;
+  }
+
+  private static ObjectNode pointing(Pointing p) {
+    ObjectNode o = JsonOut.NODES.objectNode();
+    if (p instanceof RaDec rd) {
+      o.set("raDeg", JsonOut.number(rd.raDeg()));
+      o.set("decDeg", JsonOut.number(rd.decDeg()));
+    } else if (p instanceof AzElPointing ae) {
+      o.set("azimuthDeg", JsonOut.number(ae.azimuthDeg()));
+      o.set("elevationDeg", JsonOut.number(ae.elevationDeg()));
+    }
+    return o;
+  }
+
+  private static ObjectNode target(Target t) {
+    if (t instanceof RaDec rd) {
+      return pointing(rd);
+    }
+    ObjectNode o = JsonOut.NODES.objectNode();
+    if (t instanceof OrbitingTarget ot) {
+      o.set("tle", tle(ot.tle()));
+    } else if (t instanceof EarthPoint ep) {
+      o.set("latitudeDeg", JsonOut.number(ep.latitudeDeg()));
+      o.set("longitudeDeg", JsonOut.number(ep.longitudeDeg()));
+      o.set("altitudeM", JsonOut.number(ep.altitudeM()));
+    }
+    return o;
+  }
+
+  private static ObjectNode request(Request r) {
+    ObjectNode o = JsonOut.NODES.objectNode();
+    o.put("id", r.id());
+    if (r.target() != null) {
+      o.set("target", target(r.target()));
+    }
+    if (r.isFlexible()) {
+      o.set("minDurationS", JsonOut.number(r.flexible().minDurationS()));
+      o.set("maxDurationS", JsonOut.number(r.flexible().maxDurationS()));
+      o.set("durationStepS", JsonOut.number(r.flexible().durationStepS()));
+      ArrayNode u = o.putArray("utility");
+      r.flexible().utility().forEach(p -> u.add(JsonOut.numbers(List.of(p.exposureS(), p.value()))));
+    } else {
+      if (r.durationS() != null) {
+        o.set("durationS", JsonOut.number(r.durationS()));
+      }
+      if (r.priority() != null) {
+        o.set("priority", JsonOut.number(r.priority()));
+      }
+    }
+    if (r.required()) {
+      o.put("required", true);
+    }
+    if (!r.windows().isEmpty()) {
+      o.set("windows", windows(r.windows()));
+    }
+    return o;
+  }
+
+  /** Windows as [[start, end], ...]; shared with the windows file. */
+  static ArrayNode windows(List<TimeWindow> windows) {
+    ArrayNode a = JsonOut.NODES.arrayNode();
+    for (TimeWindow w : windows) {
+      ArrayNode pair = a.addArray();
+      pair.add(JsonOut.instant(w.start()));
+      pair.add(JsonOut.instant(w.end()));
+    }
+    return a;
+  }
+
+  private static ObjectNode solver(SolverSettings s) {
+    ObjectNode o = JsonOut.NODES.objectNode();
+    o.set("timeLimitS", JsonOut.number(s.timeLimitS()));
+    o.put("workers", s.workers());
+    o.put("seed", s.seed());
+    return o;
+  }
+}

@@ -1,0 +1,206 @@
+package dev.sequencer.io;
+
+import static dev.sequencer.io.Docs.at;
+import static org.junit.jupiter.api.Assertions.assertArrayEquals;
+import static org.junit.jupiter.api.Assertions.assertEquals;
+import static org.junit.jupiter.api.Assertions.assertThrows;
+import static org.junit.jupiter.api.Assertions.assertTrue;
+
+import dev.sequencer.model.Observation;
+import dev.sequencer.model.PlanStatus;
+import dev.sequencer.model.RaDec;
+import dev.sequencer.model.Request;
+import dev.sequencer.model.RequestWindows;
+import dev.sequencer.model.Scenario;
+import dev.sequencer.model.SlewSettings;
+import dev.sequencer.model.TimeWindow;
+import dev.sequencer.model.Timeline;
+import dev.sequencer.model.Unscheduled;
+import java.nio.file.Files;
+import java.nio.file.Path;
+import java.time.Instant;
+import java.util.List;
+import java.util.stream.Stream;
+import org.junit.jupiter.api.Test;
+import org.junit.jupiter.api.io.TempDir;
+
+/** Writers' exact output, the windows and timeline files, and atomic writes. */
+class FilesTest {
+  private static final Instant T0 = Instant.parse("2031-05-04T18:00:00Z");
+
+  private static Timeline timeline() {
+    return new Timeline(PlanStatus.FEASIBLE, 7.5, 84.2, null,
+        List.of(new Observation("R1", T0.plusMillis(250), T0.plusSeconds(600), 84.2, null, Observation.DONE),
+            new Observation("R9", T0.plusSeconds(700), T0.plusSeconds(1000), 0, 2.5, null)),
+        List.of(new Unscheduled("R7", "never visible")));
+  }
+
+  @Test
+  void scenarioWriterOutputIsExact() {
+    Scenario s = new Scenario(1, null, new TimeWindow(T0, T0.plusSeconds(3600)), null, null,
+        new SlewSettings.Matrix(List.of(List.of(0.0, 12.5), List.of(12.0, -0.0)), null), null,
+        List.of(Request.of("A", null, 600, 5).withWindows(List.of(new TimeWindow(T0, T0.plusMillis(1500)))),
+            Request.of("B", null, 0, 1.25).withWindows(List.of(new TimeWindow(T0, T0.plusSeconds(10))))),
+        null);
+    String expected = """
+        {
+          "format": 1,
+          "horizon": {
+            "start": "2031-05-04T18:00:00Z",
+            "end": "2031-05-04T19:00:00Z"
+          },
+          "slew": {
+            "model": "matrix",
+            "seconds": [
+              [0, 12.5],
+              [12, -0.0]
+            ]
+          },
+          "requests": [
+            {
+              "id": "A",
+              "durationS": 600,
+              "priority": 5,
+              "windows": [
+                ["2031-05-04T18:00:00Z", "2031-05-04T18:00:01.500Z"]
+              ]
+            },
+            {
+              "id": "B",
+              "durationS": 0,
+              "priority": 1.25,
+              "windows": [
+                ["2031-05-04T18:00:00Z", "2031-05-04T18:00:10Z"]
+              ]
+            }
+          ]
+        }
+        """;
+    assertEquals(expected, ScenarioWriter.toJson(s));
+    assertEquals(s, ScenarioReader.parse(expected).scenario());
+  }
+
+  @Test
+  void timelineOutputIsExactAndOmitsUnknownBound() {
+    String expected = """
+        {
+          "format": 1,
+          "status": "FEASIBLE",
+          "objective": {
+            "priority": 7.5,
+            "slewSeconds": 84.2
+          },
+          "observations": [
+            {
+              "id": "R1",
+              "start": "2031-05-04T18:00:00.250Z",
+              "end": "2031-05-04T18:10:00Z",
+              "slewSeconds": 84.2,
+              "state": "done"
+            },
+            {
+              "id": "R9",
+              "start": "2031-05-04T18:11:40Z",
+              "end": "2031-05-04T18:16:40Z",
+              "slewSeconds": 0,
+              "value": 2.5
+            }
+          ],
+          "unscheduled": [
+            {
+              "id": "R7",
+              "reason": "never visible"
+            }
+          ]
+        }
+        """;
+    assertEquals(expected, TimelineFile.toJson(timeline()));
+    assertEquals(timeline(), TimelineFile.parse(expected, "t"));
+  }
+
+  @Test
+  void timelineBoundRoundTripsAndNullMeansUnknown() {
+    Timeline t = new Timeline(PlanStatus.OPTIMAL, 42, 1234.5, 45.0, List.of(), List.of());
+    assertEquals(t, TimelineFile.parse(TimelineFile.toJson(t), "t"));
+    String withNull = TimelineFile.toJson(timeline()).replace("\"status\"", "\"bound\": null, \"status\"");
+    assertEquals(timeline(), TimelineFile.parse(withNull, "t"));
+  }
+
+  @Test
+  void timelineProblemsHavePaths() {
+    String bad = """
+        {"format": 1, "status": "OPTIMUM", "objective": {"priority": 1, "slewSeconds": -1},
+         "observations": [
+           {"id": "R1", "start": "2031-05-04T19:00:00Z", "end": "2031-05-04T18:00:00Z", "slewSeconds": 0,
+            "state": "finished"},
+           {"id": "R2", "start": "2031-05-04T18:30:00Z", "end": "2031-05-04T18:40:00Z", "slewSeconds": NaN}],
+         "unscheduled": [{"id": "R1", "reason": "x"}, {"id": "R3"}]}""";
+    List<Problem> ps = assertThrows(ScenarioException.class, () -> TimelineFile.parse(bad, "t")).problems();
+    assertEquals("must be one of OPTIMAL, FEASIBLE, INFEASIBLE, NO_SOLUTION_IN_TIME (did you mean OPTIMAL?)"
+        + " (was \"OPTIMUM\")", at(ps, "status").message());
+    at(ps, "objective.slewSeconds");
+    assertEquals("must be one of done, running, planned (was \"finished\")",
+        at(ps, "observations[0] (id \"R1\").state").message());
+    at(ps, "observations[0] (id \"R1\").end");
+    assertTrue(at(ps, "observations[1] (id \"R2\").start").message().contains("time order"));
+    at(ps, "observations[1] (id \"R2\").slewSeconds");
+    assertEquals("duplicate id, already used by observations[0]", at(ps, "unscheduled[0] (id \"R1\").id").message());
+    assertEquals("is required", at(ps, "unscheduled[1] (id \"R3\").reason").message());
+    assertEquals(8, ps.size());
+  }
+
+  @Test
+  void windowsFileRoundTripsAndChecksOrder() {
+    List<RequestWindows> w = List.of(
+        new RequestWindows("R1", List.of(new TimeWindow(T0.plusMillis(3250), T0.plusSeconds(60)),
+            new TimeWindow(T0.plusSeconds(90), T0.plusSeconds(90)))),
+        new RequestWindows("R2", List.of()));
+    String json = WindowsFile.toJson(w);
+    assertEquals(w, WindowsFile.parse(json, "w"));
+    assertTrue(json.contains("[\"2031-05-04T18:00:03.250Z\", \"2031-05-04T18:01:00Z\"]"), json);
+    String bad = """
+        {"format": 1, "windows": [
+          {"id": "R1", "intervals": [["2031-05-04T18:00:00Z", "2031-05-04T18:10:00Z"],
+                                     ["2031-05-04T18:05:00Z", "2031-05-04T18:20:00Z"]]},
+          {"id": "R1", "intervals": [], "extra": 1}]}""";
+    List<Problem> ps = assertThrows(ScenarioException.class, () -> WindowsFile.parse(bad, "w")).problems();
+    assertTrue(at(ps, "windows[0] (id \"R1\").intervals[1]").message().contains("ordered and disjoint"));
+    at(ps, "windows[1] (id \"R1\").id");
+    at(ps, "windows[1] (id \"R1\").extra");
+  }
+
+  @Test
+  void writersReplaceFilesAtomicallyAndLeaveNoTemporaryFile(@TempDir Path dir) throws Exception {
+    Path file = dir.resolve("plan.json");
+    Files.writeString(file, "old");
+    TimelineFile.write(timeline(), file);
+    byte[] first = Files.readAllBytes(file);
+    TimelineFile.write(TimelineFile.read(file), file);
+    assertArrayEquals(first, Files.readAllBytes(file));
+    try (Stream<Path> files = Files.list(dir)) {
+      assertEquals(List.of(file), files.toList());
+    }
+    Path scenario = dir.resolve("s.json");
+    Scenario s = Docs.read(Docs.base()).scenario();
+    ScenarioWriter.write(s, scenario);
+    assertEquals(s, ScenarioReader.read(scenario).scenario());
+    Path windows = dir.resolve("w.json");
+    List<RequestWindows> w = List.of(new RequestWindows("R1", List.of(new TimeWindow(T0, T0.plusSeconds(5)))));
+    WindowsFile.write(w, windows);
+    assertEquals(w, WindowsFile.read(windows));
+  }
+
+  @Test
+  void writingToAMissingDirectoryFailsWithTheTargetNamed(@TempDir Path dir) {
+    Path file = dir.resolve("no/such/dir/plan.json");
+    var e = assertThrows(java.io.UncheckedIOException.class, () -> TimelineFile.write(timeline(), file));
+    assertTrue(e.getMessage().contains("plan.json"), e.getMessage());
+  }
+
+  @Test
+  void raDecTargetWritesAsRaDec() {
+    Scenario s = Docs.read(Docs.base()).scenario();
+    assertTrue(ScenarioWriter.toJson(s).contains("\"target\": {\n        \"raDeg\": 10,\n        \"decDeg\": -20\n"));
+    assertEquals(new RaDec(10, -20), s.requests().get(0).target());
+  }
+}
