@@ -10,7 +10,6 @@ import com.fasterxml.jackson.databind.node.ArrayNode;
 import com.fasterxml.jackson.databind.node.ObjectNode;
 import java.time.Instant;
 import java.util.List;
-import java.util.function.Function;
 
 /** Test helpers: a valid base scenario as a mutable JSON tree, and ways to read it and find problems. */
 final class Docs {
@@ -100,10 +99,5 @@ final class Docs {
           problems.stream().map(Problem::toString).toList()));
     }
     return hits.get(0);
-  }
-
-  static <T> T with(T value, Function<T, ?> edit) {
-    edit.apply(value);
-    return value;
   }
 }
