@@ -1,0 +1,40 @@
+package dev.sequencer.cli;
+
+import dev.sequencer.astro.AstroContext;
+import dev.sequencer.io.ScenarioReader;
+import java.io.PrintWriter;
+import java.nio.file.Path;
+import java.util.concurrent.Callable;
+import picocli.CommandLine.Command;
+import picocli.CommandLine.Parameters;
+import picocli.CommandLine.Spec;
+import picocli.CommandLine.Model.CommandSpec;
+
+/** {@code sequencer inspect}: checks a scenario and prints a short summary. */
+@Command(
+    name = "inspect",
+    mixinStandardHelpOptions = true,
+    description = {"Check a scenario file and print a short summary.",
+        "Exit 0 when valid; 2 with every problem listed, one a line, when not."},
+    footer = {"", Caution.TEXT})
+final class InspectCommand implements Callable<Integer> {
+  @Parameters(index = "0", paramLabel = "SCENARIO.json", description = "The scenario file.")
+  Path scenario;
+
+  @Spec CommandSpec spec;
+
+  @Override
+  public Integer call() {
+    ScenarioReader.Result r = ScenarioReader.read(scenario);
+    PrintWriter out = spec.commandLine().getOut();
+    ScenarioSummary.lines(r.scenario()).forEach(out::println);
+    AstroContext offline = AstroContext.offline();
+    if (offline.beyondLeapSecondValidity(r.scenario().horizon().end())) {
+      out.println("warning     the horizon ends after " + offline.leapSecondsValidUntil()
+          + ", the last date the bundled leap-second table is known to be complete for");
+    }
+    r.warnings().forEach(w -> out.println("warning     " + w));
+    out.println("valid");
+    return 0;
+  }
+}
