@@ -1,6 +1,7 @@
 package dev.sequencer.slew;
 
 import dev.sequencer.model.AzEl;
+import java.util.Arrays;
 import java.util.List;
 
 /**
@@ -57,27 +58,36 @@ final class AltAzTransitions implements Transitions {
 
   @Override
   public double[] exactS(int[] order, double[] departureS) {
+    return run(order, departureS).seconds();
+  }
+
+  /**
+   * Legs along a sequence: {@code seconds[k]} as {@link #exactS}, and {@code departureAzimuthDeg[k]} the
+   * mount's unwrapped azimuth when leg k leaves (NaN for k = 0 without a start track, and once lost).
+   */
+  record Legs(double[] seconds, double[] departureAzimuthDeg) {}
+
+  Legs run(int[] order, double[] departureS) {
     Intervals.checkSequence(order, departureS, tracks.size());
     double[] out = new double[order.length];
+    double[] states = new double[order.length];
+    Arrays.fill(out, Double.POSITIVE_INFINITY);
+    Arrays.fill(states, Double.NaN);
     double state = Double.NaN; // unwrapped azimuth at the previous arrival
     double arrivalS = Double.NaN;
-    boolean lost = false;
     for (int k = 0; k < order.length; k++) {
       PointingTrack to = tracks.get(order[k]);
       double td = departureS[k];
-      if (lost) {
-        out[k] = Double.POSITIVE_INFINITY;
-        continue;
-      }
       double u;
       double fromElevationDeg;
       if (k == 0 && start == null) {
         AzEl p = to.azEl(td);
-        out[k] = 0;
-        arrivalS = td;
         state = model.elevationAllowed(p.elevationDeg()) ? wrap.initial(p.azimuthDeg()) : Double.NaN;
-        lost = Double.isNaN(state);
-        out[k] = lost ? Double.POSITIVE_INFINITY : 0;
+        arrivalS = td;
+        if (Double.isNaN(state)) {
+          break;
+        }
+        out[k] = 0;
         continue;
       } else if (k == 0) {
         AzEl s = start.azEl(td);
@@ -88,20 +98,24 @@ final class AltAzTransitions implements Transitions {
         u = state + unwrappedChangeDeg(from, arrivalS, td);
         fromElevationDeg = from.azEl(td).elevationDeg();
       }
+      states[k] = u;
       if (Double.isNaN(u) || !wrap.contains(u)) {
-        lost = true;
-        out[k] = Double.POSITIVE_INFINITY;
-        continue;
+        break; // the cable wrap ran out during the previous observation: this and later legs are lost
       }
       double fromAzimuthDeg = u;
       double legS = FixedPoint.exact(tS -> legS(fromAzimuthDeg, fromElevationDeg, to.azEl(td + tS)));
+      if (Double.isInfinite(legS)) {
+        break;
+      }
       AzEl arrival = to.azEl(td + legS);
       state = wrap.nearestLegal(arrival.azimuthDeg(), u);
       arrivalS = td + legS;
-      lost = Double.isInfinite(legS) || Double.isNaN(state);
-      out[k] = lost ? Double.POSITIVE_INFINITY : legS;
+      if (Double.isNaN(state)) {
+        break;
+      }
+      out[k] = legS;
     }
-    return out;
+    return new Legs(out, states);
   }
 
   /** The leg from unwrapped state (azimuth, elevation) to a pointing, on the quicker legal branch. */
