@@ -27,6 +27,7 @@ final class NeighbourhoodSearch {
   private static final int MIN_SLICE = 6;
   private static final int MAX_SLICE = 40;
   private static final double ROUND_TIME_S = 2.0;
+  private static final double MIN_ROUND_DET = 0.1;
 
   private final PlanningProblem problem;
   private final ArcCosts arcs;
@@ -74,7 +75,9 @@ final class NeighbourhoodSearch {
       RoutingModel.Outcome o = model.solve(spec,
           params.withTime(Math.min(ROUND_TIME_S, Math.max(0.05, remaining)), roundDet).withReporter(null));
       rounds++;
-      detUsed += o.deterministicTime();
+      // Each round is charged at least MIN_ROUND_DET units, so a budget always ends after finitely many
+      // rounds even when sub-problems take almost no deterministic time (model building is not counted).
+      detUsed += Math.max(MIN_ROUND_DET, o.deterministicTime());
       if (o.status() == CpSolverStatus.OPTIMAL && o.solveS() < ROUND_TIME_S / 2) {
         slice = Math.min(MAX_SLICE, slice + 2);
       } else if (o.status() != CpSolverStatus.OPTIMAL) {

@@ -82,7 +82,7 @@ public final class Sequencer {
           return noPlan("the greedy planner could not fit every required request (this proves nothing)",
               arcs.feasibleArcCount(), buildS, 0);
         }
-        return finish(PlanStatus.FEASIBLE, greedy, bound, Double.NaN, 0, arcs.feasibleArcCount(), buildS, 0, 0, 0);
+        return finish(PlanStatus.FEASIBLE, greedy, minIgnoringNaN(bound, trivialBound()), bound, 0, arcs.feasibleArcCount(), buildS, 0, 0, 0);
       }
       return solveCpSat(greedy, greedyComplete, buildS);
     }
@@ -152,11 +152,16 @@ public final class Sequencer {
         return noPlan("CP-SAT found no plan in the time limit", arcsKept, buildS, solveS);
       }
       boolean optimal = main.status() == CpSolverStatus.OPTIMAL && allArcs && lnsImprovements == 0;
-      double bound = minIgnoringNaN(cpBound, relaxationBound);
+      double bound = minIgnoringNaN(minIgnoringNaN(cpBound, relaxationBound), trivialBound());
       Stats partial = new Stats(arcsKept, arcs.feasibleArcCount(), buildS, solveS, solutions, lnsRounds,
           lnsImprovements, relaxationBound, 0, 0, notes.toString().trim());
       return finish(optimal ? PlanStatus.OPTIMAL : PlanStatus.FEASIBLE, current, bound, relaxationBound, 0,
           partial.arcsKept(), buildS, solveS, lnsRounds, lnsImprovements);
+    }
+
+    /** Sum of the priorities of all schedulable requests: always a valid bound. */
+    private double trivialBound() {
+      return problem.tasks().stream().filter(Task::schedulable).mapToDouble(Task::priority).sum();
     }
 
     private double relaxation(double timeLimitS) {
