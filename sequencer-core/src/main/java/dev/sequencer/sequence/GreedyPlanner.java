@@ -1,0 +1,99 @@
+package dev.sequencer.sequence;
+
+import dev.sequencer.sequence.PlanningProblem.Task;
+import dev.sequencer.slew.Transitions;
+import java.util.ArrayList;
+import java.util.List;
+
+/**
+ * The greedy baseline: from the current time and pointing, take the request with the best priority per
+ * second used, schedule it at its earliest feasible start, repeat until nothing fits.
+ *
+ * <p>Seconds used = waiting + transition + duration (at least 1 s). The waiting is counted on purpose:
+ * without it a request visible only hours later would look as cheap as one available now, and the plan
+ * would jump over the whole gap. The transition is {@code ceil(boundS(current, j, t, t))} at the actual
+ * departure {@code t}. A candidate is skipped when taking it would make some still-unscheduled required
+ * request impossible to reach directly afterwards (a necessary, not sufficient, look-ahead), and the
+ * must-be-last request is taken only when nothing else fits. Ties go to the lower index, so the result is
+ * deterministic.
+ */
+final class GreedyPlanner {
+  private final PlanningProblem problem;
+  private final int[] required;
+
+  GreedyPlanner(PlanningProblem problem) {
+    this.problem = problem;
+    this.required = java.util.stream.IntStream.range(0, problem.size())
+        .filter(k -> problem.tasks().get(k).required() && problem.tasks().get(k).schedulable()).toArray();
+  }
+
+  /** The greedy plan (maybe missing required requests; the caller checks). */
+  Plan plan() {
+    int n = problem.size();
+    Transitions tr = problem.transitions();
+    boolean[] done = new boolean[n];
+    List<Integer> order = new ArrayList<>();
+    List<Long> starts = new ArrayList<>();
+    int cur = Transitions.START;
+    long t = 0;
+    while (true) {
+      int best = -1;
+      long bestStart = -1;
+      double bestScore = -1;
+      for (int pass = 0; pass < 2 && best < 0; pass++) {
+        for (int j = 0; j < n; j++) {
+          Task tj = problem.tasks().get(j);
+          if (done[j] || !tj.schedulable() || (pass == 0) == (j == problem.mustBeLastIndex())) {
+            continue;
+          }
+          long c = ArcCosts.ceilS(tr.boundS(cur, j, t, t));
+          if (c < 0) {
+            continue;
+          }
+          long s = tj.firstStartAtOrAfter(t + c);
+          if (s < 0 || !requiredStillReachable(j, s + tj.durationS(), done)) {
+            continue;
+          }
+          double score = tj.priority() / Math.max(1, s + tj.durationS() - t);
+          if (score > bestScore) {
+            best = j;
+            bestStart = s;
+            bestScore = score;
+          }
+        }
+      }
+      if (best < 0) {
+        break;
+      }
+      done[best] = true;
+      order.add(best);
+      starts.add(bestStart);
+      t = bestStart + problem.tasks().get(best).durationS();
+      cur = best;
+      if (best == problem.mustBeLastIndex()) {
+        break;
+      }
+    }
+    return new Plan(order.stream().mapToInt(Integer::intValue).toArray(),
+        starts.stream().mapToLong(Long::longValue).toArray());
+  }
+
+  /** True when every other unscheduled required request can still start after {@code end} (directly from j). */
+  private boolean requiredStillReachable(int j, long end, boolean[] done) {
+    Transitions tr = problem.transitions();
+    for (int r : required) {
+      Task tr_ = problem.tasks().get(r);
+      if (r == j || done[r]) {
+        continue;
+      }
+      if (end > tr_.latestStartS()) {
+        return false;
+      }
+      long c = ArcCosts.ceilS(tr.boundS(j, r, end, end));
+      if (c < 0 || tr_.firstStartAtOrAfter(end + c) < 0) {
+        return false;
+      }
+    }
+    return true;
+  }
+}

@@ -1,0 +1,174 @@
+package dev.sequencer.sequence;
+
+import com.google.ortools.sat.CpSolverStatus;
+import dev.sequencer.sequence.PlanningProblem.StartRange;
+import dev.sequencer.sequence.PlanningProblem.Task;
+import dev.sequencer.slew.Transitions;
+import java.util.ArrayList;
+import java.util.Comparator;
+import java.util.List;
+import java.util.Random;
+
+/**
+ * Large-neighbourhood search driven by us: repeatedly free a time slice of the plan (a run of
+ * consecutive observations plus the unscheduled requests that could start inside it, 30–60 requests),
+ * keep everything else fixed, solve that slice with CP-SAT (lexicographic objective, the current slice
+ * as hint) and keep strict improvements of (priority, then model transition).
+ *
+ * <p>The slice is solved between its fixed neighbours: it may start after the previous observation ends
+ * and must leave the transition to the next observation before that one starts, so the spliced plan is
+ * feasible by construction (and checked). The slice length adapts: it grows after a sub-problem is
+ * proven optimal quickly and shrinks after one times out. Slices are drawn with a seeded
+ * {@link Random}, so with reproducible CP-SAT settings and a deterministic budget the search repeats
+ * exactly.
+ */
+final class NeighbourhoodSearch {
+  private static final int MAX_FREE = 60;
+  private static final int MIN_SLICE = 6;
+  private static final int MAX_SLICE = 40;
+  private static final double ROUND_TIME_S = 2.0;
+  private static final double MIN_ROUND_DET = 0.1;
+
+  private final PlanningProblem problem;
+  private final ArcCosts arcs;
+  private final PriorityScale scale;
+  private final RoutingModel model;
+  private final Random random;
+  int rounds;
+  int improvements;
+
+  NeighbourhoodSearch(PlanningProblem problem, ArcCosts arcs, PriorityScale scale, RoutingModel model, int seed) {
+    this.problem = problem;
+    this.arcs = arcs;
+    this.scale = scale;
+    this.model = model;
+    this.random = new Random(seed);
+  }
+
+  /**
+   * Improves {@code current} until the wall-clock deadline (nanoTime) or, in reproducible mode, until
+   * {@code deterministicBudget} CP-SAT work units are spent; {@code onImprove} sees each new plan.
+   */
+  Plan improve(Plan current, long deadlineNanos, double deterministicBudget, RoutingModel.Params params,
+      java.util.function.Consumer<Plan> onImprove) {
+    int slice = 20;
+    double detUsed = 0;
+    while (true) {
+      double remaining = (deadlineNanos - System.nanoTime()) * 1e-9;
+      if (params.reproducible() ? detUsed >= deterministicBudget : remaining < 0.05) {
+        break;
+      }
+      int m = current.size();
+      int len = Math.min(slice, m);
+      int a = m - len <= 0 ? 0 : random.nextInt(m - len + 1);
+      int b = a + len;
+      int from = a == 0 ? Transitions.START : current.order()[a - 1];
+      long departS = a == 0 ? 0 : current.startS()[a - 1] + problem.tasks().get(from).durationS();
+      int to = b == m ? -1 : current.order()[b];
+      long arriveByS = b == m ? problem.horizonS() : current.startS()[b];
+      int[] free = freeRequests(current, a, b, departS, arriveByS, to >= 0);
+      Plan slicePlan = new Plan(java.util.Arrays.copyOfRange(current.order(), a, b),
+          java.util.Arrays.copyOfRange(current.startS(), a, b));
+      RoutingModel.Spec spec = new RoutingModel.Spec(free, from, departS, to, arriveByS, slicePlan,
+          free.length > 40 ? 12 : 0);
+      double roundDet = Math.min(ROUND_TIME_S, Math.max(0.05, deterministicBudget - detUsed));
+      RoutingModel.Outcome o = model.solve(spec,
+          params.withTime(Math.min(ROUND_TIME_S, Math.max(0.05, remaining)), roundDet).withReporter(null));
+      rounds++;
+      // Each round is charged at least MIN_ROUND_DET units, so a budget always ends after finitely many
+      // rounds even when sub-problems take almost no deterministic time (model building is not counted).
+      detUsed += Math.max(MIN_ROUND_DET, o.deterministicTime());
+      if (o.status() == CpSolverStatus.OPTIMAL && o.solveS() < ROUND_TIME_S / 2) {
+        slice = Math.min(MAX_SLICE, slice + 2);
+      } else if (o.status() != CpSolverStatus.OPTIMAL) {
+        slice = Math.max(MIN_SLICE, slice - 2);
+      }
+      if (o.plan() == null) {
+        continue;
+      }
+      long oldP = slicePlan.scaledPriority(scale);
+      long oldT = sliceTransition(slicePlan, from, to);
+      long newP = o.plan().scaledPriority(scale);
+      long newT = sliceTransition(o.plan(), from, to);
+      if (newP > oldP || (newP == oldP && newT < oldT)) {
+        Plan next = splice(current, a, b, o.plan());
+        if (!next.modelFeasible(problem, arcs)) {
+          throw new IllegalStateException("LNS produced an infeasible plan (a bug): " + next);
+        }
+        current = next;
+        improvements++;
+        onImprove.accept(current);
+      }
+    }
+    return current;
+  }
+
+  /** Model transition of a slice between its fixed neighbours, the arc into {@code to} included. */
+  private long sliceTransition(Plan p, int from, int to) {
+    long sum = 0;
+    int prev = from;
+    for (int k : p.order()) {
+      sum += arcs.costFrom(prev, k);
+      prev = k;
+    }
+    if (to >= 0) {
+      sum += arcs.costFrom(prev, to);
+    }
+    return sum;
+  }
+
+  /** The slice's observations plus unscheduled requests that could start in it, best priority first, at most MAX_FREE. */
+  private int[] freeRequests(Plan current, int a, int b, long departS, long arriveByS, boolean hasSuccessor) {
+    boolean[] planned = new boolean[problem.size()];
+    for (int k : current.order()) {
+      planned[k] = true;
+    }
+    List<Integer> free = new ArrayList<>();
+    for (int q = a; q < b; q++) {
+      free.add(current.order()[q]);
+    }
+    List<Integer> candidates = new ArrayList<>();
+    for (int k = 0; k < problem.size(); k++) {
+      Task t = problem.tasks().get(k);
+      if (planned[k] || !t.schedulable() || (hasSuccessor && k == problem.mustBeLastIndex())) {
+        continue;
+      }
+      for (StartRange r : t.starts()) {
+        if (r.toS() >= departS && r.fromS() <= arriveByS - t.durationS()) {
+          candidates.add(k);
+          break;
+        }
+      }
+    }
+    // Random tie-breaks keep successive rounds on the same slice from trying the same candidates.
+    double[] jitter = new double[problem.size()];
+    for (int k : candidates) {
+      jitter[k] = random.nextDouble();
+    }
+    candidates.sort(Comparator.comparingDouble((Integer k) -> -problem.tasks().get(k).priority() * (0.5 + jitter[k])));
+    for (int q = 0; q < candidates.size() && free.size() < MAX_FREE; q++) {
+      free.add(candidates.get(q));
+    }
+    return free.stream().mapToInt(Integer::intValue).toArray();
+  }
+
+  private static Plan splice(Plan p, int a, int b, Plan mid) {
+    int m = p.size() - (b - a) + mid.size();
+    int[] order = new int[m];
+    long[] starts = new long[m];
+    int q = 0;
+    for (int k = 0; k < a; k++, q++) {
+      order[q] = p.order()[k];
+      starts[q] = p.startS()[k];
+    }
+    for (int k = 0; k < mid.size(); k++, q++) {
+      order[q] = mid.order()[k];
+      starts[q] = mid.startS()[k];
+    }
+    for (int k = b; k < p.size(); k++, q++) {
+      order[q] = p.order()[k];
+      starts[q] = p.startS()[k];
+    }
+    return new Plan(order, starts);
+  }
+}

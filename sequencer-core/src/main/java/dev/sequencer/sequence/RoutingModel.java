@@ -1,0 +1,596 @@
+package dev.sequencer.sequence;
+
+import com.google.ortools.sat.BoolVar;
+import com.google.ortools.sat.CircuitConstraint;
+import com.google.ortools.sat.CpModel;
+import com.google.ortools.sat.CpSolver;
+import com.google.ortools.sat.CpSolverSolutionCallback;
+import com.google.ortools.sat.CpSolverStatus;
+import com.google.ortools.sat.IntVar;
+import com.google.ortools.sat.IntervalVar;
+import com.google.ortools.sat.LinearExpr;
+import com.google.ortools.sat.LinearExprBuilder;
+import com.google.ortools.sat.Literal;
+import com.google.ortools.sat.SatParameters;
+import com.google.ortools.util.Domain;
+import dev.sequencer.sequence.PlanningProblem.StartRange;
+import dev.sequencer.sequence.PlanningProblem.Task;
+import dev.sequencer.slew.Transitions;
+import java.util.ArrayList;
+import java.util.Arrays;
+import java.util.Comparator;
+import java.util.HashSet;
+import java.util.List;
+import java.util.Set;
+
+/**
+ * The CP-SAT model of a prize-collecting path with time windows over a set of requests, between a fixed
+ * predecessor ({@code from}: the start pointing or a fixed observation that ends at {@code departS}) and
+ * an optional fixed successor ({@code to}, which starts at {@code arriveByS}).
+ *
+ * <p>The whole problem is the case from = START, departS = 0, to = none, arriveByS = horizon end; the
+ * large-neighbourhood search solves slices of the timeline with the same model. Phases, top to bottom:
+ * variables, circuit with transitions, redundant no-overlap, objective, hint, solve, read back. Circuit
+ * node 0 is the depot: arcs out of it choose the first request, arcs into it the last.
+ */
+final class RoutingModel {
+  /** What the objective optimises. */
+  enum Mode {
+    /** Maximise priority·W − transition, W = max total transition + 1: exact lexicographic order. */
+    COMBINED,
+    /** Maximise priority only (stage 1 of two). */
+    PRIORITY,
+    /** Fix priority, minimise transition (stage 2 of two). */
+    TRANSITION
+  }
+
+  /** Largest objective magnitude kept exact in CP-SAT's double-valued objective and bound. */
+  static final long EXACT_DOUBLE_LIMIT = 1L << 53;
+
+  /**
+   * A sub-problem: candidate requests, fixed predecessor {@code from} ({@link Transitions#START} or a
+   * request) ending at {@code departS}, fixed successor {@code to} (-1 for none) starting at
+   * {@code arriveByS} (or the horizon end), a hint (may be null), and the arc limit per request ({@code
+   * kBest} ≤ 0 keeps all time-feasible arcs).
+   */
+  record Spec(int[] nodes, int from, long departS, int to, long arriveByS, Plan hint, int kBest) {}
+
+  /** Solver settings for one solve. */
+  record Params(double timeLimitS, int workers, int seed, boolean reproducible, double deterministicLimit,
+      boolean probingOff, Reporter reporter) {
+    Params withTime(double t, double det) {
+      return new Params(t, workers, seed, reproducible, det, probingOff, reporter);
+    }
+
+    Params withReporter(Reporter r) {
+      return new Params(timeLimitS, workers, seed, reproducible, deterministicLimit, probingOff, r);
+    }
+  }
+
+  /** Receives each new incumbent of a solve (scaled priority, model transition seconds, CP-SAT bound in priority units or NaN). */
+  interface Reporter {
+    void report(long scaledPriority, long transitionS, long scaledPriorityBound);
+  }
+
+  /**
+   * The outcome: CP-SAT status (of the last stage), plan (null if none), its scaled priority and model
+   * transition, the proven bound on scaled priority within this model (-1 if none), solutions found,
+   * arcs kept, build and solve seconds and deterministic time used.
+   */
+  record Outcome(CpSolverStatus status, Plan plan, long scaledPriority, long transitionS, long priorityBound,
+      int solutions, long arcsKept, double buildS, double solveS, double deterministicTime) {}
+
+  private final PlanningProblem problem;
+  private final ArcCosts arcs;
+  private final PriorityScale scale;
+
+  static {
+    com.google.ortools.Loader.loadNativeLibraries();
+  }
+
+  RoutingModel(PlanningProblem problem, ArcCosts arcs, PriorityScale scale) {
+    this.problem = problem;
+    this.arcs = arcs;
+    this.scale = scale;
+  }
+
+  /**
+   * Solves the spec lexicographically: one COMBINED solve when priority·W fits in 2^53, otherwise
+   * PRIORITY then TRANSITION with the priority fixed, each with half the time.
+   */
+  Outcome solve(Spec spec, Params params) {
+    Built probe = new Built(spec, Mode.COMBINED, 0);
+    if (probe.fitsCombined()) {
+      return probe.run(params);
+    }
+    Built stage1 = new Built(spec, Mode.PRIORITY, 0);
+    Outcome o1 = stage1.run(params.withTime(params.timeLimitS() / 2, params.deterministicLimit() / 2));
+    if (o1.plan() == null) {
+      return o1;
+    }
+    Spec spec2 = new Spec(spec.nodes(), spec.from(), spec.departS(), spec.to(), spec.arriveByS(), o1.plan(),
+        spec.kBest());
+    Built stage2 = new Built(spec2, Mode.TRANSITION, o1.scaledPriority());
+    Outcome o2 = stage2.run(params.withTime(params.timeLimitS() / 2, params.deterministicLimit() / 2));
+    boolean bothOptimal = o1.status() == CpSolverStatus.OPTIMAL && o2.status() == CpSolverStatus.OPTIMAL;
+    Outcome best = o2.plan() != null ? o2 : o1;
+    return new Outcome(bothOptimal ? CpSolverStatus.OPTIMAL : CpSolverStatus.FEASIBLE, best.plan(),
+        best.scaledPriority(), best.transitionS(), o1.priorityBound(), o1.solutions() + o2.solutions(),
+        o1.arcsKept(), o1.buildS() + o2.buildS(), o1.solveS() + o2.solveS(),
+        o1.deterministicTime() + o2.deterministicTime());
+  }
+
+  /** One built CP-SAT model. */
+  private final class Built {
+    private final Spec spec;
+    private final Mode mode;
+    private final CpModel model = new CpModel();
+    private final List<Integer> nodes = new ArrayList<>();
+    private final List<long[][]> domains = new ArrayList<>();
+    private final List<BoolVar> present = new ArrayList<>();
+    private final List<IntVar> startS = new ArrayList<>();
+    private final List<IntervalVar> intervals = new ArrayList<>();
+    private final List<int[]> arcEnds = new ArrayList<>();
+    private final List<Literal> arcLits = new ArrayList<>();
+    private final List<Long> arcCost = new ArrayList<>();
+    private final long buildNanos;
+    private boolean emptyAllowed;
+    private long weight = 1;
+    private long maxScaledPriority;
+    private LinearExpr priorityExpr;
+    private LinearExpr transitionExpr;
+
+    Built(Spec spec, Mode mode, long fixedPriority) {
+      long t0 = System.nanoTime();
+      this.spec = spec;
+      this.mode = mode;
+      addVariables();
+      addCircuitWithTransitions();
+      addRedundantNoOverlap();
+      addObjective(fixedPriority);
+      addHint();
+      this.buildNanos = System.nanoTime() - t0;
+    }
+
+    private String name(int node) {
+      if (node == Transitions.START) {
+        return "START";
+      }
+      return problem.tasks().get(node).id();
+    }
+
+    /** Adds: present[R] (bool), startS[R] in the union of R's start ranges inside [departS, arriveByS − dur], obs[R] optional interval. */
+    private void addVariables() {
+      for (int k : spec.nodes()) {
+        Task t = problem.tasks().get(k);
+        long lo = spec.departS();
+        long hi = spec.arriveByS() - t.durationS();
+        List<long[]> parts = new ArrayList<>();
+        for (StartRange r : t.starts()) {
+          long a = Math.max(lo, r.fromS());
+          long b = Math.min(hi, r.toS());
+          if (a <= b) {
+            parts.add(new long[] {a, b});
+          }
+        }
+        if (parts.isEmpty()) {
+          if (t.required()) {
+            // Keep the request so the model is (correctly) infeasible rather than silently dropping it.
+            parts.add(new long[] {lo, lo});
+            BoolVar contradiction = model.newBoolVar("fits[" + t.id() + "]");
+            model.addEquality(contradiction, 1);
+            model.addEquality(contradiction, 0);
+          } else {
+            continue;
+          }
+        }
+        long[][] dom = parts.toArray(new long[0][]);
+        BoolVar p = model.newBoolVar("present[" + t.id() + "]");
+        IntVar s = model.newIntVarFromDomain(Domain.fromIntervals(dom), "startS[" + t.id() + "]");
+        IntervalVar iv = model.newOptionalFixedSizeIntervalVar(s, t.durationS(), p, "obs[" + t.id() + "]");
+        if (t.required()) {
+          model.addEquality(p, 1);
+        }
+        nodes.add(k);
+        domains.add(dom);
+        present.add(p);
+        startS.add(s);
+        intervals.add(iv);
+      }
+    }
+
+    private long earliest(int a) {
+      return domains.get(a)[0][0];
+    }
+
+    private long latest(int a) {
+      long[][] d = domains.get(a);
+      return d[d.length - 1][1];
+    }
+
+    private long dur(int a) {
+      return problem.tasks().get(nodes.get(a)).durationS();
+    }
+
+    /**
+     * Adds the circuit over present requests (skipped request R = self-loop with literal
+     * present[R].not()); next[A->B] implies startS[B] >= startS[A] + dur(A) + cost(A, B); next[from->B]
+     * implies startS[B] >= departS + cost(from, B); next[A->to] implies startS[A] + dur(A) + cost(A, to)
+     * <= arriveByS. Arcs that can never be time-feasible are not created.
+     */
+    private void addCircuitWithTransitions() {
+      int m = nodes.size();
+      CircuitConstraint circuit = model.addCircuit();
+      boolean anyRequired = false;
+      for (int a = 0; a < m; a++) {
+        anyRequired |= problem.tasks().get(nodes.get(a)).required();
+      }
+      // Depot self-loop: nothing scheduled in this slice.
+      long emptyCost = spec.to() < 0 ? 0 : arcs.costFrom(spec.from(), spec.to());
+      emptyAllowed = !anyRequired && emptyCost >= 0 && spec.departS() + emptyCost <= spec.arriveByS();
+      if (emptyAllowed) {
+        BoolVar empty = model.newBoolVar("next[" + name(spec.from()) + "->" + endName() + "]");
+        circuit.addArc(0, 0, empty);
+        remember(-1, -1, empty, emptyCost);
+      }
+      Set<Long> hinted = hintArcs();
+      for (int a = 0; a < m; a++) {
+        int k = nodes.get(a);
+        Task t = problem.tasks().get(k);
+        if (!t.required()) {
+          circuit.addArc(a + 1, a + 1, present.get(a).not());
+        }
+        long c0 = arcs.costFrom(spec.from(), k);
+        if (c0 >= 0 && spec.departS() + c0 <= latest(a)) {
+          BoolVar lit = model.newBoolVar("next[" + name(spec.from()) + "->" + t.id() + "]");
+          circuit.addArc(0, a + 1, lit);
+          model.addGreaterOrEqual(startS.get(a), spec.departS() + c0).onlyEnforceIf(lit);
+          remember(-1, a, lit, c0);
+        }
+        if (k == problem.mustBeLastIndex() && spec.to() >= 0) {
+          continue; // the must-be-last request cannot precede a fixed successor
+        }
+        long c1 = spec.to() < 0 ? 0 : arcs.cost(k, spec.to());
+        if (c1 >= 0 && earliest(a) + dur(a) + c1 <= spec.arriveByS()) {
+          BoolVar lit = model.newBoolVar("next[" + t.id() + "->" + endName() + "]");
+          circuit.addArc(a + 1, 0, lit);
+          if (spec.to() >= 0) {
+            model.addLessOrEqual(LinearExpr.affine(startS.get(a), 1, dur(a) + c1), spec.arriveByS()).onlyEnforceIf(lit);
+          }
+          remember(a, -1, lit, c1);
+        }
+      }
+      for (int a = 0; a < m; a++) {
+        int k = nodes.get(a);
+        if (k == problem.mustBeLastIndex()) {
+          continue; // no successor after the must-be-last request
+        }
+        for (int b : successors(a, hinted)) {
+          long c = arcs.cost(k, nodes.get(b));
+          BoolVar lit = model.newBoolVar("next[" + name(k) + "->" + name(nodes.get(b)) + "]");
+          circuit.addArc(a + 1, b + 1, lit);
+          model.addGreaterOrEqual(
+              LinearExpr.newBuilder().add(startS.get(b)).addTerm(startS.get(a), -1).build(), dur(a) + c)
+              .onlyEnforceIf(lit);
+          remember(a, b, lit, c);
+        }
+      }
+    }
+
+    private String endName() {
+      return spec.to() < 0 ? "END" : name(spec.to());
+    }
+
+    private void remember(int a, int b, Literal lit, long cost) {
+      arcEnds.add(new int[] {a, b});
+      arcLits.add(lit);
+      arcCost.add(cost);
+    }
+
+    /** Hinted request-to-request arcs, as a*m+b keys over model positions. */
+    private Set<Long> hintArcs() {
+      Set<Long> out = new HashSet<>();
+      if (spec.hint() == null) {
+        return out;
+      }
+      int[] pos = positions();
+      int[] o = spec.hint().order();
+      for (int q = 0; q + 1 < o.length; q++) {
+        int a = pos[o[q]];
+        int b = pos[o[q + 1]];
+        if (a >= 0 && b >= 0) {
+          out.add((long) a * nodes.size() + b);
+        }
+      }
+      return out;
+    }
+
+    private int[] positions() {
+      int[] pos = new int[problem.size()];
+      Arrays.fill(pos, -1);
+      for (int a = 0; a < nodes.size(); a++) {
+        pos[nodes.get(a)] = a;
+      }
+      return pos;
+    }
+
+    /**
+     * Time-feasible successors of position a: earliest end of a + cost <= latest start of b. With
+     * kBest > 0, only the kBest best by (cost + least forced wait) out of a, united with the kBest best
+     * into each b and with the hinted arcs.
+     */
+    private List<Integer> successors(int a, Set<Long> hinted) {
+      int m = nodes.size();
+      List<Integer> out = new ArrayList<>();
+      for (int b = 0; b < m; b++) {
+        if (b != a && feasible(a, b)) {
+          out.add(b);
+        }
+      }
+      if (spec.kBest() <= 0 || out.size() <= spec.kBest()) {
+        return out;
+      }
+      if (kept == null) {
+        kept = kBestArcs(hinted);
+      }
+      List<Integer> filtered = new ArrayList<>();
+      for (int b : out) {
+        if (kept.contains((long) a * m + b)) {
+          filtered.add(b);
+        }
+      }
+      return filtered;
+    }
+
+    private Set<Long> kept;
+
+    private boolean feasible(int a, int b) {
+      long c = arcs.cost(nodes.get(a), nodes.get(b));
+      return c >= 0 && earliest(a) + dur(a) + c <= latest(b);
+    }
+
+    private long score(int a, int b) {
+      long c = arcs.cost(nodes.get(a), nodes.get(b));
+      long wait = Math.max(0, earliest(b) - (latest(a) + dur(a) + c));
+      return c + wait;
+    }
+
+    private Set<Long> kBestArcs(Set<Long> hinted) {
+      int m = nodes.size();
+      int k = spec.kBest();
+      Set<Long> keep = new HashSet<>(hinted);
+      List<List<Integer>> in = new ArrayList<>();
+      for (int b = 0; b < m; b++) {
+        in.add(new ArrayList<>());
+      }
+      for (int a = 0; a < m; a++) {
+        List<Integer> out = new ArrayList<>();
+        for (int b = 0; b < m; b++) {
+          if (b != a && feasible(a, b)) {
+            out.add(b);
+            in.get(b).add(a);
+          }
+        }
+        final int fa = a;
+        out.sort(Comparator.comparingLong((Integer b) -> score(fa, b)).thenComparingInt(b -> b));
+        for (int q = 0; q < Math.min(k, out.size()); q++) {
+          keep.add((long) a * m + out.get(q));
+        }
+      }
+      for (int b = 0; b < m; b++) {
+        final int fb = b;
+        List<Integer> preds = in.get(b);
+        preds.sort(Comparator.comparingLong((Integer a) -> score(a, fb)).thenComparingInt(a -> a));
+        for (int q = 0; q < Math.min(k, preds.size()); q++) {
+          keep.add((long) preds.get(q) * m + b);
+        }
+      }
+      return keep;
+    }
+
+    /**
+     * Adds (redundant): NoOverlap(obs[R] for all R). The circuit already orders present requests; the
+     * no-overlap propagator reasons over all intervals at once (edge finding, disjunctive bounds), which
+     * prunes start domains and detects overload before the circuit has chosen the arcs.
+     */
+    private void addRedundantNoOverlap() {
+      if (intervals.size() > 1) {
+        model.addNoOverlap(intervals);
+      }
+    }
+
+    /**
+     * Adds the objective: COMBINED maximises P·W − T with P = Σ priority[R]·present[R] (scaled integers),
+     * T = Σ cost(A, B)·next[A->B] and W = (upper bound on T) + 1, so one unit of priority outweighs any
+     * transition saving; PRIORITY maximises P; TRANSITION fixes P and minimises T.
+     */
+    private void addObjective(long fixedPriority) {
+      LinearExprBuilder p = LinearExpr.newBuilder();
+      maxScaledPriority = 0;
+      for (int a = 0; a < nodes.size(); a++) {
+        long w = scale.scaled(nodes.get(a));
+        p.addTerm(present.get(a), w);
+        maxScaledPriority += w;
+      }
+      LinearExprBuilder t = LinearExpr.newBuilder();
+      for (int q = 0; q < arcLits.size(); q++) {
+        if (arcCost.get(q) != 0) {
+          t.addTerm(arcLits.get(q), arcCost.get(q));
+        }
+      }
+      priorityExpr = p.build();
+      transitionExpr = t.build();
+      // Transitions are disjoint stretches of [departS, arriveByS], so T <= arriveByS - departS; also T <=
+      // the sum over requests (and the end) of their largest incoming arc cost.
+      long maxTransitionS = Math.max(0, spec.arriveByS() - spec.departS());
+      maxTransitionS = Math.min(maxTransitionS, sumOfLargestIncoming());
+      long priorityWeight = maxTransitionS + 1; // one unit of priority outweighs any transition saving
+      weight = priorityWeight;
+      switch (mode) {
+        case COMBINED -> {
+          if (fitsCombined()) {
+            model.maximize(LinearExpr.newBuilder().addTerm(priorityExpr, priorityWeight).addTerm(transitionExpr, -1)
+                .build());
+          }
+        }
+        case PRIORITY -> model.maximize(priorityExpr);
+        case TRANSITION -> {
+          model.addEquality(priorityExpr, fixedPriority);
+          model.minimize(transitionExpr);
+        }
+        default -> throw new IllegalStateException("unknown mode " + mode);
+      }
+    }
+
+    private long sumOfLargestIncoming() {
+      long[] largest = new long[nodes.size() + 1];
+      for (int q = 0; q < arcLits.size(); q++) {
+        int b = arcEnds.get(q)[1];
+        int slot = b < 0 ? nodes.size() : b;
+        largest[slot] = Math.max(largest[slot], arcCost.get(q));
+      }
+      long sum = 0;
+      for (long v : largest) {
+        sum += v;
+      }
+      return sum;
+    }
+
+    /** True when (ΣP)·W + W stays below 2^53, so objective and bound are exact in CP-SAT's doubles. */
+    boolean fitsCombined() {
+      return maxScaledPriority < (EXACT_DOUBLE_LIMIT - weight) / weight;
+    }
+
+    /** Adds hints on every variable (presence, start, every arc including self-loops) from spec.hint. */
+    private void addHint() {
+      Plan h = spec.hint();
+      if (h == null) {
+        return;
+      }
+      int[] pos = positions();
+      int m = nodes.size();
+      long[] hs = new long[m];
+      boolean[] in = new boolean[m];
+      int[] order = Arrays.stream(h.order()).map(k -> pos[k]).toArray();
+      for (int q = 0; q < order.length; q++) {
+        if (order[q] < 0) {
+          return; // the hint uses a request outside this model: not usable
+        }
+        in[order[q]] = true;
+        hs[order[q]] = h.startS()[q];
+      }
+      for (int a = 0; a < m; a++) {
+        model.addHint(present.get(a), in[a]);
+        model.addHint(startS.get(a), in[a] ? hs[a] : earliest(a));
+      }
+      Set<Long> used = new HashSet<>();
+      int prev = -1;
+      for (int a : order) {
+        used.add(key(prev, a));
+        prev = a;
+      }
+      used.add(key(prev, -1));
+      for (int q = 0; q < arcLits.size(); q++) {
+        int[] e = arcEnds.get(q);
+        model.addHint(arcLits.get(q), used.contains(key(e[0], e[1])));
+      }
+    }
+
+    private long key(int a, int b) {
+      return (long) (a + 1) * (nodes.size() + 2) + (b + 1);
+    }
+
+    /** Solves and reads back the plan (requests in circuit order with their starts). */
+    Outcome run(Params params) {
+      CpSolver solver = new CpSolver();
+      SatParameters.Builder sp = solver.getParameters();
+      sp.setNumWorkers(params.workers());
+      sp.setRandomSeed(params.seed());
+      if (params.reproducible()) {
+        sp.setMaxDeterministicTime(params.deterministicLimit());
+        sp.setInterleaveSearch(true);
+        // Safety net only; reproducibility holds while the deterministic limit is reached first.
+        sp.setMaxTimeInSeconds(Math.max(10 * params.timeLimitS(), 60));
+      } else {
+        sp.setMaxTimeInSeconds(params.timeLimitS());
+      }
+      if (params.probingOff()) {
+        sp.setCpModelProbingLevel(0);
+        sp.setSymmetryLevel(0);
+      }
+      int[] solutions = {0};
+      CpSolverSolutionCallback cb = new CpSolverSolutionCallback() {
+        @Override
+        public void onSolutionCallback() {
+          solutions[0]++;
+          if (params.reporter() != null) {
+            long pr = value(priorityExpr);
+            long tr = value(transitionExpr);
+            params.reporter().report(pr, tr, priorityBoundFrom(bestObjectiveBound()));
+          }
+        }
+      };
+      long t0 = System.nanoTime();
+      CpSolverStatus status = solver.solve(model, cb);
+      double solveS = (System.nanoTime() - t0) * 1e-9;
+      if (status == CpSolverStatus.MODEL_INVALID) {
+        throw new IllegalStateException("CP-SAT rejected the sequencing model (a bug in the sequencer): "
+            + model.validate());
+      }
+      Plan plan = null;
+      long pr = 0;
+      long tr = 0;
+      if (status == CpSolverStatus.OPTIMAL || status == CpSolverStatus.FEASIBLE) {
+        plan = readBack(solver);
+        pr = solver.value(priorityExpr);
+        tr = solver.value(transitionExpr);
+      }
+      long bound = -1;
+      if (status == CpSolverStatus.OPTIMAL) {
+        bound = pr;
+      } else if (status == CpSolverStatus.FEASIBLE && mode != Mode.TRANSITION) {
+        bound = priorityBoundFrom(solver.bestObjectiveBound());
+      }
+      return new Outcome(status, plan, pr, tr, bound, solutions[0], arcLits.size(), buildNanos * 1e-9, solveS,
+          solver.response().getDeterministicTime());
+    }
+
+    /** Proven bound on scaled priority from an objective bound B: COMBINED gives P <= floor((B + W − 1) / W). */
+    private long priorityBoundFrom(double objectiveBound) {
+      if (Double.isNaN(objectiveBound) || Double.isInfinite(objectiveBound)) {
+        return -1;
+      }
+      long b = (long) Math.floor(objectiveBound + 1e-9);
+      return switch (mode) {
+        case COMBINED -> Math.floorDiv(b + weight - 1, weight);
+        case PRIORITY -> b;
+        case TRANSITION -> -1;
+      };
+    }
+
+    private Plan readBack(CpSolver solver) {
+      int m = nodes.size();
+      int[] succ = new int[m + 1];
+      Arrays.fill(succ, Integer.MIN_VALUE);
+      for (int q = 0; q < arcLits.size(); q++) {
+        if (solver.booleanValue(arcLits.get(q))) {
+          int[] e = arcEnds.get(q);
+          succ[e[0] + 1] = e[1];
+        }
+      }
+      List<Integer> order = new ArrayList<>();
+      List<Long> starts = new ArrayList<>();
+      int cur = succ[0];
+      while (cur >= 0) {
+        if (order.size() > m) {
+          throw new IllegalStateException("CP-SAT circuit read back as a cycle without the depot (a bug)");
+        }
+        order.add(nodes.get(cur));
+        starts.add(solver.value(startS.get(cur)));
+        cur = succ[cur + 1];
+      }
+      return new Plan(order.stream().mapToInt(Integer::intValue).toArray(),
+          starts.stream().mapToLong(Long::longValue).toArray());
+    }
+  }
+}

@@ -1,0 +1,308 @@
+package dev.sequencer.sequence;
+
+import com.google.ortools.sat.CpSolverStatus;
+import dev.sequencer.model.PlanStatus;
+import dev.sequencer.model.Unscheduled;
+import dev.sequencer.sequence.PlanningProblem.Task;
+import dev.sequencer.sequence.SequencerResult.Planned;
+import dev.sequencer.sequence.SequencerResult.Stats;
+import dev.sequencer.slew.Transitions;
+import dev.sequencer.validate.PlanValidator;
+import java.util.ArrayList;
+import java.util.Arrays;
+import java.util.List;
+
+/**
+ * Plans observations: first the largest total priority, then the smallest total transition time.
+ *
+ * <p>Steps: greedy plan (the baseline, warm start and fallback); for CP-SAT, the LP bucket bound, the
+ * routing model (all time-feasible arcs up to {@link #LARGE} requests; above, the K best successor arcs
+ * per request united with the greedy plan's arcs, and CP-SAT probing and symmetry detection off) and, on
+ * large models, our large-neighbourhood search for the rest of the time; then compaction at the exact
+ * transitions and an independent validation. Every returned plan passes {@link PlanValidator}; a plan
+ * that does not is a bug and raises {@link IllegalStateException}. Stateless: one instance may serve
+ * several threads.
+ */
+public final class Sequencer {
+  /** Above this many schedulable requests the model is "large" (K-best arcs, probing off, LNS). */
+  static final int LARGE = 120;
+  /** Successor arcs kept per request on large models when {@code kBest} is automatic. */
+  static final int AUTO_K_BEST = 10;
+  /** Share of the time limit the whole-model solve gets on large models before LNS takes over. */
+  static final double MAIN_SHARE_LARGE = 0.35;
+
+  /** Plans {@code problem} with {@code options}. */
+  public SequencerResult plan(PlanningProblem problem, SequencerOptions options) {
+    return new Run(problem, options).execute();
+  }
+
+  /** The state of one call. */
+  private static final class Run {
+    private final PlanningProblem problem;
+    private final SequencerOptions options;
+    private final long t0 = System.nanoTime();
+    private final long deadline;
+    private final StringBuilder notes = new StringBuilder();
+    private ArcCosts arcs;
+    private PriorityScale scale;
+    private int solutions;
+    private long bestReportedP = Long.MIN_VALUE;
+    private long bestReportedT = Long.MAX_VALUE;
+    private double knownBound = Double.NaN;
+
+    Run(PlanningProblem problem, SequencerOptions options) {
+      this.problem = problem;
+      this.options = options;
+      this.deadline = t0 + (long) (options.timeLimitS() * 1e9);
+    }
+
+    private double elapsedS() {
+      return (System.nanoTime() - t0) * 1e-9;
+    }
+
+    private double remainingS() {
+      return Math.max(0.0, (deadline - System.nanoTime()) * 1e-9);
+    }
+
+    SequencerResult execute() {
+      for (Task t : problem.tasks()) {
+        if (t.required() && !t.schedulable()) {
+          return infeasible("required request " + t.id() + " cannot be scheduled: " + t.emptyReason(), 0, 0);
+        }
+      }
+      long b0 = System.nanoTime();
+      arcs = new ArcCosts(problem);
+      scale = new PriorityScale(problem);
+      Plan greedy = new GreedyPlanner(problem).plan();
+      double buildS = (System.nanoTime() - b0) * 1e-9;
+      boolean greedyComplete = hasAllRequired(greedy);
+      if (options.solver() == SequencerOptions.Solver.GREEDY) {
+        double bound = options.relaxationBound() ? relaxation(Math.min(5, remainingS())) : Double.NaN;
+        if (!greedyComplete) {
+          return noPlan("the greedy planner could not fit every required request (this proves nothing)",
+              arcs.feasibleArcCount(), buildS, 0);
+        }
+        return finish(PlanStatus.FEASIBLE, greedy, minIgnoringNaN(bound, trivialBound()), bound, 0, arcs.feasibleArcCount(), buildS, 0, 0, 0);
+      }
+      return solveCpSat(greedy, greedyComplete, buildS);
+    }
+
+    private SequencerResult solveCpSat(Plan greedy, boolean greedyComplete, double buildS) {
+      Plan hint = Plan.retime(problem, arcs, greedy.order());
+      boolean hintComplete = hasAllRequired(hint);
+      int[] nodes = java.util.stream.IntStream.range(0, problem.size())
+          .filter(k -> problem.tasks().get(k).schedulable()).toArray();
+      boolean large = nodes.length > LARGE;
+      int k = options.kBest() < 0 ? 0 : options.kBest() == 0 ? (large ? AUTO_K_BEST : 0) : options.kBest();
+      boolean allArcs = k == 0;
+      double relaxationBound = Double.NaN;
+      if (options.relaxationBound()) {
+        relaxationBound = relaxation(Math.min(5, 0.15 * options.timeLimitS()));
+        knownBound = relaxationBound;
+      }
+      boolean runLns = options.lns() && large;
+      double mainTime = runLns ? Math.max(0.5, MAIN_SHARE_LARGE * remainingS()) : remainingS();
+      double mainDet = runLns ? MAIN_SHARE_LARGE * options.deterministicLimit() : options.deterministicLimit();
+      RoutingModel model = new RoutingModel(problem, arcs, scale);
+      RoutingModel.Params params = new RoutingModel.Params(mainTime, options.effectiveWorkers(), options.seed(),
+          options.reproducible(), mainDet, large, this::report);
+      if (options.hint() && hintComplete) {
+        report(hint.scaledPriority(scale), hint.modelTransitionS(arcs), -1);
+      }
+      RoutingModel.Spec spec = new RoutingModel.Spec(nodes, Transitions.START, 0, -1, problem.horizonS(),
+          options.hint() ? hint : null, k);
+      RoutingModel.Outcome main = model.solve(spec, params);
+      long arcsKept = main.arcsKept();
+      double solveS = main.solveS();
+      buildS += main.buildS();
+      if (main.status() == CpSolverStatus.INFEASIBLE && !allArcs && remainingS() > 0.05) {
+        notes.append("K-best model infeasible; re-solved with all arcs. ");
+        allArcs = true;
+        spec = new RoutingModel.Spec(nodes, Transitions.START, 0, -1, problem.horizonS(), null, 0);
+        main = model.solve(spec, params.withTime(remainingS(), mainDet));
+        solveS += main.solveS();
+        buildS += main.buildS();
+      }
+      if (main.status() == CpSolverStatus.INFEASIBLE && allArcs) {
+        return infeasible("CP-SAT proved that the required requests cannot all be scheduled", arcsKept, solveS);
+      }
+      Plan current = main.plan();
+      if (current == null && hintComplete) {
+        current = hint;
+        notes.append("CP-SAT found no plan in time; returning the greedy plan. ");
+      }
+      double cpBound = Double.NaN;
+      if (allArcs && main.priorityBound() >= 0) {
+        cpBound = main.priorityBound() / (double) scale.factor() + scale.boundSlack(nodes.length);
+      }
+      int lnsRounds = 0;
+      int lnsImprovements = 0;
+      if (current != null && runLns && main.status() != CpSolverStatus.OPTIMAL) {
+        NeighbourhoodSearch lns = new NeighbourhoodSearch(problem, arcs, scale, model, options.seed());
+        long ls = System.nanoTime();
+        current = lns.improve(current, deadline, options.deterministicLimit() - mainDet,
+            new RoutingModel.Params(0, options.effectiveWorkers(), options.seed(), options.reproducible(), 0, false,
+                null),
+            p -> report(p.scaledPriority(scale), p.modelTransitionS(arcs), -1));
+        solveS += (System.nanoTime() - ls) * 1e-9;
+        lnsRounds = lns.rounds;
+        lnsImprovements = lns.improvements;
+      }
+      if (current == null) {
+        return noPlan("CP-SAT found no plan in the time limit", arcsKept, buildS, solveS);
+      }
+      boolean optimal = main.status() == CpSolverStatus.OPTIMAL && allArcs && lnsImprovements == 0;
+      double bound = minIgnoringNaN(minIgnoringNaN(cpBound, relaxationBound), trivialBound());
+      Stats partial = new Stats(arcsKept, arcs.feasibleArcCount(), buildS, solveS, solutions, lnsRounds,
+          lnsImprovements, relaxationBound, 0, 0, notes.toString().trim());
+      return finish(optimal ? PlanStatus.OPTIMAL : PlanStatus.FEASIBLE, current, bound, relaxationBound, 0,
+          partial.arcsKept(), buildS, solveS, lnsRounds, lnsImprovements);
+    }
+
+    /** Sum of the priorities of all schedulable requests: always a valid bound. */
+    private double trivialBound() {
+      return problem.tasks().stream().filter(Task::schedulable).mapToDouble(Task::priority).sum();
+    }
+
+    private double relaxation(double timeLimitS) {
+      if (timeLimitS <= 0) {
+        return Double.NaN;
+      }
+      return BucketRelaxation.bound(problem, arcs, timeLimitS);
+    }
+
+    private static double minIgnoringNaN(double a, double b) {
+      if (Double.isNaN(a)) {
+        return b;
+      }
+      if (Double.isNaN(b)) {
+        return a;
+      }
+      return Math.min(a, b);
+    }
+
+    private boolean hasAllRequired(Plan p) {
+      boolean[] in = new boolean[problem.size()];
+      for (int k : p.order()) {
+        in[k] = true;
+      }
+      for (int k = 0; k < problem.size(); k++) {
+        if (problem.tasks().get(k).required() && !in[k]) {
+          return false;
+        }
+      }
+      return true;
+    }
+
+    /** Forwards a new incumbent to the listener when it improves (priority, then transition). */
+    private synchronized void report(long scaledPriority, long transitionS, long scaledBound) {
+      solutions++;
+      if (scaledPriority < bestReportedP || (scaledPriority == bestReportedP && transitionS >= bestReportedT)) {
+        return;
+      }
+      bestReportedP = scaledPriority;
+      bestReportedT = transitionS;
+      if (options.listener() != null) {
+        options.listener().onProgress(solutions, scaledPriority / (double) scale.factor(), transitionS,
+            knownBound, elapsedS());
+      }
+    }
+
+    /**
+     * Compaction at exact transitions, result assembly and validation. Each start moves to the earliest
+     * allowed second at or after (previous end + ceil(exact transition)), departing at the compacted
+     * previous end; since exact <= bound and the model start satisfied the bound, the new start is never
+     * later than the model's (checked: a violation is a bug).
+     */
+    private SequencerResult finish(PlanStatus status, Plan plan, double bound, double relaxationBound,
+        int unused, long arcsKept, double buildS, double solveS, int lnsRounds, int lnsImprovements) {
+      Transitions tr = problem.transitions();
+      int m = plan.size();
+      long[] start = new long[m];
+      double[] exact = new double[m];
+      double[] departure = new double[m];
+      long prevEnd = 0;
+      long shift = 0;
+      double[] all = tr.timeDependent() ? null : tr.exactS(plan.order(), new double[m]);
+      for (int q = 0; q < m; q++) {
+        Task t = problem.tasks().get(plan.order()[q]);
+        departure[q] = prevEnd;
+        double leg = all != null ? all[q]
+            : tr.exactS(Arrays.copyOf(plan.order(), q + 1), Arrays.copyOf(departure, q + 1))[q];
+        long legS = ArcCosts.ceilS(leg);
+        long s = legS < 0 ? -1 : t.firstStartAtOrAfter(prevEnd + legS);
+        if (s < 0 || s > plan.startS()[q]) {
+          throw new IllegalStateException("request " + t.id() + ": exact transition " + leg + " s departing at "
+              + prevEnd + " s does not fit before the model start " + plan.startS()[q] + " s (a bug: the "
+              + "transition bound must never be below the exact time)");
+        }
+        shift += plan.startS()[q] - s;
+        start[q] = s;
+        exact[q] = leg;
+        prevEnd = s + t.durationS();
+      }
+      List<Planned> planned = new ArrayList<>();
+      double totalPriority = 0;
+      double totalTransition = 0;
+      boolean[] in = new boolean[problem.size()];
+      for (int q = 0; q < m; q++) {
+        Task t = problem.tasks().get(plan.order()[q]);
+        in[plan.order()[q]] = true;
+        planned.add(new Planned(t.id(), problem.instant(start[q]), problem.instant(start[q] + t.durationS()),
+            start[q], start[q] + t.durationS(), exact[q]));
+        totalPriority += t.priority();
+        totalTransition += exact[q];
+      }
+      double modelTransition = plan.modelTransitionS(arcs);
+      if (!Double.isNaN(bound) && bound < totalPriority) {
+        if (bound < totalPriority - 1e-6 * Math.max(1, totalPriority)) {
+          throw new IllegalStateException("proven bound " + bound + " is below the plan's priority "
+              + totalPriority + " (a bug)");
+        }
+        bound = totalPriority;
+      }
+      if (status == PlanStatus.OPTIMAL) {
+        bound = totalPriority;
+      }
+      double gap = Double.isNaN(bound) ? Double.NaN : bound <= 0 ? 0 : (bound - totalPriority) / bound;
+      Stats stats = new Stats(arcsKept, arcs.feasibleArcCount(), buildS, solveS, solutions, lnsRounds,
+          lnsImprovements, relaxationBound, modelTransition - totalTransition, shift, notes.toString().trim());
+      SequencerResult result = new SequencerResult(status, planned, totalPriority, totalTransition, bound, gap,
+          unscheduled(in, null), stats, "");
+      List<String> violations = new PlanValidator(problem.horizon(), problem.requests(), problem.windows(), tr)
+          .violations(result.toTimeline());
+      if (!violations.isEmpty()) {
+        throw new IllegalStateException("the sequencer produced an invalid plan (a bug): " + violations);
+      }
+      return result;
+    }
+
+    private List<Unscheduled> unscheduled(boolean[] in, String lostReason) {
+      List<Unscheduled> out = new ArrayList<>();
+      for (int k = 0; k < problem.size(); k++) {
+        Task t = problem.tasks().get(k);
+        if (!in[k]) {
+          String reason = t.schedulable() ? (lostReason != null ? lostReason : PlanningProblem.LOST_TO_CONFLICTS)
+              : t.emptyReason();
+          out.add(new Unscheduled(t.id(), reason));
+        }
+      }
+      return out;
+    }
+
+    private SequencerResult infeasible(String message, long arcsKept, double solveS) {
+      Stats stats = new Stats(arcsKept, arcs == null ? 0 : arcs.feasibleArcCount(), 0, solveS, solutions, 0, 0,
+          Double.NaN, 0, 0, notes.toString().trim());
+      return new SequencerResult(PlanStatus.INFEASIBLE, List.of(), 0, 0, Double.NaN, Double.NaN,
+          unscheduled(new boolean[problem.size()], "not planned: the required requests are infeasible"), stats,
+          message);
+    }
+
+    private SequencerResult noPlan(String message, long arcsKept, double buildS, double solveS) {
+      Stats stats = new Stats(arcsKept, arcs.feasibleArcCount(), buildS, solveS, solutions, 0, 0, Double.NaN, 0, 0,
+          notes.toString().trim());
+      return new SequencerResult(PlanStatus.NO_SOLUTION_IN_TIME, List.of(), 0, 0, knownBound, Double.NaN,
+          unscheduled(new boolean[problem.size()], "not planned: no plan found in time"), stats, message);
+    }
+  }
+}

@@ -1,0 +1,221 @@
+package dev.sequencer.validate;
+
+import dev.sequencer.model.Observation;
+import dev.sequencer.model.Request;
+import dev.sequencer.model.RequestWindows;
+import dev.sequencer.model.Scenario;
+import dev.sequencer.model.TimeWindow;
+import dev.sequencer.model.Timeline;
+import dev.sequencer.model.Unscheduled;
+import dev.sequencer.slew.Transitions;
+import java.time.Duration;
+import java.time.Instant;
+import java.util.ArrayList;
+import java.util.HashMap;
+import java.util.List;
+import java.util.Locale;
+import java.util.Map;
+import java.util.Objects;
+
+/**
+ * Checks a timeline against requests, visibility windows and exact transitions; returns the violations
+ * in words (empty = valid).
+ *
+ * <p>Checks: every observation inside one window of its request and inside the horizon; duration equal to
+ * the request's; observations in time order without overlap; each gap (from the previous end, or from
+ * the horizon start for the first) at least the exact transition recomputed with
+ * {@link Transitions#exactS} at the plan's own departure times; each reported {@code slewSeconds} equal
+ * to that exact transition; every required request observed; every request exactly once (observed or
+ * unscheduled) and no unknown ids; totals (priority, slew seconds) equal to the sums; and, when an
+ * {@link ObservabilityOracle} is given, its verdict for every observation.
+ *
+ * <p>Tolerance {@link #TOLERANCE_S} = 1 ms on every time comparison: timeline instants are exact to the
+ * nanosecond, but transition models are floating-point and the sequencer works in whole seconds with a
+ * 1 µs rounding slack; 1 ms is far above that noise and far below any physically meaningful slew error.
+ * Priority totals are compared to 1e-9 relative.
+ */
+public final class PlanValidator {
+  /** Time tolerance of every comparison, seconds. */
+  public static final double TOLERANCE_S = 1e-3;
+
+  private final TimeWindow horizon;
+  private final List<Request> requests;
+  private final Map<String, Integer> index = new HashMap<>();
+  private final Map<String, List<TimeWindow>> windows = new HashMap<>();
+  private final Transitions transitions;
+  private final ObservabilityOracle oracle;
+
+  /**
+   * A validator for these requests (scenario order = transition index), their visibility windows
+   * (already intersected with the requests' own windows; a missing entry = never visible) and transitions.
+   */
+  public PlanValidator(TimeWindow horizon, List<Request> requests, List<RequestWindows> windows,
+      Transitions transitions) {
+    this(horizon, requests, windows, transitions, null);
+  }
+
+  private PlanValidator(TimeWindow horizon, List<Request> requests, List<RequestWindows> windows,
+      Transitions transitions, ObservabilityOracle oracle) {
+    this.horizon = Objects.requireNonNull(horizon, "horizon");
+    this.requests = List.copyOf(requests);
+    this.transitions = Objects.requireNonNull(transitions, "transitions");
+    this.oracle = oracle;
+    for (int k = 0; k < this.requests.size(); k++) {
+      index.put(this.requests.get(k).id(), k);
+    }
+    for (RequestWindows w : windows) {
+      this.windows.put(w.id(), w.intervals());
+    }
+  }
+
+  /** A validator for a scenario's horizon and requests. */
+  public static PlanValidator of(Scenario scenario, List<RequestWindows> windows, Transitions transitions) {
+    return new PlanValidator(scenario.horizon(), scenario.requests(), windows, transitions);
+  }
+
+  /** A copy that also asks {@code oracle} about every observation. */
+  public PlanValidator withOracle(ObservabilityOracle newOracle) {
+    List<RequestWindows> w = new ArrayList<>();
+    windows.forEach((id, list) -> w.add(new RequestWindows(id, list)));
+    return new PlanValidator(horizon, requests, w, transitions, newOracle);
+  }
+
+  /** All violations of {@code timeline}; empty when it is valid. */
+  public List<String> violations(Timeline timeline) {
+    List<String> out = new ArrayList<>();
+    List<Observation> obs = timeline.observations();
+    checkOncePerRequest(timeline, out);
+    double prioritySum = 0;
+    double slewSum = 0;
+    for (int k = 0; k < obs.size(); k++) {
+      Observation o = obs.get(k);
+      slewSum += o.slewSeconds();
+      Integer idx = index.get(o.id());
+      if (idx == null) {
+        continue;
+      }
+      Request r = requests.get(idx);
+      if (r.priority() != null) {
+        prioritySum += r.priority();
+      }
+      checkDuration(o, r, out);
+      checkWindow(o, out);
+      if (k > 0 && o.start().isBefore(obs.get(k - 1).end())) {
+        Observation p = obs.get(k - 1);
+        out.add(String.format(Locale.ROOT, "observation %s starts at %s, %.3f s before %s ends at %s (overlap or "
+            + "out of time order)", o.id(), o.start(), seconds(o.start(), p.end()), p.id(), p.end()));
+      }
+      if (oracle != null) {
+        for (String v : oracle.violations(r, o.start(), o.end())) {
+          out.add("observation " + o.id() + ": " + v);
+        }
+      }
+    }
+    checkTransitions(obs, out);
+    for (Request r : requests) {
+      if (r.required() && obs.stream().noneMatch(o -> o.id().equals(r.id()))) {
+        out.add("required request " + r.id() + " is not observed");
+      }
+    }
+    if (Math.abs(prioritySum - timeline.priority()) > 1e-9 * Math.max(1, Math.abs(prioritySum))) {
+      out.add(String.format(Locale.ROOT, "total priority: timeline says %s, observations sum to %s",
+          timeline.priority(), prioritySum));
+    }
+    if (Math.abs(slewSum - timeline.slewSeconds()) > TOLERANCE_S) {
+      out.add(String.format(Locale.ROOT, "total slewSeconds: timeline says %.3f, observations sum to %.3f",
+          timeline.slewSeconds(), slewSum));
+    }
+    return out;
+  }
+
+  private void checkOncePerRequest(Timeline timeline, List<String> out) {
+    Map<String, Integer> count = new HashMap<>();
+    for (Observation o : timeline.observations()) {
+      count.merge(o.id(), 1, Integer::sum);
+      if (!index.containsKey(o.id())) {
+        out.add("observation " + o.id() + ": unknown request id");
+      }
+    }
+    for (Unscheduled u : timeline.unscheduled()) {
+      count.merge(u.id(), 1, Integer::sum);
+      if (!index.containsKey(u.id())) {
+        out.add("unscheduled " + u.id() + ": unknown request id");
+      }
+    }
+    for (Request r : requests) {
+      int c = count.getOrDefault(r.id(), 0);
+      if (c != 1) {
+        out.add("request " + r.id() + " appears " + c + " times in observations and unscheduled (must be exactly once)");
+      }
+    }
+  }
+
+  private void checkDuration(Observation o, Request r, List<String> out) {
+    if (r.durationS() == null) {
+      return; // flexible requests: checked by the flexible-exposure extension
+    }
+    double d = o.durationS();
+    if (Math.abs(d - r.durationS()) > TOLERANCE_S) {
+      out.add(String.format(Locale.ROOT, "observation %s lasts %.3f s, but the request's durationS is %.3f",
+          o.id(), d, r.durationS()));
+    }
+  }
+
+  private void checkWindow(Observation o, List<String> out) {
+    Instant lo = o.start().plusNanos((long) (TOLERANCE_S * 1e9));
+    Instant hi = o.end().minusNanos((long) (TOLERANCE_S * 1e9));
+    if (hi.isBefore(lo)) {
+      lo = o.start();
+      hi = o.end();
+    }
+    if (o.start().isBefore(horizon.start().minusNanos((long) (TOLERANCE_S * 1e9)))
+        || o.end().isAfter(horizon.end().plusNanos((long) (TOLERANCE_S * 1e9)))) {
+      out.add("observation " + o.id() + " [" + o.start() + ", " + o.end() + "] is outside the horizon ["
+          + horizon.start() + ", " + horizon.end() + "]");
+    }
+    for (TimeWindow w : windows.getOrDefault(o.id(), List.of())) {
+      if (w.contains(lo, hi)) {
+        return;
+      }
+    }
+    out.add("observation " + o.id() + " [" + o.start() + ", " + o.end() + "] lies inside no visibility window of "
+        + "the request (windows: " + windows.getOrDefault(o.id(), List.of()) + ")");
+  }
+
+  /** Gap before each observation >= exact transition, and reported slewSeconds = exact transition. */
+  private void checkTransitions(List<Observation> obs, List<String> out) {
+    int[] order = new int[obs.size()];
+    double[] departure = new double[obs.size()];
+    for (int k = 0; k < obs.size(); k++) {
+      Integer idx = index.get(obs.get(k).id());
+      if (idx == null) {
+        return; // already reported; the transition table cannot be indexed
+      }
+      order[k] = idx;
+      departure[k] = k == 0 ? 0.0 : seconds(horizon.start(), obs.get(k - 1).end());
+    }
+    double[] exact = transitions.exactS(order, departure);
+    for (int k = 0; k < obs.size(); k++) {
+      Observation o = obs.get(k);
+      String from = k == 0 ? "the start pointing" : obs.get(k - 1).id();
+      if (!(exact[k] < Double.POSITIVE_INFINITY)) {
+        out.add("observation " + o.id() + ": the transition from " + from + " is impossible (exact = " + exact[k] + ")");
+        continue;
+      }
+      double gap = seconds(k == 0 ? horizon.start() : obs.get(k - 1).end(), o.start());
+      if (gap < exact[k] - TOLERANCE_S) {
+        out.add(String.format(Locale.ROOT, "observation %s: gap after %s is %.3f s, shorter than the exact "
+            + "transition %.3f s", o.id(), from, gap, exact[k]));
+      }
+      if (Math.abs(o.slewSeconds() - exact[k]) > TOLERANCE_S) {
+        out.add(String.format(Locale.ROOT, "observation %s: slewSeconds is %.3f, but the exact transition from %s is "
+            + "%.3f s", o.id(), o.slewSeconds(), from, exact[k]));
+      }
+    }
+  }
+
+  private static double seconds(Instant a, Instant b) {
+    Duration d = Duration.between(a, b);
+    return d.getSeconds() + d.getNano() * 1e-9;
+  }
+}

@@ -1,0 +1,34 @@
+package dev.sequencer.sequence;
+
+import static org.junit.jupiter.api.Assertions.assertEquals;
+import static org.junit.jupiter.api.Assumptions.assumeTrue;
+
+import dev.sequencer.model.PlanStatus;
+import java.nio.file.Path;
+import java.util.Map;
+import org.junit.jupiter.params.ParameterizedTest;
+import org.junit.jupiter.params.provider.ValueSource;
+
+/**
+ * Published TSPTW optima: Dumas, Desrosiers, Gélinas, Solomon, "An Optimal Algorithm for the Traveling
+ * Salesman Problem with Time Windows", Oper. Res. 43(2):367-371, 1995; values from the BKS column of
+ * K. Helsgaun's LKH-3 Dumas table (shared/benchmarks/tsptw/dumas/best-known.csv), travel including the
+ * return arc. Integer matrix, so the match must be exact.
+ */
+class DumasTest {
+  @ParameterizedTest
+  @ValueSource(strings = {"n20w20.001", "n20w40.001", "n20w60.002", "n20w80.003", "n20w100.001", "n40w20.001",
+      "n40w40.002"})
+  void travelEqualsPublishedOptimum(String name) throws Exception {
+    Path folder = DumasInstance.folder();
+    assumeTrue(folder != null, "shared/benchmarks/tsptw/dumas not found next to the project: skipping Dumas check");
+    DumasInstance inst = DumasInstance.read(folder.resolve(name + ".tsptw"));
+    long published = DumasInstance.bestKnownTravel(folder.resolve("best-known.csv")).get(name);
+    PlanningProblem problem = inst.toProblem();
+    SequencerResult r = new Sequencer().plan(problem, SequencerOptions.defaults().withTimeLimitS(5).withWorkers(2));
+    assertEquals(PlanStatus.OPTIMAL, r.status(), name + ": " + r.stats());
+    assertEquals(problem.size(), r.observations().size(), name + ": every customer and the return are planned");
+    assertEquals("RETURN", r.observations().get(r.observations().size() - 1).id());
+    assertEquals(published, r.totalTransitionS(), 0.0, name + ": travel incl. the return arc");
+  }
+}

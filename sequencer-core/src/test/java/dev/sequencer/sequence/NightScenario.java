@@ -1,0 +1,69 @@
+package dev.sequencer.sequence;
+
+import dev.sequencer.model.Request;
+import dev.sequencer.model.RequestWindows;
+import dev.sequencer.model.TimeWindow;
+import dev.sequencer.slew.Transitions;
+import java.time.Instant;
+import java.util.ArrayList;
+import java.util.List;
+import java.util.Random;
+
+/**
+ * A synthetic 10-hour night: n requests at random sky positions (uniform on the sphere), 2–3 visibility
+ * windows each (30 min to 3 h), durations 5–20 min, priorities 1–10 (integers), and a matrix of
+ * eigenaxis-like slew times: 30 s settle + angle / (1 deg/s) + 20 s for the accelerate/decelerate ramps
+ * (a rest-to-rest slew with 0.05 deg/s² reaches 1 deg/s after 20 s); 0 between identical positions.
+ */
+public final class NightScenario {
+  public static final Instant T0 = Instant.parse("2031-05-04T20:00:00Z");
+  public static final long NIGHT_S = 36_000;
+
+  private NightScenario() {}
+
+  /** The scenario as a planning problem; same (n, seed), same problem. */
+  public static PlanningProblem generate(int n, long seed) {
+    Random rnd = new Random(seed);
+    double[][] xyz = new double[n + 1][];
+    for (int k = 0; k <= n; k++) {
+      double z = 2 * rnd.nextDouble() - 1;
+      double phi = 2 * Math.PI * rnd.nextDouble();
+      double r = Math.sqrt(1 - z * z);
+      xyz[k] = new double[] {r * Math.cos(phi), r * Math.sin(phi), z};
+    }
+    List<Request> requests = new ArrayList<>();
+    List<RequestWindows> windows = new ArrayList<>();
+    for (int k = 0; k < n; k++) {
+      String id = "R" + (k + 1);
+      double dur = 60 * (5 + rnd.nextInt(16));
+      double prio = 1 + rnd.nextInt(10);
+      requests.add(new Request(id, null, dur, prio, false, List.of(), null));
+      int count = 2 + rnd.nextInt(2);
+      List<TimeWindow> w = new ArrayList<>();
+      long slot = NIGHT_S / count;
+      for (int q = 0; q < count; q++) {
+        long len = 1800 + rnd.nextInt(3 * 3600 - 1800);
+        len = Math.min(len, slot - 60);
+        long a = q * slot + rnd.nextInt((int) Math.max(1, slot - len));
+        w.add(new TimeWindow(T0.plusSeconds(a), T0.plusSeconds(a + len)));
+      }
+      windows.add(new RequestWindows(id, w));
+    }
+    double[][] m = new double[n][n];
+    double[] fromStart = new double[n];
+    for (int i = 0; i < n; i++) {
+      fromStart[i] = slew(xyz[n], xyz[i]);
+      for (int j = 0; j < n; j++) {
+        m[i][j] = i == j ? 0 : slew(xyz[i], xyz[j]);
+      }
+    }
+    return PlanningProblem.of(new TimeWindow(T0, T0.plusSeconds(NIGHT_S)), requests, windows,
+        Transitions.matrix(m, fromStart));
+  }
+
+  private static double slew(double[] a, double[] b) {
+    double dot = Math.max(-1, Math.min(1, a[0] * b[0] + a[1] * b[1] + a[2] * b[2]));
+    double angleDeg = Math.toDegrees(Math.acos(dot));
+    return angleDeg < 1e-9 ? 0 : 30 + 20 + angleDeg / 1.0;
+  }
+}
