@@ -13,7 +13,8 @@ import picocli.CommandLine.Command;
       "Turns a list of wanted observations into a checked, time-ordered observing plan.",
       ""
     },
-    subcommands = {InspectCommand.class, WindowsCommand.class, CommandLine.HelpCommand.class},
+    subcommands = {InspectCommand.class, WindowsCommand.class, PlanCommand.class, CheckCommand.class,
+        CommandLine.HelpCommand.class},
     footer = {"", Caution.TEXT},
     usageHelpAutoWidth = true)
 public final class SequencerCli implements Runnable {

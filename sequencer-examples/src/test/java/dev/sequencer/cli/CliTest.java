@@ -62,12 +62,31 @@ class CliTest {
 
   @Test
   void everyCommandHelpCarriesTheCaution() {
-    for (String cmd : List.of("inspect", "windows")) {
+    for (String cmd : List.of("inspect", "windows", "plan", "check")) {
       Run r = run(cmd, "--help");
       assertEquals(0, r.code());
       assertTrue(r.out().contains("plans are advisory"), cmd + ": " + r.out());
     }
     assertTrue(run("--help").out().contains("plans are advisory"));
+  }
+
+  @Test
+  void planWritesATimelineThatCheckAccepts(@TempDir Path dir) throws Exception {
+    Path tl = dir.resolve("t.json");
+    Run r = run("plan", DEMO.toString(), "--solver", "greedy", "-o", tl.toString());
+    assertEquals(0, r.code(), r.err());
+    assertTrue(r.out().contains("status FEASIBLE"), r.out());
+    Run c = run("check", DEMO.toString(), tl.toString());
+    assertEquals(0, c.code(), c.out() + c.err());
+    // A timeline whose first observation is moved one hour earlier must be rejected with exit code 1.
+    String json = Files.readString(tl);
+    var m = java.util.regex.Pattern.compile("\"start\": \"(2031-10-1[45]T[0-9:.]+Z)\"").matcher(json);
+    assertTrue(m.find(), json);
+    java.time.Instant moved = java.time.Instant.parse(m.group(1)).minusSeconds(3600);
+    Path broken = dir.resolve("broken.json");
+    Files.writeString(broken, json.replaceFirst(java.util.regex.Pattern.quote(m.group(1)), moved.toString()));
+    Run bad = run("check", DEMO.toString(), broken.toString());
+    assertTrue(bad.code() == 1 || bad.code() == 2, bad.out() + bad.err());
   }
 
   @Test

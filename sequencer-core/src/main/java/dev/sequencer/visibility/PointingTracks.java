@@ -1,0 +1,156 @@
+package dev.sequencer.visibility;
+
+import dev.sequencer.astro.AstroContext;
+import dev.sequencer.model.AzEl;
+import dev.sequencer.model.AzElPointing;
+import dev.sequencer.model.GroundSite;
+import dev.sequencer.model.Pointing;
+import dev.sequencer.model.RaDec;
+import dev.sequencer.model.Request;
+import dev.sequencer.model.Scenario;
+import dev.sequencer.slew.PointingTrack;
+import java.util.ArrayList;
+import java.util.List;
+import org.hipparchus.geometry.euclidean.threed.Vector3D;
+import org.orekit.frames.StaticTransform;
+import org.orekit.time.AbsoluteDate;
+
+/**
+ * The instrument's pointing for each request over time, from the scenario's geometry, for the slew models.
+ *
+ * <p>Supported: fixed RA/Dec targets from an orbit observer (a constant inertial direction) and from a ground
+ * site (constant inertial direction; azimuth and elevation turning with the Earth). Rate bounds for a fixed
+ * star at geodetic latitude phi, from the spherical-astronomy derivatives (common practice):
+ * |dEl/dt| = w cos(phi) |sin A| &lt;= w and |dA/dt| = w |sin(phi) - cos(phi) cos(A) tan(El)| &lt;=
+ * w (|sin phi| + |cos phi| tan El), with w the Earth's rotation rate and El bounded over the interval by
+ * its larger end value plus w times the interval length. Moving targets (orbiting objects, Earth points)
+ * need propagated rate bounds and are refused with a message until they are supported.
+ */
+public final class PointingTracks {
+  /** Earth rotation rate, deg/s (360.9856 deg per solar day; common practice). */
+  static final double EARTH_RATE_DEG_PER_S = 360.98564736629 / 86400.0;
+
+  private PointingTracks() {}
+
+  /** One track per request, in request order. */
+  public static List<PointingTrack> of(Scenario scenario, AstroContext ctx) {
+    List<PointingTrack> out = new ArrayList<>();
+    AbsoluteDate origin = ctx.date(scenario.horizon().start());
+    GroundSite site = scenario.observer() instanceof GroundSite g ? g : null;
+    for (Request r : scenario.requests()) {
+      if (!(r.target() instanceof RaDec rd)) {
+        throw new UnsupportedOperationException("requests " + r.id() + ": slew model '" + scenario.slew().model()
+            + "' with a moving target is not supported yet; use the 'fixed' or 'matrix' slew model");
+      }
+      out.add(site == null ? PointingTrack.fixed(rd) : new StarFromSite(rd, site, ctx, origin));
+    }
+    return out;
+  }
+
+  /** The start pointing as a track, or {@code null} when the scenario gives none. */
+  public static PointingTrack start(Scenario scenario, AstroContext ctx) {
+    Pointing p = scenario.startPointing();
+    if (p == null) {
+      return null;
+    }
+    if (p instanceof RaDec rd) {
+      return scenario.observer() instanceof GroundSite g
+          ? new StarFromSite(rd, g, ctx, ctx.date(scenario.horizon().start()))
+          : PointingTrack.fixed(rd);
+    }
+    AzElPointing ae = (AzElPointing) p;
+    AzEl fixed = new AzEl(ae.azimuthDeg(), ae.elevationDeg());
+    GroundSite site = (GroundSite) scenario.observer();
+    AbsoluteDate origin = ctx.date(scenario.horizon().start());
+    double[] enu = SiteFrame.enuItrf(site);
+    return new PointingTrack() {
+      @Override
+      public Vector3D inertialDirection(double tS) {
+        double az = Math.toRadians(fixed.azimuthDeg());
+        double el = Math.toRadians(fixed.elevationDeg());
+        double e = Math.cos(el) * Math.sin(az);
+        double n = Math.cos(el) * Math.cos(az);
+        double u = Math.sin(el);
+        Vector3D itrf = new Vector3D(e * enu[0] + n * enu[3] + u * enu[6], e * enu[1] + n * enu[4] + u * enu[7],
+            e * enu[2] + n * enu[5] + u * enu[8]);
+        return ctx.earthFixed().getStaticTransformTo(ctx.inertial(), origin.shiftedBy(tS)).transformVector(itrf);
+      }
+
+      @Override
+      public double maxAngularRateDegPerS(double t0S, double t1S) {
+        return EARTH_RATE_DEG_PER_S;
+      }
+
+      @Override
+      public AzEl azEl(double tS) {
+        return fixed;
+      }
+
+      @Override
+      public double maxAzimuthRateDegPerS(double t0S, double t1S) {
+        return 0;
+      }
+
+      @Override
+      public double maxElevationRateDegPerS(double t0S, double t1S) {
+        return 0;
+      }
+    };
+  }
+
+  /** A fixed star seen from a ground site: constant inertial direction, az/el turning with the Earth. */
+  private static final class StarFromSite implements PointingTrack {
+    private final Vector3D u;
+    private final double[] enu;
+    private final double sinPhi;
+    private final double cosPhi;
+    private final AstroContext ctx;
+    private final AbsoluteDate origin;
+
+    StarFromSite(RaDec rd, GroundSite site, AstroContext ctx, AbsoluteDate origin) {
+      double[] v = TargetTrack.unit(rd.raDeg(), rd.decDeg());
+      this.u = new Vector3D(v[0], v[1], v[2]);
+      this.enu = SiteFrame.enuItrf(site);
+      this.sinPhi = Math.abs(Math.sin(Math.toRadians(site.latitudeDeg())));
+      this.cosPhi = Math.abs(Math.cos(Math.toRadians(site.latitudeDeg())));
+      this.ctx = ctx;
+      this.origin = origin;
+    }
+
+    @Override
+    public Vector3D inertialDirection(double tS) {
+      return u;
+    }
+
+    @Override
+    public double maxAngularRateDegPerS(double t0S, double t1S) {
+      return 0;
+    }
+
+    @Override
+    public AzEl azEl(double tS) {
+      StaticTransform toItrf = ctx.inertial().getStaticTransformTo(ctx.earthFixed(), origin.shiftedBy(tS));
+      Vector3D d = toItrf.transformVector(u);
+      double e = d.getX() * enu[0] + d.getY() * enu[1] + d.getZ() * enu[2];
+      double n = d.getX() * enu[3] + d.getY() * enu[4] + d.getZ() * enu[5];
+      double up = d.getX() * enu[6] + d.getY() * enu[7] + d.getZ() * enu[8];
+      double az = Math.toDegrees(Math.atan2(e, n));
+      return new AzEl(az < 0 ? az + 360 : az, Math.toDegrees(Math.asin(Math.max(-1, Math.min(1, up)))));
+    }
+
+    @Override
+    public double maxAzimuthRateDegPerS(double t0S, double t1S) {
+      double elMax = Math.max(azEl(t0S).elevationDeg(), azEl(t1S).elevationDeg())
+          + EARTH_RATE_DEG_PER_S * (t1S - t0S);
+      if (elMax >= 89.999) {
+        return 360.0; // through the zenith the azimuth can flip: no useful bound
+      }
+      return EARTH_RATE_DEG_PER_S * (sinPhi + cosPhi * Math.tan(Math.toRadians(elMax)));
+    }
+
+    @Override
+    public double maxElevationRateDegPerS(double t0S, double t1S) {
+      return EARTH_RATE_DEG_PER_S * cosPhi;
+    }
+  }
+}
