@@ -23,10 +23,10 @@ import java.util.Random;
  * exactly.
  */
 final class NeighbourhoodSearch {
-  private static final int MAX_FREE = 60;
-  private static final int MIN_SLICE = 6;
+  private static final int MAX_FREE = 25;
+  private static final int MIN_SLICE = 4;
   private static final int MAX_SLICE = 40;
-  private static final double ROUND_TIME_S = 2.0;
+  private static final double ROUND_TIME_S = 1.0;
   private static final double MIN_ROUND_DET = 0.1;
 
   private final PlanningProblem problem;
@@ -51,7 +51,7 @@ final class NeighbourhoodSearch {
    */
   Plan improve(Plan current, long deadlineNanos, double deterministicBudget, RoutingModel.Params params,
       java.util.function.Consumer<Plan> onImprove) {
-    int slice = 20;
+    int slice = 8;
     double detUsed = 0;
     while (true) {
       double remaining = (deadlineNanos - System.nanoTime()) * 1e-9;
@@ -70,7 +70,7 @@ final class NeighbourhoodSearch {
       Plan slicePlan = new Plan(java.util.Arrays.copyOfRange(current.order(), a, b),
           java.util.Arrays.copyOfRange(current.startS(), a, b));
       RoutingModel.Spec spec = new RoutingModel.Spec(free, from, departS, to, arriveByS, slicePlan,
-          free.length > 40 ? 12 : 0);
+          free.length > 30 ? 12 : 0);
       double roundDet = Math.min(ROUND_TIME_S, Math.max(0.05, deterministicBudget - detUsed));
       RoutingModel.Outcome o = model.solve(spec,
           params.withTime(Math.min(ROUND_TIME_S, Math.max(0.05, remaining)), roundDet).withReporter(null));

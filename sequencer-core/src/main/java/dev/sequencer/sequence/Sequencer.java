@@ -82,7 +82,7 @@ public final class Sequencer {
           return noPlan("the greedy planner could not fit every required request (this proves nothing)",
               arcs.feasibleArcCount(), buildS, 0);
         }
-        return finish(PlanStatus.FEASIBLE, greedy, minIgnoringNaN(bound, trivialBound()), bound, 0, arcs.feasibleArcCount(), buildS, 0, 0, 0);
+        return finish(PlanStatus.FEASIBLE, greedy, minIgnoringNaN(bound, trivialBound()), bound, arcs.feasibleArcCount(), buildS, 0, 0, 0);
       }
       return solveCpSat(greedy, greedyComplete, buildS);
     }
@@ -153,10 +153,8 @@ public final class Sequencer {
       }
       boolean optimal = main.status() == CpSolverStatus.OPTIMAL && allArcs && lnsImprovements == 0;
       double bound = minIgnoringNaN(minIgnoringNaN(cpBound, relaxationBound), trivialBound());
-      Stats partial = new Stats(arcsKept, arcs.feasibleArcCount(), buildS, solveS, solutions, lnsRounds,
-          lnsImprovements, relaxationBound, 0, 0, notes.toString().trim());
-      return finish(optimal ? PlanStatus.OPTIMAL : PlanStatus.FEASIBLE, current, bound, relaxationBound, 0,
-          partial.arcsKept(), buildS, solveS, lnsRounds, lnsImprovements);
+      return finish(optimal ? PlanStatus.OPTIMAL : PlanStatus.FEASIBLE, current, bound, relaxationBound,
+          arcsKept, buildS, solveS, lnsRounds, lnsImprovements);
     }
 
     /** Sum of the priorities of all schedulable requests: always a valid bound. */
@@ -215,7 +213,7 @@ public final class Sequencer {
      * later than the model's (checked: a violation is a bug).
      */
     private SequencerResult finish(PlanStatus status, Plan plan, double bound, double relaxationBound,
-        int unused, long arcsKept, double buildS, double solveS, int lnsRounds, int lnsImprovements) {
+        long arcsKept, double buildS, double solveS, int lnsRounds, int lnsImprovements) {
       Transitions tr = problem.transitions();
       int m = plan.size();
       long[] start = new long[m];

@@ -12,7 +12,6 @@ import dev.sequencer.validate.PlanValidator;
 import java.time.Instant;
 import java.util.ArrayList;
 import java.util.List;
-import java.util.Random;
 import org.junit.jupiter.api.Test;
 
 /** Status mapping, reasons, rounding, reproducibility and the large-model path on generated night scenarios. */
@@ -138,10 +137,5 @@ class SequencerTest {
     for (int k = 1; k < seen.size(); k++) {
       assertTrue(seen.get(k)[1] >= seen.get(k - 1)[1], "priority never decreases");
     }
-  }
-
-  /** Unused random helper kept for ad-hoc seeds. */
-  static long seed(Random r) {
-    return r.nextLong();
   }
 }

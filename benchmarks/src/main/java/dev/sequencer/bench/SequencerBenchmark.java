@@ -1,0 +1,116 @@
+package dev.sequencer.bench;
+
+import dev.sequencer.sequence.DumasInstance;
+import dev.sequencer.sequence.NightScenario;
+import dev.sequencer.sequence.PlanningProblem;
+import dev.sequencer.sequence.Sequencer;
+import dev.sequencer.sequence.SequencerOptions;
+import dev.sequencer.sequence.SequencerResult;
+import java.lang.management.ManagementFactory;
+import java.lang.management.MemoryPoolMXBean;
+import java.lang.management.MemoryType;
+import java.nio.file.Files;
+import java.nio.file.Path;
+import java.util.ArrayList;
+import java.util.List;
+import java.util.Locale;
+import java.util.Map;
+import java.util.stream.Stream;
+
+/**
+ * Solver runs (not JMH): {@code dumas <timeLimitS> [prefix]} plans every Dumas n20–n60 instance and
+ * compares travel with the published values; {@code night <n> <timeLimitS> <seed> [variant]} plans a
+ * synthetic night and prints priority vs greedy, bound, gap, arcs, times and peak heap. Variants switch
+ * one scale feature off: {@code full} (default), {@code nohint}, {@code allarcs}, {@code nolns},
+ * {@code nobound}.
+ */
+public final class SequencerBenchmark {
+  private SequencerBenchmark() {}
+
+  public static void main(String[] args) throws Exception {
+    Locale.setDefault(Locale.ROOT);
+    switch (args[0]) {
+      case "dumas" -> dumas(Double.parseDouble(args[1]), args.length > 2 ? args[2] : "n");
+      case "night" -> night(Integer.parseInt(args[1]), Double.parseDouble(args[2]), Long.parseLong(args[3]),
+          args.length > 4 ? args[4] : "full");
+      default -> throw new IllegalArgumentException("usage: dumas <timeLimitS> [prefix] | night <n> <timeLimitS> <seed> [variant]");
+    }
+  }
+
+  private static void dumas(double timeLimitS, String prefix) throws Exception {
+    Path folder = DumasInstance.folder();
+    if (folder == null) {
+      throw new IllegalStateException("shared/benchmarks/tsptw/dumas not found");
+    }
+    Map<String, Long> best = DumasInstance.bestKnownTravel(folder.resolve("best-known.csv"));
+    List<Path> files;
+    try (Stream<Path> s = Files.list(folder)) {
+      files = s.filter(f -> f.getFileName().toString().startsWith(prefix) && f.toString().endsWith(".tsptw"))
+          .sorted().toList();
+    }
+    List<Double> times = new ArrayList<>();
+    int matched = 0;
+    for (Path f : files) {
+      DumasInstance inst = DumasInstance.read(f);
+      PlanningProblem p = inst.toProblem();
+      long t0 = System.nanoTime();
+      SequencerResult r = new Sequencer().plan(p, SequencerOptions.defaults().withTimeLimitS(timeLimitS).withWorkers(2));
+      double s = (System.nanoTime() - t0) * 1e-9;
+      times.add(s);
+      long published = best.get(inst.name());
+      boolean ok = r.hasPlan() && Math.round(r.totalTransitionS()) == published;
+      matched += ok ? 1 : 0;
+      System.out.printf("%-12s %-19s travel %6s published %5d %s %6.2f s%n", inst.name(), r.status(),
+          r.hasPlan() ? String.valueOf(Math.round(r.totalTransitionS())) : "-", published, ok ? "OK  " : "MISS", s);
+    }
+    times.sort(Double::compare);
+    System.out.printf("dumas: %d/%d at the published optimum; median %.2f s, worst %.2f s (limit %.0f s, 2 workers)%n",
+        matched, files.size(), times.get(times.size() / 2), times.get(times.size() - 1), timeLimitS);
+  }
+
+  private static void night(int n, double timeLimitS, long seed, String variant) {
+    long b0 = System.nanoTime();
+    PlanningProblem p = NightScenario.generate(n, seed);
+    double genS = (System.nanoTime() - b0) * 1e-9;
+    SequencerResult greedy = new Sequencer().plan(p,
+        SequencerOptions.defaults().withSolver(SequencerOptions.Solver.GREEDY).withTimeLimitS(timeLimitS)
+            .withRelaxationBound(false));
+    SequencerOptions o = SequencerOptions.defaults().withTimeLimitS(timeLimitS).withWorkers(2).withSeed((int) seed);
+    o = switch (variant) {
+      case "full" -> o;
+      case "nohint" -> o.withHint(false);
+      case "allarcs" -> o.withKBest(-1);
+      case "nolns" -> o.withLns(false);
+      case "nobound" -> o.withRelaxationBound(false);
+      default -> throw new IllegalArgumentException("unknown variant " + variant);
+    };
+    resetPeaks();
+    long t0 = System.nanoTime();
+    SequencerResult r = new Sequencer().plan(p, o);
+    double s = (System.nanoTime() - t0) * 1e-9;
+    SequencerResult.Stats st = r.stats();
+    System.out.printf("night n=%d seed=%d limit=%.0fs variant=%s: status %s, priority %.0f (greedy %.0f, ratio %.3f),"
+            + " bound %.1f (LP %.1f), gap %.1f%%, transition %.0f s, observations %d, arcs kept %d of %d feasible,"
+            + " build %.2f s, solve %.2f s, wall %.2f s, LNS rounds %d (improving %d), peak heap %d MB, gen %.2f s%n",
+        n, seed, timeLimitS, variant, r.status(), r.totalPriority(), greedy.totalPriority(),
+        r.totalPriority() / greedy.totalPriority(), r.boundPriority(), st.relaxationBound(), 100 * r.gap(),
+        r.totalTransitionS(), r.observations().size(), st.arcsKept(), st.arcsFeasible(), st.buildS(), st.solveS(), s,
+        st.lnsRounds(), st.lnsImprovements(), peakHeapMb(), genS);
+  }
+
+  private static void resetPeaks() {
+    for (MemoryPoolMXBean pool : ManagementFactory.getMemoryPoolMXBeans()) {
+      pool.resetPeakUsage();
+    }
+  }
+
+  private static long peakHeapMb() {
+    long sum = 0;
+    for (MemoryPoolMXBean pool : ManagementFactory.getMemoryPoolMXBeans()) {
+      if (pool.getType() == MemoryType.HEAP) {
+        sum += pool.getPeakUsage().getUsed();
+      }
+    }
+    return sum >> 20;
+  }
+}
