@@ -51,6 +51,9 @@ final class FixedPoint {
       }
       double lo = 0; // T + lo is known impossible
       double hi = p.seconds() - t; // T + hi >= φ(T) >= the lower bound there
+      if (t + hi <= p.lowerSecondsAfter().applyAsDouble(hi)) {
+        lo = hi; // the lower bound holds up over the whole gap (a still target): jump it at once
+      }
       for (int i = 0; i < 60 && hi - lo > 1e-12 * (1 + t); i++) {
         double mid = 0.5 * (lo + hi);
         if (t + mid < p.lowerSecondsAfter().applyAsDouble(mid)) {
