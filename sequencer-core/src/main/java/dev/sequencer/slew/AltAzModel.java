@@ -57,6 +57,11 @@ final class AltAzModel implements SlewModel {
     if (!(azimuthDeg > 0) && !(elevationDeg > 0)) {
       return 0;
     }
+    return movingSeconds(azimuthDeg, elevationDeg);
+  }
+
+  /** Seconds for a slew that ends later than it starts: the slower axis plus settle, even for no move. */
+  double movingSeconds(double azimuthDeg, double elevationDeg) {
     return Math.max(azimuth.seconds(azimuthDeg), elevation.seconds(elevationDeg)) + settleS;
   }
 

@@ -9,9 +9,12 @@ import java.util.List;
  *
  * <p><b>Exact.</b> The mount starts at the start pointing's azimuth ({@link CableWrap#initial}), or, without
  * a start pointing, on the first target's azimuth branch nearest the range centre (first leg 0 s). Each leg
- * leaving at t_d with unwrapped state u solves T = s(T) by {@link FixedPoint#exact}, where s(T) takes the
- * branch of the target azimuth at t_d + T nearest u inside the range and is infinite if none exists or the
- * target elevation is outside the limits. During the observation the mount follows the target, and the
+ * leaving at t_d with unwrapped state u is the earliest T with s(T) <= T ({@link FixedPoint#earliest}),
+ * where s(T) is the slew to the target's pointing at t_d + T on the branch of its azimuth nearest u inside
+ * the range, infinite if no branch is inside or the target elevation is outside the limits, and with
+ * settle for every T > 0 (only T = 0 with an unchanged pointing is free). The search's
+ * lower bound of s after T: each axis distance shrinks no faster than the target's rate bound, and a
+ * branch can only become legal once it is within that drift of the range. During the observation the mount follows the target, and the
  * state at the next departure is the arrival branch plus the target's continuous azimuth change. If that
  * leaves the range, the cable wrap ran out during the observation: that leg and every later one are
  * infinite (the bound below assumes a legal state, so it does not cover this case).
@@ -103,7 +106,19 @@ final class AltAzTransitions implements Transitions {
         break; // the cable wrap ran out during the previous observation: this and later legs are lost
       }
       double fromAzimuthDeg = u;
-      double legS = FixedPoint.exact(tS -> legS(fromAzimuthDeg, fromElevationDeg, to.azEl(td + tS)));
+      double legS = FixedPoint.earliest(tS -> {
+        AzEl target = to.azEl(td + tS);
+        double seconds = legS(fromAzimuthDeg, fromElevationDeg, target, tS > 0);
+        if (!(seconds > tS) || Double.isInfinite(seconds)) {
+          return new FixedPoint.Probe(seconds, dS -> 0);
+        }
+        // The next jump stays inside [T, φ(T)], so the target's rates are needed there only.
+        double azimuthRate = to.maxAzimuthRateDegPerS(td + tS, td + seconds);
+        double elevationRate = to.maxElevationRateDegPerS(td + tS, td + seconds);
+        return new FixedPoint.Probe(seconds, dS -> model.movingSeconds(
+            nearestPossibleDeg(target.azimuthDeg(), fromAzimuthDeg, azimuthRate * dS),
+            Math.max(0, Math.abs(target.elevationDeg() - fromElevationDeg) - elevationRate * dS)));
+      });
       if (Double.isInfinite(legS)) {
         break;
       }
@@ -118,8 +133,11 @@ final class AltAzTransitions implements Transitions {
     return new Legs(out, states);
   }
 
-  /** The leg from unwrapped state (azimuth, elevation) to a pointing, on the quicker legal branch. */
-  private double legS(double fromAzimuthDeg, double fromElevationDeg, AzEl target) {
+  /**
+   * The leg from unwrapped state (azimuth, elevation) to a pointing, on the quicker legal branch; a leg
+   * that ends later than it starts ({@code moving}) always pays the settle.
+   */
+  private double legS(double fromAzimuthDeg, double fromElevationDeg, AzEl target, boolean moving) {
     if (!model.elevationAllowed(target.elevationDeg())) {
       return Double.POSITIVE_INFINITY;
     }
@@ -127,7 +145,31 @@ final class AltAzTransitions implements Transitions {
     if (Double.isNaN(v)) {
       return Double.POSITIVE_INFINITY;
     }
-    return model.seconds(Math.abs(v - fromAzimuthDeg), Math.abs(target.elevationDeg() - fromElevationDeg));
+    double azimuthDeg = Math.abs(v - fromAzimuthDeg);
+    double elevationDeg = Math.abs(target.elevationDeg() - fromElevationDeg);
+    return moving ? model.movingSeconds(azimuthDeg, elevationDeg) : model.seconds(azimuthDeg, elevationDeg);
+  }
+
+  /**
+   * A lower bound on the azimuth distance from {@code fromDeg} to the target once it has drifted up to
+   * {@code driftDeg}: the nearest branch that could then be legal, less the drift (infinite if none).
+   */
+  private double nearestPossibleDeg(double azimuthDeg, double fromDeg, double driftDeg) {
+    if (!(driftDeg < 360)) {
+      return 0; // also for an infinite rate bound; every branch within a turn could be the nearest
+    }
+    if (!wrap.limited()) {
+      return Math.max(0, Math.abs(Math.IEEEremainder(azimuthDeg - fromDeg, 360)) - driftDeg);
+    }
+    double best = Double.POSITIVE_INFINITY;
+    for (long j = (long) Math.floor((wrap.minDeg() - driftDeg - azimuthDeg) / 360);
+        azimuthDeg + 360 * j - driftDeg <= wrap.maxDeg(); j++) {
+      double v = azimuthDeg + 360 * j;
+      if (v + driftDeg >= wrap.minDeg()) {
+        best = Math.min(best, Math.max(0, Math.abs(v - fromDeg) - driftDeg));
+      }
+    }
+    return best;
   }
 
   /**
@@ -165,10 +207,13 @@ final class AltAzTransitions implements Transitions {
     double c = 0.5 * (departureMinS + departureMaxS);
     double h = 0.5 * (departureMaxS - departureMinS);
     double worstS = model.worstS();
-    double fromAzimuthDriftDeg = f.maxAzimuthRateDegPerS(departureMinS, departureMaxS) * h;
-    double fromElevationDriftDeg = f.maxElevationRateDegPerS(departureMinS, departureMaxS) * h;
+    double fromAzimuthDriftDeg = h == 0 ? 0 : f.maxAzimuthRateDegPerS(departureMinS, departureMaxS) * h;
+    double fromElevationDriftDeg = h == 0 ? 0 : f.maxElevationRateDegPerS(departureMinS, departureMaxS) * h;
     double toAzimuthRate = t.maxAzimuthRateDegPerS(departureMinS, departureMaxS + worstS);
     double toElevationRate = t.maxElevationRateDegPerS(departureMinS, departureMaxS + worstS);
+    if (!Double.isFinite(fromAzimuthDriftDeg + fromElevationDriftDeg + toAzimuthRate + toElevationRate)) {
+      return Double.POSITIVE_INFINITY; // a pointing may move arbitrarily fast (through the zenith)
+    }
     AzEl pf = f.azEl(c);
     AzEl pt = t.azEl(c);
     return FixedPoint.bound(worstS, tS -> {

@@ -5,8 +5,9 @@ import org.hipparchus.geometry.euclidean.threed.Vector3D;
 
 /**
  * Rest-to-rest rotation about the eigenaxis: the angle between the two lines of sight, covered with the
- * {@link RestToRest} profile, plus settle. An unchanged pointing (angle exactly 0) takes 0 s, settle
- * included, so the time obeys the triangle inequality with or without settle.
+ * {@link RestToRest} profile, plus settle. An unchanged pointing (angle exactly 0 at departure) takes 0 s,
+ * settle included, so the time obeys the triangle inequality with or without settle. A slew to a moving
+ * target that ends after its departure always pays the settle.
  */
 final class EigenaxisModel implements SlewModel {
   private final RestToRest profile;
@@ -20,6 +21,10 @@ final class EigenaxisModel implements SlewModel {
     this.settleS = settleS;
   }
 
+  RestToRest profile() {
+    return profile;
+  }
+
   /**
    * Angle between two directions in degrees, in [0, 180]. atan2(|a×b|, a·b) keeps full precision for
    * nearly aligned and nearly opposite vectors, where acos of the dot product loses half the digits.
@@ -30,7 +35,12 @@ final class EigenaxisModel implements SlewModel {
 
   /** Seconds for a rotation of {@code angleDeg}: 0 when 0, else the profile plus settle. */
   double secondsForAngle(double angleDeg) {
-    return angleDeg > 0 ? profile.seconds(angleDeg) + settleS : 0;
+    return angleDeg > 0 ? movingSecondsForAngle(angleDeg) : 0;
+  }
+
+  /** Seconds for a rotation that ends later than it starts: the profile plus settle, even for 0°. */
+  double movingSecondsForAngle(double angleDeg) {
+    return profile.seconds(angleDeg) + settleS;
   }
 
   /** Seconds between two fixed lines of sight. */

@@ -3,8 +3,10 @@ package dev.sequencer.slew;
 import java.util.List;
 
 /**
- * Eigenaxis transitions between moving lines of sight. The exact leg leaving at t_d solves
- * T = s(angle(from(t_d), to(t_d + T))) by {@link FixedPoint#exact}.
+ * Eigenaxis transitions between moving lines of sight. The exact leg leaving at t_d is the earliest T
+ * with s(angle(from(t_d), to(t_d + T))) <= T, found by {@link FixedPoint#earliest}, where s includes the
+ * settle for every T > 0 (only T = 0 with an unchanged pointing is free); the angle cannot shrink faster
+ * than the target's rate bound, which gives the lower bound that search needs.
  *
  * <p>Bound over departures [a, b], with c = (a + b) / 2 and h = (b - a) / 2: by the triangle inequality on
  * the sphere and because a track moves no faster than its maximum rate, angle(from(t_d), to(t_d + T)) <=
@@ -61,7 +63,17 @@ final class EigenaxisTransitions implements Transitions {
 
   private double leg(PointingTrack from, PointingTrack to, double departureS) {
     var fromDirection = from.inertialDirection(departureS);
-    return FixedPoint.exact(tS -> model.seconds(fromDirection, to.inertialDirection(departureS + tS)));
+    return FixedPoint.earliest(tS -> {
+      double angleDeg = EigenaxisModel.angleDeg(fromDirection, to.inertialDirection(departureS + tS));
+      double seconds = tS == 0 ? model.secondsForAngle(angleDeg) : model.movingSecondsForAngle(angleDeg);
+      if (!(seconds > tS) || Double.isInfinite(seconds)) {
+        return new FixedPoint.Probe(seconds, dS -> 0);
+      }
+      // The next jump stays inside [T, φ(T)], so the target's rate is needed there only.
+      double rateTo = to.maxAngularRateDegPerS(departureS + tS, departureS + seconds);
+      return new FixedPoint.Probe(seconds,
+          dS -> model.movingSecondsForAngle(Math.max(0, angleDeg - rateTo * dS)));
+    });
   }
 
   @Override

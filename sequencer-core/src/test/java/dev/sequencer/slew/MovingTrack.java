@@ -19,7 +19,8 @@ record MovingTrack(
   /** A track with only the inertial motion, starting at {@code u} towards {@code v}. */
   static MovingTrack inertial(Vector3D u, Vector3D towards, double rateDegPerS) {
     Vector3D un = u.normalize();
-    Vector3D vn = towards.subtract(un.scalarMultiply(Vector3D.dotProduct(un, towards))).normalize();
+    Vector3D w = towards.subtract(un.scalarMultiply(Vector3D.dotProduct(un, towards)));
+    Vector3D vn = w.getNorm() > 1e-6 ? w.normalize() : un.orthogonal(); // any great circle if parallel
     return new MovingTrack(un, vn, rateDegPerS, 0, 0, 0, 45, 0, 0);
   }
 
