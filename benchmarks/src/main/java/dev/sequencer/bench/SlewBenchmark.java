@@ -88,12 +88,14 @@ public class SlewBenchmark {
 
   private double exact(Transitions[] t) {
     double[] departure = next();
-    return t[i].exactS(new int[] {j}, departure)[0];
+    double[] arrival = {departure[0] + 120};
+    return t[i].exactS(new int[] {j}, departure, arrival)[0];
   }
 
   private double bound(Transitions[] t) {
     double[] departure = next();
-    return t[i].boundS(Transitions.START, j, departure[0], departure[0] + 300);
+    double[] arrival = {departure[0] + 120};
+    return t[i].boundS(Transitions.START, j, departure[0], departure[0] + 300, arrival[0], arrival[0] + 300);
   }
 
   @Benchmark

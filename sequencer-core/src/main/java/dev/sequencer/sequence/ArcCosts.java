@@ -4,8 +4,11 @@ import dev.sequencer.sequence.PlanningProblem.Task;
 import dev.sequencer.slew.Transitions;
 
 /**
- * Model transition seconds: {@code cost(i, j) = ceil(boundS(i, j, earliest end of i, latest end of i))},
- * and {@code fromStart(j) = ceil(boundS(START, j, 0, 0))}; -1 where the bound is infinite.
+ * Model transition seconds: {@code cost(i, j) = ceil(boundS(i, j, D, A))} with D the ends of i that can
+ * precede a start of j ([earliest end of i, min(latest end of i, latest start of j)]) and A the starts of j
+ * that can follow an end of i ([max(earliest start of j, earliest end of i), latest start of j]); and
+ * {@code fromStart(j) = ceil(boundS(START, j, [0, 0], [earliest, latest start of j]))}; -1 where the bound
+ * is infinite or the arc can never be used.
  *
  * <p>The bound covers every departure the model can choose, so a model arc is never optimistic. Ceiling
  * to whole seconds keeps the model integral; {@link #CEIL_SLACK_S} keeps a bound of 12.0000000001 s
@@ -30,7 +33,8 @@ final class ArcCosts {
     Transitions tr = problem.transitions();
     for (int j = 0; j < n; j++) {
       Task tj = problem.tasks().get(j);
-      fromStart[j] = tj.schedulable() ? ceilS(tr.boundS(Transitions.START, j, 0, 0)) : -1;
+      fromStart[j] = tj.schedulable()
+          ? ceilS(tr.boundS(Transitions.START, j, 0, 0, tj.earliestStartS(), tj.latestStartS())) : -1;
     }
     for (int i = 0; i < n; i++) {
       Task ti = problem.tasks().get(i);
@@ -40,7 +44,14 @@ final class ArcCosts {
           cost[i * n + j] = -1;
           continue;
         }
-        long c = ceilS(tr.boundS(i, j, ti.earliestStartS() + ti.durationS(), ti.latestStartS() + ti.durationS()));
+        long endMin = ti.earliestStartS() + ti.durationS();
+        long endMax = Math.min(ti.latestStartS() + ti.durationS(), tj.latestStartS());
+        long arrivalMin = Math.max(tj.earliestStartS(), endMin);
+        if (endMax < endMin || tj.latestStartS() < arrivalMin) {
+          cost[i * n + j] = -1; // i cannot end before j's last start
+          continue;
+        }
+        long c = ceilS(tr.boundS(i, j, endMin, endMax, arrivalMin, tj.latestStartS()));
         cost[i * n + j] = c > Integer.MAX_VALUE ? -1 : (int) c;
       }
     }
@@ -51,7 +62,9 @@ final class ArcCosts {
           m = Math.min(m, cost(i, j));
         }
       }
-      minIn[j] = m;
+      // With time-dependent transitions the model costs are upper bounds, not lower bounds, on the exact
+      // transition: only 0 is a valid least transition into j there.
+      minIn[j] = tr.timeDependent() && problem.tasks().get(j).schedulable() ? 0 : m;
     }
   }
 

@@ -46,11 +46,7 @@ final class GreedyPlanner {
           if (done[j] || !tj.schedulable() || (pass == 0) == (j == problem.mustBeLastIndex())) {
             continue;
           }
-          long c = ArcCosts.ceilS(tr.boundS(cur, j, t, t));
-          if (c < 0) {
-            continue;
-          }
-          long s = tj.firstStartAtOrAfter(t + c);
+          long s = earliestStart(cur, t, j);
           if (s < 0 || !requiredStillReachable(j, s + tj.durationS(), done)) {
             continue;
           }
@@ -78,6 +74,33 @@ final class GreedyPlanner {
         starts.stream().mapToLong(Long::longValue).toArray());
   }
 
+  /**
+   * The earliest start of task j after leaving {@code from} at {@code departure}, with the transition
+   * bounded at that departure and the candidate start (the transition depends on both for moving
+   * pointings); -1 when none. Starting from the first allowed start, each step moves to the first allowed
+   * second after departure + bound(candidate); the candidate is accepted once the bound at it fits.
+   */
+  private long earliestStart(int from, long departure, int j) {
+    Task tj = problem.tasks().get(j);
+    Transitions tr = problem.transitions();
+    long s = tj.firstStartAtOrAfter(departure);
+    for (int step = 0; s >= 0 && step < MAX_START_STEPS; step++) {
+      long c = ArcCosts.ceilS(tr.boundS(from, j, departure, s));
+      if (c < 0) {
+        s = tj.firstStartAtOrAfter(s + 1);
+        continue;
+      }
+      if (departure + c <= s) {
+        return s;
+      }
+      s = tj.firstStartAtOrAfter(departure + c);
+    }
+    return -1;
+  }
+
+  /** Search steps for a start whose transition fits (each step moves the candidate later). */
+  private static final int MAX_START_STEPS = 64;
+
   /** True when every other unscheduled required request can still start after {@code end} (directly from j). */
   private boolean requiredStillReachable(int j, long end, boolean[] done) {
     Transitions tr = problem.transitions();
@@ -89,8 +112,7 @@ final class GreedyPlanner {
       if (end > tr_.latestStartS()) {
         return false;
       }
-      long c = ArcCosts.ceilS(tr.boundS(j, r, end, end));
-      if (c < 0 || tr_.firstStartAtOrAfter(end + c) < 0) {
+      if (earliestStart(j, end, r) < 0) {
         return false;
       }
     }

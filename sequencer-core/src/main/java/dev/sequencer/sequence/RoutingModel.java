@@ -130,6 +130,12 @@ final class RoutingModel {
     private final List<BoolVar> present = new ArrayList<>();
     private final List<IntVar> startS = new ArrayList<>();
     private final List<IntervalVar> intervals = new ArrayList<>();
+    /** Per model position: bucket index -> literal "the start lies in that bucket" (time buckets only). */
+    private final List<java.util.TreeMap<Integer, BoolVar>> inBucket = new ArrayList<>();
+    /** Per model position: bucket index -> [lowest, highest] start of the domain inside that bucket. */
+    private final List<java.util.TreeMap<Integer, long[]>> bucketSpan = new ArrayList<>();
+    private TimeBuckets buckets;
+    private final java.util.Map<Long, long[][]> bucketCosts = new java.util.HashMap<>();
     private final List<int[]> arcEnds = new ArrayList<>();
     private final List<Literal> arcLits = new ArrayList<>();
     private final List<Long> arcCost = new ArrayList<>();
@@ -144,6 +150,7 @@ final class RoutingModel {
       long t0 = System.nanoTime();
       this.spec = spec;
       this.mode = mode;
+      this.buckets = TimeBuckets.wanted(problem, spec.nodes().length) ? new TimeBuckets(problem) : null;
       addVariables();
       addCircuitWithTransitions();
       addRedundantNoOverlap();
@@ -196,6 +203,97 @@ final class RoutingModel {
         present.add(p);
         startS.add(s);
         intervals.add(iv);
+        if (buckets != null) {
+          addBucketLiterals(t, dom, p, s);
+        }
+      }
+    }
+
+    /**
+     * Adds, for time-dependent transitions: inBucket[R][q] (bool) for every bucket q that R's start domain
+     * meets; inBucket[R][q] implies startS[R] in q; the sum over q of inBucket[R][q] equals present[R].
+     */
+    private void addBucketLiterals(Task t, long[][] dom, BoolVar p, IntVar s) {
+      java.util.TreeMap<Integer, BoolVar> lits = new java.util.TreeMap<>();
+      java.util.TreeMap<Integer, long[]> spans = new java.util.TreeMap<>();
+      for (long[] part : dom) {
+        for (int q = buckets.bucket(part[0]); q <= buckets.bucket(part[1]); q++) {
+          long lo = Math.max(part[0], buckets.lo(q));
+          long hi = Math.min(part[1], buckets.hi(q));
+          spans.merge(q, new long[] {lo, hi}, (x, y) -> new long[] {Math.min(x[0], y[0]), Math.max(x[1], y[1])});
+        }
+      }
+      List<BoolVar> all = new ArrayList<>();
+      for (var e : spans.entrySet()) {
+        BoolVar y = model.newBoolVar("inBucket[" + t.id() + "][" + e.getKey() + "]");
+        model.addLinearConstraint(s, e.getValue()[0], e.getValue()[1]).onlyEnforceIf(y);
+        lits.put(e.getKey(), y);
+        all.add(y);
+      }
+      model.addEquality(LinearExpr.sum(all.toArray(new BoolVar[0])), p);
+      inBucket.add(lits);
+      bucketSpan.add(spans);
+    }
+
+    /**
+     * Bucket-pair transition costs of the arc a -> b: costs[i][j] for the i-th bucket of a and the j-th of
+     * b (in bucket order), {@link TimeBuckets#IMPOSSIBLE} where no times in those buckets fit.
+     */
+    private long[][] bucketCosts(int a, int b) {
+      return bucketCosts.computeIfAbsent((long) a * nodes.size() + b, key -> {
+        List<long[]> sa = new ArrayList<>(bucketSpan.get(a).values());
+        List<long[]> sb = new ArrayList<>(bucketSpan.get(b).values());
+        long[][] c = new long[sa.size()][sb.size()];
+        for (int i = 0; i < sa.size(); i++) {
+          for (int j = 0; j < sb.size(); j++) {
+            c[i][j] = buckets.cost(nodes.get(a), sa.get(i)[0], sa.get(i)[1], nodes.get(b), sb.get(j)[0], sb.get(j)[1]);
+          }
+        }
+        return c;
+      });
+    }
+
+    /** The least finite bucket-pair cost of a -> b, or -1 when every pair is impossible. */
+    private long lowBucketCost(int a, int b) {
+      long low = -1;
+      for (long[] row : bucketCosts(a, b)) {
+        for (long c : row) {
+          if (c >= 0 && (low < 0 || c < low)) {
+            low = c;
+          }
+        }
+      }
+      return low;
+    }
+
+    /** The largest finite bucket-pair cost of a -> b (the arc's pessimistic cost in the objective). */
+    private long highBucketCost(int a, int b) {
+      long high = -1;
+      for (long[] row : bucketCosts(a, b)) {
+        for (long c : row) {
+          high = Math.max(high, c);
+        }
+      }
+      return high;
+    }
+
+    /**
+     * Adds, per bucket pair (q of A, r of B): next[A->B] and inBucket[A][q] and inBucket[B][r] imply
+     * startS[B] >= startS[A] + dur(A) + cost_qr(A, B); an impossible pair is forbidden outright.
+     */
+    private void addBucketedTransition(int a, int b, Literal lit, long baseCost) {
+      List<BoolVar> ya = new ArrayList<>(inBucket.get(a).values());
+      List<BoolVar> yb = new ArrayList<>(inBucket.get(b).values());
+      long[][] c = bucketCosts(a, b);
+      LinearExpr gap = LinearExpr.newBuilder().add(startS.get(b)).addTerm(startS.get(a), -1).build();
+      for (int i = 0; i < ya.size(); i++) {
+        for (int j = 0; j < yb.size(); j++) {
+          if (c[i][j] < 0) {
+            model.addBoolOr(new Literal[] {lit.not(), ya.get(i).not(), yb.get(j).not()});
+          } else if (c[i][j] > baseCost) {
+            model.addGreaterOrEqual(gap, dur(a) + c[i][j]).onlyEnforceIf(new Literal[] {lit, ya.get(i), yb.get(j)});
+          }
+        }
       }
     }
 
@@ -241,11 +339,28 @@ final class RoutingModel {
           circuit.addArc(a + 1, a + 1, present.get(a).not());
         }
         long c0 = arcs.costFrom(spec.from(), k);
+        long[] fromBucket = buckets == null ? null : fromCosts(a);
+        if (fromBucket != null) {
+          c0 = lowest(fromBucket);
+        }
         if (c0 >= 0 && spec.departS() + c0 <= latest(a)) {
           BoolVar lit = model.newBoolVar("next[" + name(spec.from()) + "->" + t.id() + "]");
           circuit.addArc(0, a + 1, lit);
           model.addGreaterOrEqual(startS.get(a), spec.departS() + c0).onlyEnforceIf(lit);
-          remember(-1, a, lit, c0);
+          long objectiveCost = c0;
+          if (fromBucket != null) {
+            List<BoolVar> ya = new ArrayList<>(inBucket.get(a).values());
+            for (int j = 0; j < ya.size(); j++) {
+              if (fromBucket[j] < 0) {
+                model.addBoolOr(new Literal[] {lit.not(), ya.get(j).not()});
+              } else if (fromBucket[j] > c0) {
+                model.addGreaterOrEqual(startS.get(a), spec.departS() + fromBucket[j])
+                    .onlyEnforceIf(new Literal[] {lit, ya.get(j)});
+              }
+              objectiveCost = Math.max(objectiveCost, fromBucket[j]);
+            }
+          }
+          remember(-1, a, lit, objectiveCost);
         }
         if (k == problem.mustBeLastIndex() && spec.to() >= 0) {
           continue; // the must-be-last request cannot precede a fixed successor
@@ -266,15 +381,39 @@ final class RoutingModel {
           continue; // no successor after the must-be-last request
         }
         for (int b : successors(a, hinted)) {
-          long c = arcs.cost(k, nodes.get(b));
+          long c = buckets == null ? arcs.cost(k, nodes.get(b)) : lowBucketCost(a, b);
           BoolVar lit = model.newBoolVar("next[" + name(k) + "->" + name(nodes.get(b)) + "]");
           circuit.addArc(a + 1, b + 1, lit);
           model.addGreaterOrEqual(
               LinearExpr.newBuilder().add(startS.get(b)).addTerm(startS.get(a), -1).build(), dur(a) + c)
               .onlyEnforceIf(lit);
-          remember(a, b, lit, c);
+          if (buckets != null) {
+            addBucketedTransition(a, b, lit, c);
+          }
+          remember(a, b, lit, buckets == null ? c : highBucketCost(a, b));
         }
       }
+    }
+
+    /** Bucket costs from the slice's departure point to position a, one per bucket of a. */
+    private long[] fromCosts(int a) {
+      List<long[]> spans = new ArrayList<>(bucketSpan.get(a).values());
+      long[] out = new long[spans.size()];
+      for (int j = 0; j < out.length; j++) {
+        out[j] = buckets.cost(spec.from(), spec.departS(), spec.departS(), nodes.get(a), spans.get(j)[0],
+            spans.get(j)[1]);
+      }
+      return out;
+    }
+
+    private static long lowest(long[] costs) {
+      long low = -1;
+      for (long c : costs) {
+        if (c >= 0 && (low < 0 || c < low)) {
+          low = c;
+        }
+      }
+      return low;
     }
 
     private String endName() {
@@ -345,12 +484,12 @@ final class RoutingModel {
     private Set<Long> kept;
 
     private boolean feasible(int a, int b) {
-      long c = arcs.cost(nodes.get(a), nodes.get(b));
+      long c = buckets == null ? arcs.cost(nodes.get(a), nodes.get(b)) : lowBucketCost(a, b);
       return c >= 0 && earliest(a) + dur(a) + c <= latest(b);
     }
 
     private long score(int a, int b) {
-      long c = arcs.cost(nodes.get(a), nodes.get(b));
+      long c = buckets == null ? arcs.cost(nodes.get(a), nodes.get(b)) : lowBucketCost(a, b);
       long wait = Math.max(0, earliest(b) - (latest(a) + dur(a) + c));
       return c + wait;
     }
@@ -482,6 +621,12 @@ final class RoutingModel {
       for (int a = 0; a < m; a++) {
         model.addHint(present.get(a), in[a]);
         model.addHint(startS.get(a), in[a] ? hs[a] : earliest(a));
+        if (buckets != null) {
+          int q = buckets.bucket(hs[a]);
+          for (var e : inBucket.get(a).entrySet()) {
+            model.addHint(e.getValue(), in[a] && e.getKey() == q);
+          }
+        }
       }
       Set<Long> used = new HashSet<>();
       int prev = -1;

@@ -124,6 +124,13 @@ public final class Sequencer {
         buildS += main.buildS();
       }
       if (main.status() == CpSolverStatus.INFEASIBLE && allArcs) {
+        if (problem.transitions().timeDependent()) {
+          // Infeasible under upper bounds of the transitions only: no proof for the exact transitions.
+          return hintComplete
+              ? finish(PlanStatus.FEASIBLE, hint, trivialBound(), Double.NaN, arcsKept, buildS, solveS, 0, 0)
+              : noPlan("the required requests could not all be fitted under the conservative time-dependent "
+                  + "transition bounds (this proves nothing about the exact transitions)", arcsKept, buildS, solveS);
+        }
         return infeasible("CP-SAT proved that the required requests cannot all be scheduled", arcsKept, solveS);
       }
       Plan current = main.plan();
@@ -151,10 +158,36 @@ public final class Sequencer {
       if (current == null) {
         return noPlan("CP-SAT found no plan in the time limit", arcsKept, buildS, solveS);
       }
-      boolean optimal = main.status() == CpSolverStatus.OPTIMAL && allArcs && lnsImprovements == 0;
+      boolean timeDependent = problem.transitions().timeDependent();
+      if (timeDependent) {
+        // The model's transitions are upper bounds of the exact ones: its optimum and its bound hold for
+        // plans under those bounds only, not for every valid plan. Only the relaxation (built with zero
+        // least transitions) and the trivial bound remain proven, and optimality is never claimed.
+        cpBound = Double.NaN;
+      }
+      boolean optimal = !timeDependent && main.status() == CpSolverStatus.OPTIMAL && allArcs && lnsImprovements == 0;
       double bound = minIgnoringNaN(minIgnoringNaN(cpBound, relaxationBound), trivialBound());
-      return finish(optimal ? PlanStatus.OPTIMAL : PlanStatus.FEASIBLE, current, bound, relaxationBound,
-          arcsKept, buildS, solveS, lnsRounds, lnsImprovements);
+      SequencerResult result = finish(optimal ? PlanStatus.OPTIMAL : PlanStatus.FEASIBLE, current, bound,
+          relaxationBound, arcsKept, buildS, solveS, lnsRounds, lnsImprovements);
+      if (greedyComplete && !optimal) {
+        SequencerResult fallback = finish(PlanStatus.FEASIBLE, greedy, bound, relaxationBound, arcsKept, buildS,
+            solveS, lnsRounds, lnsImprovements);
+        if (better(fallback, result)) {
+          notes.append("the greedy plan beat CP-SAT's (under the model's transition bounds) and is returned. ");
+          return finish(PlanStatus.FEASIBLE, greedy, bound, relaxationBound, arcsKept, buildS, solveS, lnsRounds,
+              lnsImprovements);
+        }
+      }
+      return result;
+    }
+
+    /** Lexicographic: more priority, then less total exact transition. */
+    private boolean better(SequencerResult a, SequencerResult b) {
+      double eps = 1e-9 * Math.max(1, Math.abs(b.totalPriority()));
+      if (a.totalPriority() > b.totalPriority() + eps) {
+        return true;
+      }
+      return Math.abs(a.totalPriority() - b.totalPriority()) <= eps && a.totalTransitionS() < b.totalTransitionS() - 1e-6;
     }
 
     /** Sum of the priorities of all schedulable requests: always a valid bound. */
@@ -192,6 +225,13 @@ public final class Sequencer {
       return true;
     }
 
+    /** The exact leg q of the plan's prefix when request q starts at {@code startS}. */
+    private double legAt(Transitions tr, int[] order, double[] departure, double[] arrival, int q, long startS) {
+      arrival[q] = startS;
+      return tr.exactS(Arrays.copyOf(order, q + 1), Arrays.copyOf(departure, q + 1),
+          Arrays.copyOf(arrival, q + 1))[q];
+    }
+
     /** Forwards a new incumbent to the listener when it improves (priority, then transition). */
     private synchronized void report(long scaledPriority, long transitionS, long scaledBound) {
       solutions++;
@@ -208,9 +248,11 @@ public final class Sequencer {
 
     /**
      * Compaction at exact transitions, result assembly and validation. Each start moves to the earliest
-     * allowed second at or after (previous end + ceil(exact transition)), departing at the compacted
-     * previous end; since exact <= bound and the model start satisfied the bound, the new start is never
-     * later than the model's (checked: a violation is a bug).
+     * allowed second s with s >= previous end + ceil(exact transition(previous end, s)), departing at the
+     * compacted previous end. The model start is always such a second (exact <= bound over the arc's
+     * intervals, and the compacted end is never later than the model's), so compaction only moves starts
+     * earlier: from the model start, it steps to the first allowed second after end + exact(current) and
+     * keeps the step while the exact transition there still fits (checked: a violation is a bug).
      */
     private SequencerResult finish(PlanStatus status, Plan plan, double bound, double relaxationBound,
         long arcsKept, double buildS, double solveS, int lnsRounds, int lnsImprovements) {
@@ -219,23 +261,34 @@ public final class Sequencer {
       long[] start = new long[m];
       double[] exact = new double[m];
       double[] departure = new double[m];
+      double[] arrival = new double[m];
       long prevEnd = 0;
       long shift = 0;
-      double[] all = tr.timeDependent() ? null : tr.exactS(plan.order(), new double[m]);
       for (int q = 0; q < m; q++) {
         Task t = problem.tasks().get(plan.order()[q]);
         departure[q] = prevEnd;
-        double leg = all != null ? all[q]
-            : tr.exactS(Arrays.copyOf(plan.order(), q + 1), Arrays.copyOf(departure, q + 1))[q];
-        long legS = ArcCosts.ceilS(leg);
-        long s = legS < 0 ? -1 : t.firstStartAtOrAfter(prevEnd + legS);
-        if (s < 0 || s > plan.startS()[q]) {
+        long s = plan.startS()[q];
+        double leg = legAt(tr, plan.order(), departure, arrival, q, s);
+        if (!(prevEnd + leg <= s + 1e-9)) {
           throw new IllegalStateException("request " + t.id() + ": exact transition " + leg + " s departing at "
-              + prevEnd + " s does not fit before the model start " + plan.startS()[q] + " s (a bug: the "
-              + "transition bound must never be below the exact time)");
+              + prevEnd + " s does not fit before the model start " + s + " s (a bug: the transition bound "
+              + "must never be below the exact time)");
+        }
+        for (int step = 0; step < 32; step++) {
+          long candidate = t.firstStartAtOrAfter(prevEnd + ArcCosts.ceilS(leg));
+          if (candidate < 0 || candidate >= s) {
+            break;
+          }
+          double candidateLeg = legAt(tr, plan.order(), departure, arrival, q, candidate);
+          if (!(prevEnd + candidateLeg <= candidate + 1e-9)) {
+            break;
+          }
+          s = candidate;
+          leg = candidateLeg;
         }
         shift += plan.startS()[q] - s;
         start[q] = s;
+        arrival[q] = s;
         exact[q] = leg;
         prevEnd = s + t.durationS();
       }

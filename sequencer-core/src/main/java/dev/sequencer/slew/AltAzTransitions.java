@@ -7,35 +7,34 @@ import java.util.List;
 /**
  * Alt-az transitions with an unwrapped azimuth carried along the sequence.
  *
- * <p><b>Exact.</b> The mount starts at the start pointing's azimuth ({@link CableWrap#initial}), or, without
- * a start pointing, on the first target's azimuth branch nearest the range centre (first leg 0 s). Each leg
- * leaving at t_d with unwrapped state u is the earliest T with s(T) <= T ({@link FixedPoint#earliest}),
- * where s(T) is the slew to the target's pointing at t_d + T on the branch of its azimuth nearest u inside
- * the range, infinite if no branch is inside or the target elevation is outside the limits, and with
- * settle for every T > 0 (only T = 0 with an unchanged pointing is free). The search's
- * lower bound of s after T: each axis distance shrinks no faster than the target's rate bound, and a
- * branch can only become legal once it is within that drift of the range. During the observation the mount follows the target, and the
- * state at the next departure is the arrival branch plus the target's continuous azimuth change. If that
- * leaves the range, the cable wrap ran out during the observation: that leg and every later one are
- * infinite (the bound below assumes a legal state, so it does not cover this case).
+ * <p><b>Exact.</b> As the scenario format says, a leg is measured from the pointing of the previous request
+ * at its end (t_d) to the pointing of the next at its start (t_a): the slower axis plus settle, 0 when
+ * neither axis moves. The mount starts at the start pointing's azimuth ({@link CableWrap#initial}), or,
+ * without a start pointing, on the first target's azimuth branch nearest the range centre (first leg 0 s).
+ * Each leg goes to the branch of the target's azimuth nearest the current unwrapped azimuth inside the
+ * range (the quicker legal way round); it is infinite if no branch is inside or the target's elevation at
+ * t_a is outside the limits. During an observation the mount follows the target, so the state at the next
+ * departure is the arrival branch plus the target's continuous azimuth change over the observation; if
+ * that leaves the range the cable wrap ran out, and that leg and every later one are infinite (the bound
+ * below assumes a legal state, so it does not cover this case).
  *
- * <p><b>Bound</b> over departures [a, b], c = (a + b) / 2, h = (b - a) / 2. Axis positions move no faster
- * than the tracks' rate bounds, so with w_f = R_az,from·h and w_t = R_az,to·(h + T), a from-branch
- * u_k = A_from(c) + 360k is a possible state only if [u_k ± w_f] meets the range, a to-branch
- * v_j = A_to(c) + 360j is possibly legal at arrival if [v_j ± w_t] meets the range and surely legal if it
- * lies inside, and |v_j(t_a) - u_k(t_d)| <= |v_j - u_k| + w_f + w_t. For each possible state the exact
- * leg uses the nearest legal branch, which is no farther than the nearest surely legal one; if there is
- * none but the range spans 360° some branch is always legal, so the farthest possibly legal one bounds it;
- * otherwise the target may be unreachable and the bound is infinite. The azimuth bound is the maximum of
- * this over the possible states, never more than the range span. Elevation likewise, with the bound
- * infinite if the target's elevation may leave the limits. The slew time is non-decreasing in both axis
- * distances and they grow with T, which gives the non-decreasing G of {@link FixedPoint#bound}, started at
- * the longest possible slew. Rates of the target are taken over [a, b + that slew].
+ * <p><b>Bound</b> over departures [a, b] (midpoint m_d, half-width h_d) and arrivals [c, e] (m_a, h_a).
+ * Axis positions move no faster than the tracks' rate bounds, so with drifts w_f = R_az,from·h_d and
+ * w_t = R_az,to·h_a, a from-branch u_k = A_from(m_d) + 360k is a possible state only if [u_k ± w_f] meets the
+ * range, a to-branch v_j = A_to(m_a) + 360j is possibly legal at arrival if [v_j ± w_t] meets the range and
+ * surely legal if it lies inside, and |v_j(t_a) - u_k(t_d)| <= |v_j - u_k| + w_f + w_t. For each possible
+ * state the exact leg uses the nearest legal branch, which is no farther than the nearest surely legal one;
+ * if there is none but the range spans 360° some branch is always legal, so the farthest possibly legal one
+ * bounds it; otherwise the bound is infinite. The azimuth bound is the maximum over the possible states,
+ * never more than the range span. Elevation likewise, with the bound infinite if the target's elevation
+ * may leave the limits. The slew time is non-decreasing in both axis distances.
  */
 final class AltAzTransitions implements Transitions {
   /** Unwrapping samples at most this azimuth change per step, so wrapped differences are the true ones. */
   private static final double UNWRAP_STEP_DEG = 90;
   private static final int MAX_UNWRAP_STEPS = 1_000_000;
+  /** Added to bounded axis distances so rounding in the exact legs never exceeds the bound (1e-9 deg). */
+  static final double ROUNDING_DEG = 1e-9;
 
   private final AltAzModel model;
   private final CableWrap wrap;
@@ -60,8 +59,8 @@ final class AltAzTransitions implements Transitions {
   }
 
   @Override
-  public double[] exactS(int[] order, double[] departureS) {
-    return run(order, departureS).seconds();
+  public double[] exactS(int[] order, double[] departureS, double[] arrivalS) {
+    return run(order, departureS, arrivalS).seconds();
   }
 
   /**
@@ -70,106 +69,49 @@ final class AltAzTransitions implements Transitions {
    */
   record Legs(double[] seconds, double[] departureAzimuthDeg) {}
 
-  Legs run(int[] order, double[] departureS) {
-    Intervals.checkSequence(order, departureS, tracks.size());
+  Legs run(int[] order, double[] departureS, double[] arrivalS) {
+    Intervals.checkSequence(order, departureS, arrivalS, tracks.size());
     double[] out = new double[order.length];
     double[] states = new double[order.length];
     Arrays.fill(out, Double.POSITIVE_INFINITY);
     Arrays.fill(states, Double.NaN);
     double state = Double.NaN; // unwrapped azimuth at the previous arrival
-    double arrivalS = Double.NaN;
     for (int k = 0; k < order.length; k++) {
       PointingTrack to = tracks.get(order[k]);
-      double td = departureS[k];
+      AzEl target = to.azEl(arrivalS[k]);
+      if (!model.elevationAllowed(target.elevationDeg())) {
+        break;
+      }
       double u;
       double fromElevationDeg;
       if (k == 0 && start == null) {
-        AzEl p = to.azEl(td);
-        state = model.elevationAllowed(p.elevationDeg()) ? wrap.initial(p.azimuthDeg()) : Double.NaN;
-        arrivalS = td;
+        state = wrap.initial(target.azimuthDeg());
         if (Double.isNaN(state)) {
           break;
         }
         out[k] = 0;
         continue;
       } else if (k == 0) {
-        AzEl s = start.azEl(td);
+        AzEl s = start.azEl(departureS[k]);
         u = wrap.initial(s.azimuthDeg());
         fromElevationDeg = s.elevationDeg();
       } else {
         PointingTrack from = tracks.get(order[k - 1]);
-        u = state + unwrappedChangeDeg(from, arrivalS, td);
-        fromElevationDeg = from.azEl(td).elevationDeg();
+        u = state + unwrappedChangeDeg(from, arrivalS[k - 1], departureS[k]);
+        fromElevationDeg = from.azEl(departureS[k]).elevationDeg();
       }
       states[k] = u;
       if (Double.isNaN(u) || !wrap.contains(u)) {
         break; // the cable wrap ran out during the previous observation: this and later legs are lost
       }
-      double fromAzimuthDeg = u;
-      double legS = FixedPoint.earliest(tS -> {
-        AzEl target = to.azEl(td + tS);
-        double seconds = legS(fromAzimuthDeg, fromElevationDeg, target, tS > 0);
-        if (!(seconds > tS) || Double.isInfinite(seconds)) {
-          return new FixedPoint.Probe(seconds, dS -> 0);
-        }
-        // The next jump stays inside [T, φ(T)], so the target's rates are needed there only.
-        double azimuthRate = to.maxAzimuthRateDegPerS(td + tS, td + seconds);
-        double elevationRate = to.maxElevationRateDegPerS(td + tS, td + seconds);
-        return new FixedPoint.Probe(seconds, dS -> model.movingSeconds(
-            nearestPossibleDeg(target.azimuthDeg(), fromAzimuthDeg, azimuthRate * dS),
-            Math.max(0, Math.abs(target.elevationDeg() - fromElevationDeg) - elevationRate * dS)));
-      });
-      if (Double.isInfinite(legS)) {
+      double v = wrap.nearestLegal(target.azimuthDeg(), u);
+      if (Double.isNaN(v)) {
         break;
       }
-      AzEl arrival = to.azEl(td + legS);
-      state = wrap.nearestLegal(arrival.azimuthDeg(), u);
-      arrivalS = td + legS;
-      if (Double.isNaN(state)) {
-        break;
-      }
-      out[k] = legS;
+      out[k] = model.seconds(Math.abs(v - u), Math.abs(target.elevationDeg() - fromElevationDeg));
+      state = v;
     }
     return new Legs(out, states);
-  }
-
-  /**
-   * The leg from unwrapped state (azimuth, elevation) to a pointing, on the quicker legal branch; a leg
-   * that ends later than it starts ({@code moving}) always pays the settle.
-   */
-  private double legS(double fromAzimuthDeg, double fromElevationDeg, AzEl target, boolean moving) {
-    if (!model.elevationAllowed(target.elevationDeg())) {
-      return Double.POSITIVE_INFINITY;
-    }
-    double v = wrap.nearestLegal(target.azimuthDeg(), fromAzimuthDeg);
-    if (Double.isNaN(v)) {
-      return Double.POSITIVE_INFINITY;
-    }
-    double azimuthDeg = Math.abs(v - fromAzimuthDeg);
-    double elevationDeg = Math.abs(target.elevationDeg() - fromElevationDeg);
-    return moving ? model.movingSeconds(azimuthDeg, elevationDeg) : model.seconds(azimuthDeg, elevationDeg);
-  }
-
-  /**
-   * A lower bound on the azimuth distance from {@code fromDeg} to the target once it has drifted up to
-   * {@code driftDeg}: the nearest branch that could then be legal, less the drift (infinite if none).
-   */
-  private double nearestPossibleDeg(double azimuthDeg, double fromDeg, double driftDeg) {
-    if (!(driftDeg < 360)) {
-      return 0; // also for an infinite rate bound; every branch within a turn could be the nearest
-    }
-    if (!wrap.limited()) {
-      return Math.max(0, Math.abs(Math.IEEEremainder(azimuthDeg - fromDeg, 360)) - driftDeg);
-    }
-    double best = Double.POSITIVE_INFINITY;
-    for (long j = (long) Math.floor((wrap.minDeg() - driftDeg - azimuthDeg) / 360);
-        azimuthDeg + 360 * j - driftDeg <= wrap.maxDeg(); j++) {
-      double v = azimuthDeg + 360 * j;
-      if (v + driftDeg >= wrap.minDeg()) {
-        best = Math.min(best, Math.max(0, Math.abs(v - fromDeg) - driftDeg));
-      }
-    }
-    return best;
   }
 
   /**
@@ -197,37 +139,43 @@ final class AltAzTransitions implements Transitions {
   }
 
   @Override
-  public double boundS(int from, int to, double departureMinS, double departureMaxS) {
-    Intervals.check(departureMinS, departureMaxS);
+  public double boundS(int from, int to, double departureMinS, double departureMaxS, double arrivalMinS,
+      double arrivalMaxS) {
+    Intervals.check("departure", departureMinS, departureMaxS);
+    Intervals.check("arrival", arrivalMinS, arrivalMaxS);
     if (from == START && start == null) {
       return 0;
     }
     PointingTrack f = from == START ? start : tracks.get(from);
     PointingTrack t = tracks.get(to);
-    double c = 0.5 * (departureMinS + departureMaxS);
-    double h = 0.5 * (departureMaxS - departureMinS);
-    double worstS = model.worstS();
-    double fromAzimuthDriftDeg = h == 0 ? 0 : f.maxAzimuthRateDegPerS(departureMinS, departureMaxS) * h;
-    double fromElevationDriftDeg = h == 0 ? 0 : f.maxElevationRateDegPerS(departureMinS, departureMaxS) * h;
-    double toAzimuthRate = t.maxAzimuthRateDegPerS(departureMinS, departureMaxS + worstS);
-    double toElevationRate = t.maxElevationRateDegPerS(departureMinS, departureMaxS + worstS);
-    if (!Double.isFinite(fromAzimuthDriftDeg + fromElevationDriftDeg + toAzimuthRate + toElevationRate)) {
+    double md = 0.5 * (departureMinS + departureMaxS);
+    double hd = 0.5 * (departureMaxS - departureMinS);
+    double ma = 0.5 * (arrivalMinS + arrivalMaxS);
+    double ha = 0.5 * (arrivalMaxS - arrivalMinS);
+    double fromAzimuthDriftDeg = hd == 0 ? 0 : f.maxAzimuthRateDegPerS(departureMinS, departureMaxS) * hd;
+    double fromElevationDriftDeg = hd == 0 ? 0 : f.maxElevationRateDegPerS(departureMinS, departureMaxS) * hd;
+    double toAzimuthDriftDeg = ha == 0 ? 0 : t.maxAzimuthRateDegPerS(arrivalMinS, arrivalMaxS) * ha;
+    double toElevationDriftDeg = ha == 0 ? 0 : t.maxElevationRateDegPerS(arrivalMinS, arrivalMaxS) * ha;
+    if (!Double.isFinite(fromAzimuthDriftDeg + fromElevationDriftDeg + toAzimuthDriftDeg + toElevationDriftDeg)) {
       return Double.POSITIVE_INFINITY; // a pointing may move arbitrarily fast (through the zenith)
     }
-    AzEl pf = f.azEl(c);
-    AzEl pt = t.azEl(c);
-    return FixedPoint.bound(worstS, tS -> {
-      double toAzimuthDriftDeg = toAzimuthRate * (h + tS);
-      double toElevationDriftDeg = toElevationRate * (h + tS);
-      if (!(pt.elevationDeg() - toElevationDriftDeg >= model.elevationMinDeg()
-          && pt.elevationDeg() + toElevationDriftDeg <= model.elevationMaxDeg())) {
-        return Double.POSITIVE_INFINITY;
-      }
-      double elevationDeg = Math.min(180,
-          Math.abs(pt.elevationDeg() - pf.elevationDeg()) + fromElevationDriftDeg + toElevationDriftDeg);
-      double azimuthDeg = azimuthBoundDeg(pf.azimuthDeg(), fromAzimuthDriftDeg, pt.azimuthDeg(), toAzimuthDriftDeg);
-      return model.seconds(azimuthDeg, elevationDeg); // <= worstS: the distances are capped like worstS's
-    });
+    AzEl pf = f.azEl(md);
+    AzEl pt = t.azEl(ma);
+    if (!(pt.elevationDeg() - toElevationDriftDeg >= model.elevationMinDeg()
+        && pt.elevationDeg() + toElevationDriftDeg <= model.elevationMaxDeg())) {
+      return Double.POSITIVE_INFINITY;
+    }
+    double elevationDeg = Math.min(180,
+        Math.abs(pt.elevationDeg() - pf.elevationDeg()) + fromElevationDriftDeg + toElevationDriftDeg);
+    double azimuthDeg = azimuthBoundDeg(pf.azimuthDeg(), fromAzimuthDriftDeg, pt.azimuthDeg(), toAzimuthDriftDeg);
+    if (Double.isInfinite(azimuthDeg)) {
+      return Double.POSITIVE_INFINITY;
+    }
+    double drift = fromAzimuthDriftDeg + fromElevationDriftDeg + toAzimuthDriftDeg + toElevationDriftDeg;
+    // ROUNDING_DEG covers the different order of the floating-point operations in the exact legs.
+    return drift > 0 ? model.movingSeconds(azimuthDeg + ROUNDING_DEG, elevationDeg + ROUNDING_DEG)
+        : model.seconds(azimuthDeg, elevationDeg) == 0 ? 0
+        : model.seconds(azimuthDeg + ROUNDING_DEG, elevationDeg + ROUNDING_DEG);
   }
 
   /** The azimuth distance bound of the class comment: max over possible states of the best legal branch. */

@@ -3,17 +3,14 @@ package dev.sequencer.slew;
 import java.util.List;
 
 /**
- * Eigenaxis transitions between moving lines of sight. The exact leg leaving at t_d is the earliest T
- * with s(angle(from(t_d), to(t_d + T))) <= T, found by {@link FixedPoint#earliest}, where s includes the
- * settle for every T > 0 (only T = 0 with an unchanged pointing is free); the angle cannot shrink faster
- * than the target's rate bound, which gives the lower bound that search needs.
+ * Eigenaxis transitions between possibly moving lines of sight. The exact leg is the rest-to-rest slew
+ * between the line of sight of the previous request at its end (t_d) and that of the next at its start
+ * (t_a): s(angle(from(t_d), to(t_a))), 0 when the two coincide.
  *
- * <p>Bound over departures [a, b], with c = (a + b) / 2 and h = (b - a) / 2: by the triangle inequality on
- * the sphere and because a track moves no faster than its maximum rate, angle(from(t_d), to(t_d + T)) <=
- * angle(from(c), to(c)) + L_from·h + L_to·(h + T), never more than 180°. The slew time s is non-decreasing
- * in the angle, so G(T) = s(min(180, that)) is a non-decreasing upper bound on the exact map, and
- * B_0 = s(180) bounds every slew; {@link FixedPoint#bound} does the rest. L_to is taken over
- * [a, b + B_0], every arrival instant a slew can have.
+ * <p>Bound over departures [a, b] and arrivals [c, e], with midpoints m_d, m_a and half-widths h_d, h_a: by
+ * the triangle inequality on the sphere and because a track moves no faster than its maximum rate,
+ * angle(from(t_d), to(t_a)) <= angle(from(m_d), to(m_a)) + L_from·h_d + L_to·h_a, never more than 180°;
+ * s is non-decreasing in the angle, so s of that bound is never below the exact leg.
  */
 final class EigenaxisTransitions implements Transitions {
   private final EigenaxisModel model;
@@ -32,48 +29,40 @@ final class EigenaxisTransitions implements Transitions {
   }
 
   @Override
-  public double boundS(int from, int to, double departureMinS, double departureMaxS) {
-    Intervals.check(departureMinS, departureMaxS);
+  public double boundS(int from, int to, double departureMinS, double departureMaxS, double arrivalMinS,
+      double arrivalMaxS) {
+    Intervals.check("departure", departureMinS, departureMaxS);
+    Intervals.check("arrival", arrivalMinS, arrivalMaxS);
     if (from == START && start == null) {
       return 0;
     }
     PointingTrack f = from == START ? start : tracks.get(from);
     PointingTrack t = tracks.get(to);
-    double c = 0.5 * (departureMinS + departureMaxS);
-    double h = 0.5 * (departureMaxS - departureMinS);
-    double worstS = model.secondsForAngle(180);
-    double rateFrom = f.maxAngularRateDegPerS(departureMinS, departureMaxS);
-    double rateTo = t.maxAngularRateDegPerS(departureMinS, departureMaxS + worstS);
-    double angleAtDepartureDeg =
-        EigenaxisModel.angleDeg(f.inertialDirection(c), t.inertialDirection(c)) + (rateFrom + rateTo) * h;
-    return FixedPoint.bound(
-        worstS, tS -> model.secondsForAngle(Math.min(180, angleAtDepartureDeg + rateTo * tS)));
+    double md = 0.5 * (departureMinS + departureMaxS);
+    double hd = 0.5 * (departureMaxS - departureMinS);
+    double ma = 0.5 * (arrivalMinS + arrivalMaxS);
+    double ha = 0.5 * (arrivalMaxS - arrivalMinS);
+    double driftDeg = (hd == 0 ? 0 : f.maxAngularRateDegPerS(departureMinS, departureMaxS) * hd)
+        + (ha == 0 ? 0 : t.maxAngularRateDegPerS(arrivalMinS, arrivalMaxS) * ha);
+    double angleDeg = EigenaxisModel.angleDeg(f.inertialDirection(md), t.inertialDirection(ma)) + driftDeg;
+    if (Double.isNaN(angleDeg)) {
+      return Double.POSITIVE_INFINITY;
+    }
+    // 1e-9 deg covers the different order of the floating-point operations in the exact legs.
+    return driftDeg > 0 ? model.movingSecondsForAngle(Math.min(180, angleDeg + 1e-9))
+        : model.secondsForAngle(angleDeg == 0 ? 0 : Math.min(180, angleDeg + 1e-9));
   }
 
   @Override
-  public double[] exactS(int[] order, double[] departureS) {
-    Intervals.checkSequence(order, departureS, tracks.size());
+  public double[] exactS(int[] order, double[] departureS, double[] arrivalS) {
+    Intervals.checkSequence(order, departureS, arrivalS, tracks.size());
     double[] out = new double[order.length];
     for (int k = 0; k < order.length; k++) {
       PointingTrack f = k == 0 ? start : tracks.get(order[k - 1]);
-      out[k] = f == null ? 0 : leg(f, tracks.get(order[k]), departureS[k]);
+      out[k] = f == null ? 0 : model.secondsForAngle(EigenaxisModel.angleDeg(
+          f.inertialDirection(departureS[k]), tracks.get(order[k]).inertialDirection(arrivalS[k])));
     }
     return out;
-  }
-
-  private double leg(PointingTrack from, PointingTrack to, double departureS) {
-    var fromDirection = from.inertialDirection(departureS);
-    return FixedPoint.earliest(tS -> {
-      double angleDeg = EigenaxisModel.angleDeg(fromDirection, to.inertialDirection(departureS + tS));
-      double seconds = tS == 0 ? model.secondsForAngle(angleDeg) : model.movingSecondsForAngle(angleDeg);
-      if (!(seconds > tS) || Double.isInfinite(seconds)) {
-        return new FixedPoint.Probe(seconds, dS -> 0);
-      }
-      // The next jump stays inside [T, φ(T)], so the target's rate is needed there only.
-      double rateTo = to.maxAngularRateDegPerS(departureS + tS, departureS + seconds);
-      return new FixedPoint.Probe(seconds,
-          dS -> model.movingSecondsForAngle(Math.max(0, angleDeg - rateTo * dS)));
-    });
   }
 
   @Override

@@ -24,12 +24,13 @@ final class FixedTransitions implements Transitions {
   }
 
   @Override
-  public double boundS(int from, int to, double departureMinS, double departureMaxS) {
+  public double boundS(int from, int to, double departureMinS, double departureMaxS, double arrivalMinS,
+      double arrivalMaxS) {
     return seconds;
   }
 
   @Override
-  public double[] exactS(int[] order, double[] departureS) {
+  public double[] exactS(int[] order, double[] departureS, double[] arrivalS) {
     double[] out = new double[order.length];
     Arrays.fill(out, seconds);
     return out;

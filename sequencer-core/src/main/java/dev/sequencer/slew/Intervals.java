@@ -4,19 +4,19 @@ package dev.sequencer.slew;
 final class Intervals {
   private Intervals() {}
 
-  /** Rejects a reversed or non-finite departure interval, naming it in order. */
-  static void check(double departureMinS, double departureMaxS) {
-    if (!Double.isFinite(departureMinS) || !Double.isFinite(departureMaxS) || departureMaxS < departureMinS) {
+  /** Rejects a reversed or non-finite interval, naming it and its ends in order. */
+  static void check(String name, double minS, double maxS) {
+    if (!Double.isFinite(minS) || !Double.isFinite(maxS) || maxS < minS) {
       throw new IllegalArgumentException(
-          "departure interval: must be finite with min <= max (was [" + departureMinS + ", " + departureMaxS + "])");
+          name + " interval: must be finite with min <= max (was [" + minS + ", " + maxS + "])");
     }
   }
 
   /** Rejects a sequence whose arrays differ in length or whose indices are outside [0, size). */
-  static void checkSequence(int[] order, double[] departureS, int size) {
-    if (order.length != departureS.length) {
-      throw new IllegalArgumentException(
-          "departureS: " + departureS.length + " entries, but order has " + order.length);
+  static void checkSequence(int[] order, double[] departureS, double[] arrivalS, int size) {
+    if (order.length != departureS.length || order.length != arrivalS.length) {
+      throw new IllegalArgumentException("departureS: " + departureS.length + " entries, arrivalS: "
+          + arrivalS.length + ", but order has " + order.length);
     }
     for (int k = 0; k < order.length; k++) {
       if (order[k] < 0 || order[k] >= size) {

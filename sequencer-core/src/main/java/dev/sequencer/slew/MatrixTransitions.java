@@ -44,16 +44,17 @@ final class MatrixTransitions implements Transitions {
   }
 
   @Override
-  public double boundS(int from, int to, double departureMinS, double departureMaxS) {
+  public double boundS(int from, int to, double departureMinS, double departureMaxS, double arrivalMinS,
+      double arrivalMaxS) {
     return from == START ? fromStart[to] : seconds[from][to];
   }
 
   @Override
-  public double[] exactS(int[] order, double[] departureS) {
+  public double[] exactS(int[] order, double[] departureS, double[] arrivalS) {
     double[] out = new double[order.length];
     int prev = START;
     for (int k = 0; k < order.length; k++) {
-      out[k] = boundS(prev, order[k], departureS[k], departureS[k]);
+      out[k] = prev == START ? fromStart[order[k]] : seconds[prev][order[k]];
       prev = order[k];
     }
     return out;

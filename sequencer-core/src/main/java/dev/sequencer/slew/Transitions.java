@@ -4,10 +4,13 @@ package dev.sequencer.slew;
  * Transition times between the requests of one scenario, indexed in file order; {@link #START} stands for
  * the initial pointing.
  *
- * <p>The sequencer builds its model from {@link #boundS}, which is never below the exact time for any
- * departure inside the given interval. The exact times depend on the whole sequence for models with
- * state (an alt-az mount's unwrapped azimuth), so they are evaluated for a sequence at once by
- * {@link #exactS}. All times in seconds; departures in seconds from the horizon start.
+ * <p>A transition is measured, as the scenario format says, from the pointing at the end of the previous
+ * observation (its <em>departure</em>) to the pointing at the start of the next (its <em>arrival</em>);
+ * a sequence is legal when every arrival minus its departure covers the transition. The sequencer builds
+ * its model from {@link #boundS}, which is never below the exact time for any departure and arrival inside
+ * the given intervals. The exact times depend on the whole sequence for models with state (an alt-az
+ * mount's unwrapped azimuth), so they are evaluated for a sequence at once by {@link #exactS}. All times in
+ * seconds from the horizon start.
  */
 public interface Transitions {
   /** Index of the initial pointing, as a "from" request. */
@@ -18,20 +21,26 @@ public interface Transitions {
 
   /**
    * An upper bound on the transition from {@code from} (or {@link #START}) to {@code to} for any departure
-   * (end of {@code from}) in [{@code departureMinS}, {@code departureMaxS}], whatever state the
-   * instrument is in after {@code from}; {@link Double#POSITIVE_INFINITY} when the transition is never
-   * possible (for example, no legal mount path).
+   * (end of {@code from}) in [{@code departureMinS}, {@code departureMaxS}] and any arrival (start of
+   * {@code to}) in [{@code arrivalMinS}, {@code arrivalMaxS}], whatever state the instrument is in after
+   * {@code from}; {@link Double#POSITIVE_INFINITY} when the transition may be impossible (for example, no
+   * legal mount path).
    */
-  double boundS(int from, int to, double departureMinS, double departureMaxS);
+  double boundS(int from, int to, double departureMinS, double departureMaxS, double arrivalMinS,
+      double arrivalMaxS);
+
+  /** The bound for one departure instant and one arrival instant. */
+  default double boundS(int from, int to, double departureS, double arrivalS) {
+    return boundS(from, to, departureS, departureS, arrivalS, arrivalS);
+  }
 
   /**
-   * Exact transition times along a sequence: element k is the time from the previous request (or the
-   * start pointing for k = 0) to {@code order[k]}, departing at {@code departureS[k]} (the end of the
-   * previous observation, or the horizon start for k = 0) and arriving at the pointing of
-   * {@code order[k]} at the instant the slew ends. {@link Double#POSITIVE_INFINITY} marks an impossible
-   * leg.
+   * Exact transition times along a sequence: element k is the time from the pointing of the previous
+   * request at {@code departureS[k]} (its end; for k = 0 the start pointing at the horizon start) to the
+   * pointing of {@code order[k]} at {@code arrivalS[k]} (its start). {@link Double#POSITIVE_INFINITY} marks
+   * an impossible leg.
    */
-  double[] exactS(int[] order, double[] departureS);
+  double[] exactS(int[] order, double[] departureS, double[] arrivalS);
 
   /** True when transition times depend on when they happen (moving pointings, alt-az mounts). */
   boolean timeDependent();

@@ -186,6 +186,7 @@ public final class PlanValidator {
   private void checkTransitions(List<Observation> obs, List<String> out) {
     int[] order = new int[obs.size()];
     double[] departure = new double[obs.size()];
+    double[] arrival = new double[obs.size()];
     for (int k = 0; k < obs.size(); k++) {
       Integer idx = index.get(obs.get(k).id());
       if (idx == null) {
@@ -193,8 +194,9 @@ public final class PlanValidator {
       }
       order[k] = idx;
       departure[k] = k == 0 ? 0.0 : seconds(horizon.start(), obs.get(k - 1).end());
+      arrival[k] = seconds(horizon.start(), obs.get(k).start());
     }
-    double[] exact = transitions.exactS(order, departure);
+    double[] exact = transitions.exactS(order, departure, arrival);
     for (int k = 0; k < obs.size(); k++) {
       Observation o = obs.get(k);
       String from = k == 0 ? "the start pointing" : obs.get(k - 1).id();

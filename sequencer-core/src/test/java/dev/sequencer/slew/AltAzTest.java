@@ -29,7 +29,7 @@ class AltAzTest {
   }
 
   private static double leg(SlewModel model, PointingTrack from, PointingTrack to) {
-    return model.transitions(List.of(to), from).exactS(new int[] {0}, new double[] {0})[0];
+    return model.transitions(List.of(to), from).exactS(new int[] {0}, new double[] {0}, new double[] {0})[0];
   }
 
   @Test
@@ -53,7 +53,7 @@ class AltAzTest {
     // The mount is then at 370, so azimuth 100 (460 is outside) means 270 deg back: 270/3 + 3 + 10 = 103 s.
     SlewModel model = SlewModel.altaz(mount(List.of(-270.0, 450.0)));
     Transitions t = model.transitions(List.of(at(10, 45), at(100, 45)), at(350, 45));
-    double[] legs = t.exactS(new int[] {0, 1}, new double[] {0, 100});
+    double[] legs = t.exactS(new int[] {0, 1}, new double[] {0, 100}, new double[] {40, 200});
     assertEquals(20.0 / 3 + 3 + 10, legs[0], 1e-9);
     assertEquals(103.0, legs[1], 1e-9);
   }
@@ -74,16 +74,16 @@ class AltAzTest {
   void pointingBelowTheElevationLimitIsUnreachable() {
     SlewModel model = SlewModel.altaz(mount(List.of(-270.0, 270.0)), 15, 88);
     Transitions t = model.transitions(List.of(at(90, 10)), at(0, 45));
-    assertEquals(INF, t.exactS(new int[] {0}, new double[] {0})[0]);
-    assertEquals(INF, t.boundS(Transitions.START, 0, 0, 600));
+    assertEquals(INF, t.exactS(new int[] {0}, new double[] {0}, new double[] {100})[0]);
+    assertEquals(INF, t.boundS(Transitions.START, 0, 0, 0, 0, 600));
   }
 
   @Test
   void azimuthOutsideANarrowRangeIsUnreachable() {
     SlewModel model = SlewModel.altaz(mount(List.of(0.0, 300.0)));
     Transitions t = model.transitions(List.of(at(330, 45)), at(10, 45));
-    assertEquals(INF, t.exactS(new int[] {0}, new double[] {0})[0]);
-    assertEquals(INF, t.boundS(Transitions.START, 0, 0, 600));
+    assertEquals(INF, t.exactS(new int[] {0}, new double[] {0}, new double[] {100})[0]);
+    assertEquals(INF, t.boundS(Transitions.START, 0, 0, 0, 0, 600));
   }
 
   @Test
@@ -93,31 +93,34 @@ class AltAzTest {
 
   @Test
   void boundIsWithinAFewSecondsOverFiveMinutesForStars() {
-    // Two stars at latitude 40 N, departures over 300 s: the bound adds the drift of both pointings over
-    // the interval (at most ~0.01 deg/s here) to the distance at its centre, a few seconds at 2-3 deg/s.
+    // Two stars at latitude 40 N, departures and arrivals over 300 s each: the bound adds the drift of both
+    // pointings over their intervals (at most ~0.01 deg/s here) to the distance at the centres, a few
+    // seconds at 2-3 deg/s.
     SlewModel model = SlewModel.altaz(mount(List.of(-270.0, 270.0)), 5, 89);
     Transitions t = model.transitions(List.of(new StarTrack(40, 10, 0, -20), new StarTrack(40, 60, 0, 120)),
         at(0, 45));
-    double bound = t.boundS(0, 1, 2000, 2300);
+    double bound = t.boundS(0, 1, 2000, 2300, 2400, 2700);
     double worst = 0;
     for (int s = 0; s <= 60; s++) {
-      worst = Math.max(worst, t.exactS(new int[] {0, 1}, new double[] {0, 2000 + 5 * s})[1]);
+      for (int r = 0; r <= 12; r++) {
+        double[] legs = t.exactS(new int[] {0, 1}, new double[] {0, 2000 + 5 * s}, new double[] {1000, 2400 + 25 * r});
+        worst = Math.max(worst, legs[1]);
+      }
     }
     assertTrue(bound >= worst);
     assertTrue(bound - worst <= 3.0, "slack " + (bound - worst) + " s");
   }
 
   @Test
-  void exactLegIsTheEarliestPossibleArrivalAtAMovingTarget() {
-    // Target running at 2 deg/s in azimuth, mount 3 deg/s: the slew must chase it. At the exact T the slew
-    // to the target's pointing at T fits in T, and at no earlier T.
+  void legToAMovingTargetEndsAtItsPointingAtTheObservationStart() {
+    // Scenario format: an altaz transition is measured from the pointing at the end of the previous
+    // observation to the pointing at the start of the next. Target running at 2 deg/s in azimuth from 30:
+    // starting at 20 s it is at 70, so from azimuth 0 the leg is 70/3 + 3 + 10 s; starting at 50 s, 130.
     SlewModel model = SlewModel.altaz(mount(null));
     PointingTrack target = MovingTrack.ground(30, 2, 0, 45, 0, 0);
     Transitions t = model.transitions(List.of(target), at(0, 45));
-    double exact = t.exactS(new int[] {0}, new double[] {0})[0];
-    // Chase: the target is at 30 + 2T deg when the slew ends at T, so T = (30 + 2T)/3 + 3 + 10, T = 69 s.
-    // Solved by hand; the search stops within 1e-9 s of it.
-    assertEquals(69.0, exact, 1e-6);
+    assertEquals(70.0 / 3 + 13, t.exactS(new int[] {0}, new double[] {0}, new double[] {20})[0], 1e-9);
+    assertEquals(130.0 / 3 + 13, t.exactS(new int[] {0}, new double[] {0}, new double[] {50})[0], 1e-9);
   }
 
   @Provide
@@ -142,7 +145,7 @@ class AltAzTest {
 
   /**
    * From every legal start state (the literal start azimuth), the interval bound covers the exact leg at
-   * 21 departures; and from a request reached earlier, whenever the carried state is legal (the bound
+   * 21 departures times 5 arrivals; and from a request reached earlier, whenever the carried state is legal (the bound
    * assumes a legal state; an exhausted wrap is reported by exactS as infinity and checked elsewhere).
    */
   @Property(tries = 400)
@@ -150,23 +153,30 @@ class AltAzTest {
       @ForAll("groundTracks") PointingTrack a, @ForAll("groundTracks") PointingTrack b,
       @ForAll("ranges") List<Double> range, @ForAll @DoubleRange(min = 0, max = 1) double startFraction,
       @ForAll @DoubleRange(min = 0, max = 5000) double departureMinS,
-      @ForAll @DoubleRange(min = 0, max = 600) double widthS) {
+      @ForAll @DoubleRange(min = 0, max = 600) double widthS,
+      @ForAll @DoubleRange(min = 0, max = 600) double arrivalWidthS) {
     SlewModel model = SlewModel.altaz(new SlewSettings.AltAz(2, 1.5, 0.5, 0.8, 5, range), -10, 90);
     double startAzimuthDeg = range.get(0) + startFraction * (range.get(1) - range.get(0));
     Transitions t = model.transitions(List.of(a, b), at(startAzimuthDeg, 30));
     AltAzTransitions altaz = (AltAzTransitions) t;
     double b0 = departureMinS + widthS;
-    double startBound = t.boundS(Transitions.START, 1, departureMinS, b0);
-    double pairBound = t.boundS(0, 1, departureMinS, b0);
+    double a0 = b0 + 50;
+    double a1 = a0 + arrivalWidthS;
+    double startBound = t.boundS(Transitions.START, 1, departureMinS, b0, a0, a1);
+    double pairBound = t.boundS(0, 1, departureMinS, b0, a0, a1);
     for (int s = 0; s <= 20; s++) {
       double d = departureMinS + widthS * s / 20;
-      double fromStart = t.exactS(new int[] {1}, new double[] {d})[0];
-      assertTrue(fromStart <= startBound, () -> "from start at " + d + ": " + fromStart + " > " + startBound);
-      AltAzTransitions.Legs legs = altaz.run(new int[] {0, 1}, new double[] {Math.max(0, d - 900), d});
-      double u = legs.departureAzimuthDeg()[1];
-      if (Double.isFinite(legs.seconds()[0]) && u >= range.get(0) && u <= range.get(1)) {
-        double leg = legs.seconds()[1];
-        assertTrue(leg <= pairBound, () -> "from request 0 at " + d + ": " + leg + " > " + pairBound);
+      for (int r = 0; r <= 4; r++) {
+        double arr = a0 + arrivalWidthS * r / 4;
+        double fromStart = t.exactS(new int[] {1}, new double[] {d}, new double[] {arr})[0];
+        assertTrue(fromStart <= startBound, () -> "from start at " + d + ": " + fromStart + " > " + startBound);
+        AltAzTransitions.Legs legs = altaz.run(new int[] {0, 1}, new double[] {Math.max(0, d - 900), d},
+            new double[] {Math.max(0, d - 800), arr});
+        double u = legs.departureAzimuthDeg()[1];
+        if (Double.isFinite(legs.seconds()[0]) && u >= range.get(0) && u <= range.get(1)) {
+          double leg = legs.seconds()[1];
+          assertTrue(leg <= pairBound, () -> "from request 0 at " + d + ": " + leg + " > " + pairBound);
+        }
       }
     }
   }
@@ -177,7 +187,7 @@ class AltAzTest {
     SlewModel model = SlewModel.altaz(mount(List.of(-270.0, 270.0)));
     PointingTrack runner = MovingTrack.ground(100, 1, 0, 45, 0, 0);
     Transitions t = model.transitions(List.of(runner, at(0, 45)), at(100, 45));
-    double[] legs = t.exactS(new int[] {0, 1}, new double[] {0, 200});
+    double[] legs = t.exactS(new int[] {0, 1}, new double[] {0, 200}, new double[] {0, 300});
     assertEquals(0.0, legs[0]);
     assertEquals(INF, legs[1]);
   }

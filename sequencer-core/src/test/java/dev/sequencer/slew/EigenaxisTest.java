@@ -26,15 +26,15 @@ class EigenaxisTest {
     // Derivation in docs/slew.md: two 20 s ramps cover 20 deg, 70 deg cruise at 1 deg/s, 20 s settle.
     // The pole and the equator are 90 deg apart up to the rounding of cos(90 deg), hence 1e-9.
     Transitions t = SlewModel.eigenaxis(1.0, 0.05, 20).transitions(List.of(EQUATOR_RA0), POLE);
-    assertEquals(130.0, t.exactS(new int[] {0}, new double[] {0})[0], 1e-9);
-    assertEquals(130.0, t.boundS(Transitions.START, 0, 0, 3600), 1e-6); // fixed tracks: bound = exact
+    assertEquals(130.0, t.exactS(new int[] {0}, new double[] {0}, new double[] {200})[0], 1e-9);
+    assertEquals(130.0, t.boundS(Transitions.START, 0, 0, 3600, 200, 4000), 1e-6); // fixed tracks: bound = exact
   }
 
   @Test
   void unchangedPointingTakesNoTimeNotEvenSettle() {
     Transitions t = SlewModel.eigenaxis(1.0, 0.05, 20).transitions(List.of(POLE, POLE), POLE);
-    assertEquals(0.0, t.exactS(new int[] {0, 1}, new double[] {0, 100})[1]);
-    assertEquals(0.0, t.exactS(new int[] {0}, new double[] {0})[0]);
+    assertEquals(0.0, t.exactS(new int[] {0, 1}, new double[] {0, 100}, new double[] {0, 100})[1]);
+    assertEquals(0.0, t.exactS(new int[] {0}, new double[] {0}, new double[] {0})[0]);
   }
 
   @Test
@@ -59,7 +59,7 @@ class EigenaxisTest {
   void reversedDepartureIntervalIsRejected() {
     Transitions t = SlewModel.eigenaxis(1.0, 0.05, 20).transitions(List.of(EQUATOR_RA0), POLE);
     IllegalArgumentException e =
-        assertThrows(IllegalArgumentException.class, () -> t.boundS(Transitions.START, 0, 5, 3));
+        assertThrows(IllegalArgumentException.class, () -> t.boundS(Transitions.START, 0, 5, 3, 10, 20));
     assertTrue(e.getMessage().contains("[5.0, 3.0]"), e.getMessage());
   }
 
@@ -113,38 +113,51 @@ class EigenaxisTest {
     assertTrue(m.secondsForAngle(Math.min(x, y)) <= m.secondsForAngle(Math.max(x, y)));
   }
 
-  /** Moving lines of sight: the bound over an interval covers the exact leg at 21 departures inside it. */
+  /**
+   * Moving lines of sight: the bound over departure and arrival intervals covers the exact leg at 21
+   * departures times 5 arrivals inside them.
+   */
   @Property(tries = 300)
   void boundNeverBelowExactForMovingTargets(@ForAll("directions") Vector3D a, @ForAll("directions") Vector3D b,
       @ForAll("directions") Vector3D towards, @ForAll @DoubleRange(min = 0, max = 0.8) double rateTo,
       @ForAll @DoubleRange(min = 0, max = 0.8) double rateFrom,
       @ForAll @DoubleRange(min = 0, max = 5000) double departureMinS,
-      @ForAll @DoubleRange(min = 0, max = 600) double widthS, @ForAll("models") EigenaxisModel m) {
+      @ForAll @DoubleRange(min = 0, max = 600) double widthS,
+      @ForAll @DoubleRange(min = 0, max = 600) double arrivalWidthS, @ForAll("models") EigenaxisModel m) {
     PointingTrack from = MovingTrack.inertial(a, towards, rateFrom);
     PointingTrack to = MovingTrack.inertial(b, towards, rateTo);
     Transitions t = m.transitions(List.of(from, to), from);
-    double bound = t.boundS(0, 1, departureMinS, departureMinS + widthS);
-    double startBound = t.boundS(Transitions.START, 1, departureMinS, departureMinS + widthS);
+    double a0 = departureMinS + widthS + 30;
+    double a1 = a0 + arrivalWidthS;
+    double bound = t.boundS(0, 1, departureMinS, departureMinS + widthS, a0, a1);
+    double startBound = t.boundS(Transitions.START, 1, departureMinS, departureMinS + widthS, a0, a1);
     for (int s = 0; s <= 20; s++) {
       double departure = departureMinS + widthS * s / 20;
-      double exact = t.exactS(new int[] {1}, new double[] {departure})[0];
-      assertTrue(exact <= bound, () -> "exact " + exact + " > bound " + bound + " at " + departure);
-      assertTrue(exact <= startBound, () -> "exact " + exact + " > start bound " + startBound);
+      for (int r = 0; r <= 4; r++) {
+        double arrival = a0 + arrivalWidthS * r / 4;
+        double exact = t.exactS(new int[] {1}, new double[] {departure}, new double[] {arrival})[0];
+        assertTrue(exact <= bound, () -> "exact " + exact + " > bound " + bound + " at " + departure);
+        assertTrue(exact <= startBound, () -> "exact " + exact + " > start bound " + startBound);
+        double pair = t.exactS(new int[] {0, 1}, new double[] {0, departure}, new double[] {0, arrival})[1];
+        assertTrue(pair <= bound, () -> "exact " + pair + " > bound " + bound + " at " + departure);
+      }
     }
   }
 
   @Test
   void boundIsWithinAFewSecondsOverFiveMinutesForSlowTargets() {
-    // 0.004 deg/s (about the sidereal rate) on both sides over a 300 s interval: the lines of sight move
-    // up to 1.2 deg each, about 2.4 s of cruise at 1 deg/s, which is the bound's slack at most (plus the
-    // slew's own duration times the target rate). Checked against the worst of 61 sampled departures.
+    // 0.004 deg/s (about the sidereal rate) on both sides over 300 s departure and arrival intervals: the
+    // lines of sight move up to 1.2 deg each, about 2.4 s of cruise at 1 deg/s, which is the bound's slack
+    // at most. Checked against the worst of 61 x 13 sampled departures and arrivals.
     PointingTrack from = MovingTrack.inertial(Vector3D.PLUS_I, Vector3D.PLUS_J, 0.004);
     PointingTrack to = MovingTrack.inertial(Vector3D.PLUS_K, Vector3D.PLUS_J, 0.004);
     Transitions t = SlewModel.eigenaxis(1.0, 0.05, 20).transitions(List.of(from, to), from);
-    double bound = t.boundS(0, 1, 1000, 1300);
+    double bound = t.boundS(0, 1, 1000, 1300, 1400, 1700);
     double worst = 0;
     for (int s = 0; s <= 60; s++) {
-      worst = Math.max(worst, t.exactS(new int[] {1}, new double[] {1000 + 5 * s})[0]);
+      for (int r = 0; r <= 12; r++) {
+        worst = Math.max(worst, t.exactS(new int[] {1}, new double[] {1000 + 5 * s}, new double[] {1400 + 25 * r})[0]);
+      }
     }
     assertTrue(bound >= worst);
     assertTrue(bound - worst <= 3.0, "slack " + (bound - worst) + " s");

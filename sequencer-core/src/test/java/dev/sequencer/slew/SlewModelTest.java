@@ -19,7 +19,7 @@ class SlewModelTest {
     // docs/slew.md: 90 deg at 1 deg/s and 0.05 deg/s^2 with 20 s settle is 130 s.
     Transitions t = SlewModel.of(new SlewSettings.Eigenaxis(1.0, 0.05, 20))
         .transitions(List.of(PointingTrack.fixed(new RaDec(0, 0))), PointingTrack.fixed(new RaDec(0, 90)));
-    assertEquals(130.0, t.exactS(new int[] {0}, new double[] {0})[0], 1e-9);
+    assertEquals(130.0, t.exactS(new int[] {0}, new double[] {0}, new double[] {0})[0], 1e-9);
   }
 
   @Test
@@ -28,17 +28,17 @@ class SlewModelTest {
     Transitions t = SlewModel.of(new SlewSettings.AltAz(3, 2, 1, 1, 10, List.of(-180.0, 360.0)))
         .transitions(List.of(PointingTrack.parked(new AzElPointing(10, 45))),
             PointingTrack.parked(new AzElPointing(350, 45)));
-    assertEquals(340.0 / 3 + 13, t.exactS(new int[] {0}, new double[] {0})[0], 1e-9);
+    assertEquals(340.0 / 3 + 13, t.exactS(new int[] {0}, new double[] {0}, new double[] {0})[0], 1e-9);
   }
 
   @Test
   void fixedAndMatrixSettingsGiveTheirTables() {
     Transitions fixed = SlewModel.of(new SlewSettings.Fixed(60)).transitions(Arrays.asList(null, null), null);
-    assertEquals(60.0, fixed.boundS(0, 1, 0, 10));
+    assertEquals(60.0, fixed.boundS(0, 1, 0, 10, 20, 30));
     Transitions matrix = SlewModel.of(new SlewSettings.Matrix(List.of(List.of(0.0, 12.0), List.of(13.0, 0.0)),
         List.of(5.0, 9.0))).transitions(Arrays.asList(null, null), null);
-    assertEquals(13.0, matrix.boundS(1, 0, 0, 10));
-    assertEquals(9.0, matrix.boundS(Transitions.START, 1, 0, 10));
+    assertEquals(13.0, matrix.boundS(1, 0, 0, 10, 20, 30));
+    assertEquals(9.0, matrix.boundS(Transitions.START, 1, 0, 10, 20, 30));
   }
 
   @Test
