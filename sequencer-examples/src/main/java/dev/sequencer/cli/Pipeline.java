@@ -3,6 +3,7 @@ package dev.sequencer.cli;
 import dev.sequencer.astro.AstroContext;
 import dev.sequencer.model.RequestWindows;
 import dev.sequencer.model.Scenario;
+import dev.sequencer.model.SlewSettings;
 import dev.sequencer.model.Timeline;
 import dev.sequencer.sequence.PlanningProblem;
 import dev.sequencer.sequence.Sequencer;
@@ -28,7 +29,11 @@ record Pipeline(Scenario scenario, List<RequestVisibility> visibility, List<Requ
     List<RequestWindows> windows = vis.stream().map(RequestVisibility::toWindows).toList();
     Transitions transitions;
     try {
-      transitions = s.observer() == null
+      // The fixed and matrix models use only the number of requests: no pointing tracks needed (and
+      // PointingTracks supports only fixed RA/Dec targets so far).
+      boolean tracksNeeded = s.observer() != null
+          && !(s.slew() instanceof SlewSettings.Fixed) && !(s.slew() instanceof SlewSettings.Matrix);
+      transitions = !tracksNeeded
           ? SlewModel.of(s.slew()).transitions(java.util.Collections.nCopies(s.requests().size(), null), null)
           : SlewModel.of(s.slew()).transitions(PointingTracks.of(s, ctx), PointingTracks.start(s, ctx));
     } catch (UnsupportedOperationException e) {
