@@ -16,17 +16,23 @@ import java.nio.file.StandardOpenOption;
  * same directory, is forced to disk, then moved over the target atomically (or, where the file system
  * cannot, with a plain replacing move).
  */
-final class AtomicFiles {
+public final class AtomicFiles {
   private AtomicFiles() {}
 
-  static void writeUtf8(Path target, String text) {
+  /** Writes {@code text} as UTF-8 to {@code target} atomically; an I/O failure is an {@link UncheckedIOException}. */
+  public static void writeUtf8(Path target, String text) {
+    writeBytes(target, text.getBytes(StandardCharsets.UTF_8));
+  }
+
+  /** Writes {@code bytes} to {@code target} atomically; an I/O failure is an {@link UncheckedIOException}. */
+  public static void writeBytes(Path target, byte[] bytes) {
     Path absolute = target.toAbsolutePath();
     Path dir = absolute.getParent();
     Path tmp = null;
     try {
       tmp = Files.createTempFile(dir, "." + absolute.getFileName() + ".", ".tmp");
       try (FileChannel ch = FileChannel.open(tmp, StandardOpenOption.WRITE, StandardOpenOption.TRUNCATE_EXISTING)) {
-        ByteBuffer buf = ByteBuffer.wrap(text.getBytes(StandardCharsets.UTF_8));
+        ByteBuffer buf = ByteBuffer.wrap(bytes);
         while (buf.hasRemaining()) {
           ch.write(buf);
         }

@@ -167,7 +167,7 @@ final class AltAzTransitions implements Transitions {
     }
     double elevationDeg = Math.min(180,
         Math.abs(pt.elevationDeg() - pf.elevationDeg()) + fromElevationDriftDeg + toElevationDriftDeg);
-    double azimuthDeg = azimuthBoundDeg(pf.azimuthDeg(), fromAzimuthDriftDeg, pt.azimuthDeg(), toAzimuthDriftDeg);
+    double azimuthDeg = azimuthBoundDeg(wrap, pf.azimuthDeg(), fromAzimuthDriftDeg, pt.azimuthDeg(), toAzimuthDriftDeg);
     if (Double.isInfinite(azimuthDeg)) {
       return Double.POSITIVE_INFINITY;
     }
@@ -179,9 +179,12 @@ final class AltAzTransitions implements Transitions {
   }
 
   /** The azimuth distance bound of the class comment: max over possible states of the best legal branch. */
-  private double azimuthBoundDeg(double fromDeg, double fromDriftDeg, double toDeg, double toDriftDeg) {
+  static double azimuthBoundDeg(CableWrap wrap, double fromDeg, double fromDriftDeg, double toDeg, double toDriftDeg) {
     if (!wrap.limited()) {
       return Math.min(180, Math.abs(Math.IEEEremainder(toDeg - fromDeg, 360)) + fromDriftDeg + toDriftDeg);
+    }
+    if (fromDriftDeg >= wrap.spanDeg() || toDriftDeg >= wrap.spanDeg()) {
+      return saturatedAzimuthBoundDeg(wrap, fromDeg, fromDriftDeg, toDeg, toDriftDeg);
     }
     double worstDeg = Double.NaN;
     for (long k = (long) Math.floor((wrap.minDeg() - fromDriftDeg - fromDeg) / 360);
@@ -211,5 +214,36 @@ final class AltAzTransitions implements Transitions {
     }
     // No possible legal state: the from pointing can never be held, so nothing is promised.
     return Double.isNaN(worstDeg) ? Double.POSITIVE_INFINITY : worstDeg;
+  }
+
+  /**
+   * {@link #azimuthBoundDeg} when a drift reaches the wrap's span (long departure intervals, or a target
+   * near the zenith whose azimuth rate has no useful bound): the same value without looping over every
+   * 360-degree branch the drift covers (millions of them for a drift of hours at the 360 deg/s "no bound"
+   * rate). Every distance min(span, |v - u| + drifts) is then the span. A target state is surely legal
+   * only when 2 x toDrift fits inside the range, which a drift of at least the span never does; whether
+   * one is does not depend on the from state. So the bound is the span when some legal from state exists
+   * and (some target state is surely legal, or the range covers a full turn so every state has a branch),
+   * and infinite otherwise, exactly as the loops decide.
+   */
+  private static double saturatedAzimuthBoundDeg(CableWrap wrap, double fromDeg, double fromDriftDeg, double toDeg,
+      double toDriftDeg) {
+    double spanDeg = wrap.spanDeg();
+    if (!someBranchWithin(fromDeg, wrap.minDeg() - fromDriftDeg, wrap.maxDeg() + fromDriftDeg)) {
+      return Double.POSITIVE_INFINITY; // no possible legal from state: nothing is promised
+    }
+    boolean surely = toDriftDeg < spanDeg
+        && someBranchWithin(toDeg, wrap.minDeg() + toDriftDeg, wrap.maxDeg() - toDriftDeg);
+    boolean possibly = someBranchWithin(toDeg, wrap.minDeg() - toDriftDeg, wrap.maxDeg() + toDriftDeg);
+    return surely || (spanDeg >= 360 && possibly) ? spanDeg : Double.POSITIVE_INFINITY;
+  }
+
+  /** True when some branch {@code deg + 360 k} (k an integer) lies in [lo, hi]. */
+  private static boolean someBranchWithin(double deg, double lo, double hi) {
+    if (!(lo <= hi)) {
+      return false;
+    }
+    double k = Math.ceil((lo - deg) / 360);
+    return deg + 360 * k <= hi;
   }
 }

@@ -3,7 +3,6 @@ package dev.sequencer.cli;
 import dev.sequencer.io.ScenarioReader;
 import dev.sequencer.io.TimelineFile;
 import dev.sequencer.model.Timeline;
-import dev.sequencer.validate.PlanValidator;
 import java.io.PrintWriter;
 import java.nio.file.Path;
 import java.util.List;
@@ -38,7 +37,7 @@ final class CheckCommand implements Callable<Integer> {
     ScenarioReader.Result r = ScenarioReader.read(scenario);
     Timeline t = TimelineFile.read(timeline);
     Pipeline p = Pipeline.of(r.scenario(), common.astro());
-    List<String> violations = PlanValidator.of(r.scenario(), p.windows(), p.transitions()).violations(t);
+    List<String> violations = p.violations(t);
     PrintWriter out = spec.commandLine().getOut();
     if (violations.isEmpty()) {
       out.println("valid: " + t.observations().size() + " observations, priority " + t.priority());

@@ -6,15 +6,11 @@ import dev.sequencer.model.Observation;
 import dev.sequencer.model.SolverSettings;
 import dev.sequencer.model.Timeline;
 import dev.sequencer.model.Unscheduled;
-import dev.sequencer.sequence.PlanningProblem;
-import dev.sequencer.sequence.Sequencer;
 import dev.sequencer.sequence.SequencerOptions;
 import dev.sequencer.sequence.SequencerResult;
-import dev.sequencer.validate.PlanValidator;
 import java.io.PrintWriter;
 import java.nio.file.Path;
 import java.time.Duration;
-import java.util.List;
 import java.util.Locale;
 import java.util.concurrent.Callable;
 import picocli.CommandLine.Command;
@@ -38,22 +34,17 @@ final class PlanCommand implements Callable<Integer> {
   @Option(names = {"-o", "--output"}, paramLabel = "FILE", description = "Write the timeline file here.")
   Path output;
 
-  @Option(names = "--time-limit", paramLabel = "SECONDS", description = "Wall-clock limit of the solver, "
-      + "seconds (a trailing 's' is allowed). Default: the scenario's, else 30.")
-  String timeLimit;
+  @Option(names = "--csv", paramLabel = "FILE", description = "Also write the plan as CSV, one line per observation.")
+  Path csv;
 
-  @Option(names = "--workers", paramLabel = "N", description = "Solver threads (default: the scenario's, else all cores).")
-  Integer workers;
+  @Option(names = "--plot", paramLabel = "PREFIX", description = "Also draw PREFIX-timeline.png/.svg and "
+      + "PREFIX-sky.png/.svg.")
+  String plot;
 
-  @Option(names = "--seed", paramLabel = "S", description = "Random seed (default: the scenario's, else 1).")
-  Integer seed;
+  @Option(names = "--plot-unscheduled", description = "Give the unscheduled requests rows in the timeline chart too.")
+  boolean plotUnscheduled;
 
-  @Option(names = "--solver", paramLabel = "cpsat|greedy", description = "cpsat (default) or the greedy baseline.")
-  String solver = "cpsat";
-
-  @Option(names = "--reproducible", description = "Deterministic work limit instead of wall clock: the same "
-      + "file, seed and workers give the same plan.")
-  boolean reproducible;
+  @Mixin SolverOptionsMixin solverOptions;
 
   @Mixin CommonOptionsMixin common;
 
@@ -65,52 +56,28 @@ final class PlanCommand implements Callable<Integer> {
     PrintWriter out = spec.commandLine().getOut();
     r.warnings().forEach(w -> out.println("warning: " + w));
     Pipeline p = Pipeline.of(r.scenario(), common.astro());
-    SequencerOptions options = options(r.scenario().solverOrDefaults(), out);
-    PlanningProblem problem = PlanningProblem.of(r.scenario(), p.windows(), p.transitions());
-    SequencerResult result = new Sequencer().plan(problem, options);
-    Timeline timeline = result.toTimeline();
-    List<String> violations = PlanValidator.of(r.scenario(), p.windows(), p.transitions()).violations(timeline);
-    if (!violations.isEmpty()) {
-      throw new IllegalStateException("the plan failed its re-check (a bug): " + violations);
-    }
-    print(out, result, timeline);
+    Pipeline.Planned planned = solve(p, solverOptions, r.scenario().solverOrDefaults(), out);
+    print(out, planned.result(), planned.timeline());
     if (output != null) {
-      TimelineFile.write(timeline, output);
+      TimelineFile.write(planned.timeline(), output);
       out.println("wrote " + output);
+    }
+    if (csv != null) {
+      PlanOutputs.csv(p, planned.timeline(), csv, out);
+    }
+    if (plot != null) {
+      PlanOutputs.plots(p, planned.timeline(), plot, plotUnscheduled, out);
     }
     return 0;
   }
 
-  private SequencerOptions options(SolverSettings fromFile, PrintWriter out) {
-    SequencerOptions o = SequencerOptions.from(fromFile);
-    if (timeLimit != null) {
-      String t = timeLimit.endsWith("s") ? timeLimit.substring(0, timeLimit.length() - 1) : timeLimit;
-      try {
-        o = o.withTimeLimitS(Double.parseDouble(t));
-      } catch (IllegalArgumentException e) {
-        throw new InputException("--time-limit: must be a number of seconds > 0 (was " + timeLimit + ")");
-      }
+  /** Plans {@code p} with the command-line options over {@code fromFile}, showing progress on {@code out}. */
+  static Pipeline.Planned solve(Pipeline p, SolverOptionsMixin o, SolverSettings fromFile, PrintWriter out) {
+    try (Progress progress = Progress.to(out, Progress.consoleAttached())) {
+      SequencerOptions options = o.options(fromFile, progress);
+      progress.start();
+      return p.plan(options);
     }
-    if (workers != null) {
-      if (workers < 0) {
-        throw new InputException("--workers: must be >= 0 (was " + workers + ")");
-      }
-      o = o.withWorkers(workers);
-    }
-    if (seed != null) {
-      o = o.withSeed(seed);
-    }
-    switch (solver.toLowerCase(Locale.ROOT)) {
-      case "cpsat" -> o = o.withSolver(SequencerOptions.Solver.CPSAT);
-      case "greedy" -> o = o.withSolver(SequencerOptions.Solver.GREEDY);
-      default -> throw new InputException("--solver: must be cpsat or greedy (was " + solver + ")");
-    }
-    if (reproducible) {
-      o = o.withReproducible(o.deterministicLimit());
-    }
-    return o.withListener((solutions, priority, transitionS, bound, elapsedS) -> out.printf(Locale.ROOT,
-        "  %6.1f s  solution %d: priority %.1f, slew %.0f s, bound %s%n", elapsedS, solutions, priority,
-        transitionS, Double.isNaN(bound) ? "-" : String.format(Locale.ROOT, "%.1f", bound)));
   }
 
   static void print(PrintWriter out, SequencerResult result, Timeline t) {

@@ -62,7 +62,7 @@ class CliTest {
 
   @Test
   void everyCommandHelpCarriesTheCaution() {
-    for (String cmd : List.of("inspect", "windows", "plan", "check")) {
+    for (String cmd : List.of("demo", "inspect", "windows", "plan", "check")) {
       Run r = run(cmd, "--help");
       assertEquals(0, r.code());
       assertTrue(r.out().contains("plans are advisory"), cmd + ": " + r.out());
@@ -100,5 +100,58 @@ class CliTest {
     // (Common practice: astronomical night at that latitude and season is about 10-11 h.)
     w.forEach(x -> assertTrue(x.totalS() <= 11 * 3600, x.id() + " " + x.totalS()));
     assertTrue(w.stream().anyMatch(x -> !x.intervals().isEmpty()));
+  }
+
+  @Test
+  void demoWritesTimelineWindowsCsvAndPicturesThatCheckAccepts(@TempDir Path dir) throws Exception {
+    Path out = dir.resolve("demo-out");
+    Run r = run("demo", "-o", out.toString(), "--solver", "greedy");
+    assertEquals(0, r.code(), r.out() + r.err());
+    assertTrue(r.out().contains("check: valid"), r.out());
+    for (String f : List.of("timeline.json", "windows.json", "plan.csv", "demo-timeline.png", "demo-timeline.svg",
+        "demo-sky.png", "demo-sky.svg")) {
+      assertTrue(Files.size(out.resolve(f)) > 0, f);
+      assertTrue(r.out().contains(out.resolve(f).toString()), "summary names " + f + ": " + r.out());
+    }
+    // PNG signature (ISO/IEC 15948, section 5.2) and an SVG root element.
+    byte[] png = Files.readAllBytes(out.resolve("demo-sky.png"));
+    assertEquals(0x89, png[0] & 0xff);
+    assertEquals("PNG", new String(png, 1, 3, java.nio.charset.StandardCharsets.US_ASCII));
+    assertTrue(Files.readString(out.resolve("demo-timeline.svg")).contains("<svg"));
+    // The written timeline passes the same re-check as the check command, from the copy in the jar.
+    Path scenario = dir.resolve("demo-night.json");
+    Files.copy(DEMO, scenario);
+    assertEquals(0, run("check", scenario.toString(), out.resolve("timeline.json").toString()).code());
+    // One CSV line per observation, in timeline order, each with 10 fields and the observation's start.
+    var timeline = dev.sequencer.io.TimelineFile.read(out.resolve("timeline.json"));
+    List<String> csv = Files.readAllLines(out.resolve("plan.csv"));
+    assertEquals(PlanCsv.HEADER, csv.get(0));
+    assertEquals(timeline.observations().size() + 1, csv.size());
+    for (int k = 0; k < timeline.observations().size(); k++) {
+      String[] f = csv.get(k + 1).split(",", -1);
+      var o = timeline.observations().get(k);
+      assertEquals(10, f.length, csv.get(k + 1));
+      assertEquals(o.id(), f[0]);
+      assertEquals(o.start().toString(), f[1]);
+      assertEquals(o.durationS(), Double.parseDouble(f[3]), 1e-3);
+      assertEquals(o.slewSeconds(), Double.parseDouble(f[4]), 1e-3);
+      // The site's elevation limit is 25 deg: every start pointing is above it (independent geometry).
+      assertTrue(Double.parseDouble(f[9]) >= 25 - 0.01, csv.get(k + 1));
+    }
+  }
+
+  @Test
+  void planWithOrbitingTargetsAndFixedSlewsWritesCsvAndPlots(@TempDir Path dir) throws Exception {
+    Path scenario = Path.of("src/main/resources/scenarios/satellite-tracking-night.json");
+    Run r = run("plan", scenario.toString(), "--solver", "greedy", "--csv", dir.resolve("p.csv").toString(),
+        "--plot", dir.resolve("p").toString());
+    assertEquals(0, r.code(), r.out() + r.err());
+    for (String f : List.of("p.csv", "p-timeline.png", "p-timeline.svg", "p-sky.png", "p-sky.svg")) {
+      assertTrue(Files.size(dir.resolve(f)) > 0, f);
+    }
+    List<String> csv = Files.readAllLines(dir.resolve("p.csv"));
+    assertTrue(csv.size() > 1, "no observation in " + csv);
+    // Orbiting targets from a ground site: az/el filled, and at least the 20 deg elevation limit.
+    csv.stream().skip(1).forEach(line -> assertTrue(Double.parseDouble(line.split(",", -1)[9]) >= 20 - 0.01, line));
   }
 }

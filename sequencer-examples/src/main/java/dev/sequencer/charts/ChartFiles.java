@@ -1,0 +1,45 @@
+package dev.sequencer.charts;
+
+import dev.sequencer.io.AtomicFiles;
+import java.awt.Rectangle;
+import java.io.ByteArrayOutputStream;
+import java.io.IOException;
+import java.io.UncheckedIOException;
+import java.nio.charset.StandardCharsets;
+import java.nio.file.Path;
+import org.jfree.chart.ChartUtils;
+import org.jfree.chart.JFreeChart;
+import org.jfree.svg.SVGGraphics2D;
+
+/** Writes a chart as PNG (JFreeChart's encoder) and SVG (JFreeSVG), each atomically. */
+public final class ChartFiles {
+  private ChartFiles() {}
+
+  static {
+    // Charts are drawn off screen; never try to open a display (CI machines and servers have none).
+    System.setProperty("java.awt.headless", "true");
+  }
+
+  /** Makes sure AWT runs headless; call before creating any chart. */
+  public static void headless() {
+    // the static initialiser above does the work; this method only forces it to run
+  }
+
+  /** Writes {@code chart} as a {@code widthPx} x {@code heightPx} PNG to {@code file}. */
+  public static void png(JFreeChart chart, int widthPx, int heightPx, Path file) {
+    ByteArrayOutputStream bytes = new ByteArrayOutputStream();
+    try {
+      ChartUtils.writeChartAsPNG(bytes, chart, widthPx, heightPx);
+    } catch (IOException e) {
+      throw new UncheckedIOException("cannot encode " + file, e);
+    }
+    AtomicFiles.writeBytes(file, bytes.toByteArray());
+  }
+
+  /** Writes {@code chart} as a {@code widthPx} x {@code heightPx} SVG document to {@code file}. */
+  public static void svg(JFreeChart chart, int widthPx, int heightPx, Path file) {
+    SVGGraphics2D g = new SVGGraphics2D(widthPx, heightPx);
+    chart.draw(g, new Rectangle(0, 0, widthPx, heightPx));
+    AtomicFiles.writeBytes(file, g.getSVGDocument().getBytes(StandardCharsets.UTF_8));
+  }
+}

@@ -1,0 +1,89 @@
+package dev.sequencer.cli;
+
+import dev.sequencer.io.ScenarioReader;
+import dev.sequencer.io.TimelineFile;
+import dev.sequencer.io.WindowsFile;
+import dev.sequencer.model.SolverSettings;
+import java.io.IOException;
+import java.io.InputStream;
+import java.io.PrintWriter;
+import java.io.UncheckedIOException;
+import java.nio.file.Files;
+import java.nio.file.Path;
+import java.util.List;
+import java.util.concurrent.Callable;
+import picocli.CommandLine.Command;
+import picocli.CommandLine.Mixin;
+import picocli.CommandLine.Option;
+import picocli.CommandLine.Spec;
+import picocli.CommandLine.Model.CommandSpec;
+
+/** {@code sequencer demo}: plans the bundled demo night end to end and writes every output into one folder. */
+@Command(
+    name = "demo",
+    mixinStandardHelpOptions = true,
+    description = {"Run the bundled demo night (an invented site and 40 invented fields) end to end: "
+        + "visibility windows, plan, re-check. Writes the timeline and windows JSON, a CSV and the timeline "
+        + "and sky pictures (PNG and SVG) into DIR and prints the summary."},
+    footer = {"", Caution.TEXT})
+final class DemoCommand implements Callable<Integer> {
+  /** Classpath location of the bundled scenario. */
+  static final String SCENARIO = "/scenarios/demo-night.json";
+  /** Solver limit when neither the scenario nor --time-limit asks for less, seconds. */
+  static final double DEFAULT_TIME_LIMIT_S = 10;
+
+  @Option(names = {"-o", "--output-dir"}, paramLabel = "DIR", description = "Where to write (default: ./demo-out).")
+  Path dir = Path.of("demo-out");
+
+  @Mixin SolverOptionsMixin solverOptions;
+
+  @Mixin CommonOptionsMixin common;
+
+  @Spec CommandSpec spec;
+
+  @Override
+  public Integer call() {
+    PrintWriter out = spec.commandLine().getOut();
+    ScenarioReader.Result r;
+    try (InputStream in = DemoCommand.class.getResourceAsStream(SCENARIO)) {
+      if (in == null) {
+        throw new IllegalStateException("the bundled scenario " + SCENARIO + " is missing from the jar");
+      }
+      r = ScenarioReader.read(in);
+    } catch (IOException e) {
+      throw new UncheckedIOException(e);
+    }
+    r.warnings().forEach(w -> out.println("warning: " + w));
+    out.println("demo: " + r.scenario().name());
+    try {
+      Files.createDirectories(dir);
+    } catch (IOException e) {
+      throw new UncheckedIOException(e);
+    }
+    Pipeline p = Pipeline.of(r.scenario(), common.astro());
+    long visible = p.windows().stream().filter(w -> !w.intervals().isEmpty()).count();
+    out.println("windows: " + visible + " of " + p.windows().size() + " requests visible");
+    Path windowsFile = dir.resolve("windows.json");
+    WindowsFile.write(p.windows(), windowsFile);
+
+    SolverSettings fromFile = r.scenario().solverOrDefaults();
+    fromFile = fromFile.withTimeLimitS(Math.min(fromFile.timeLimitS(), DEFAULT_TIME_LIMIT_S));
+    Pipeline.Planned planned = PlanCommand.solve(p, solverOptions, fromFile, out);
+    PlanCommand.print(out, planned.result(), planned.timeline());
+
+    Path timelineFile = dir.resolve("timeline.json");
+    TimelineFile.write(planned.timeline(), timelineFile);
+    // The same re-check as `sequencer check`, on the file as written (catches a lossy round trip).
+    List<String> violations = p.violations(TimelineFile.read(timelineFile));
+    if (!violations.isEmpty()) {
+      throw new IllegalStateException("the written timeline failed its re-check (a bug): " + violations);
+    }
+    out.println("check: valid (" + planned.timeline().observations().size() + " observations re-checked)");
+    out.println("wrote " + windowsFile);
+    out.println("wrote " + timelineFile);
+    PlanOutputs.csv(p, planned.timeline(), dir.resolve("plan.csv"), out);
+    PlanOutputs.plots(p, planned.timeline(), dir.resolve("demo").toString(), false, out);
+    out.println("open " + dir.resolve("demo-timeline.png") + " and " + dir.resolve("demo-sky.png") + " to look at the night");
+    return 0;
+  }
+}

@@ -1,0 +1,65 @@
+package dev.sequencer.cli;
+
+import dev.sequencer.charts.PlanGeometry;
+import dev.sequencer.io.AtomicFiles;
+import dev.sequencer.model.AzEl;
+import dev.sequencer.model.Observation;
+import dev.sequencer.model.RaDec;
+import dev.sequencer.model.Request;
+import dev.sequencer.model.Timeline;
+import java.nio.file.Path;
+import java.util.Locale;
+import java.util.Optional;
+
+/**
+ * The plan as CSV for spreadsheets: a header, then one line per observation in time order with id,
+ * start and end (ISO-8601 UTC), duration and transition before it (seconds), priority, and the pointing at
+ * the start (RA/Dec, and azimuth/elevation at a ground site; empty cells where {@link PlanGeometry} gives
+ * none). Comma separated, '.' decimals; ids containing a comma, quote or line break are quoted (RFC 4180).
+ */
+final class PlanCsv {
+  static final String HEADER = "id,start,end,duration_s,transition_before_s,priority,ra_deg,dec_deg,azimuth_deg,elevation_deg";
+
+  private PlanCsv() {}
+
+  /** The CSV text, header first, lines ending in "\n". */
+  static String toCsv(Timeline t, PlanGeometry g) {
+    StringBuilder b = new StringBuilder(HEADER).append('\n');
+    for (Observation o : t.observations()) {
+      Optional<Request> r = g.scenario().request(o.id());
+      Optional<RaDec> rd = r.flatMap(x -> g.raDec(x, o.start()));
+      Optional<AzEl> ae = r.flatMap(x -> g.azEl(x, o.start()));
+      Double priority = r.map(Request::priority).orElse(null);
+      b.append(quote(o.id())).append(',').append(o.start()).append(',').append(o.end()).append(',')
+          .append(num(o.durationS(), 3)).append(',').append(num(o.slewSeconds(), 3)).append(',')
+          .append(priority == null ? "" : num(priority, 6)).append(',')
+          .append(rd.map(p -> num(p.raDeg(), 5)).orElse("")).append(',')
+          .append(rd.map(p -> num(p.decDeg(), 5)).orElse("")).append(',')
+          .append(ae.map(p -> num(p.azimuthDeg(), 4)).orElse("")).append(',')
+          .append(ae.map(p -> num(p.elevationDeg(), 4)).orElse("")).append('\n');
+    }
+    return b.toString();
+  }
+
+  /** Writes the CSV to {@code file} atomically (temporary file, then move). */
+  static void write(Timeline t, PlanGeometry g, Path file) {
+    AtomicFiles.writeUtf8(file, toCsv(t, g));
+  }
+
+  private static String num(double v, int decimals) {
+    String s = String.format(Locale.ROOT, "%." + decimals + "f", v);
+    // Trim trailing zeros so whole seconds read as "600", not "600.000".
+    if (s.contains(".")) {
+      s = s.replaceAll("0+$", "");
+      s = s.endsWith(".") ? s.substring(0, s.length() - 1) : s;
+    }
+    return s.equals("-0") ? "0" : s;
+  }
+
+  private static String quote(String s) {
+    if (s.contains(",") || s.contains("\"") || s.contains("\n") || s.contains("\r")) {
+      return "\"" + s.replace("\"", "\"\"") + "\"";
+    }
+    return s;
+  }
+}
