@@ -2,6 +2,7 @@ package dev.sequencer.cli;
 
 import dev.sequencer.io.Problem;
 import dev.sequencer.io.ScenarioException;
+import dev.sequencer.sequence.NativeSolver;
 import java.io.PrintWriter;
 import java.io.UncheckedIOException;
 import java.nio.file.NoSuchFileException;
@@ -40,6 +41,10 @@ final class Failures implements IExecutionExceptionHandler {
     if (t instanceof InputException ie) {
       err.println(ie.getMessage());
       return SequencerCli.EXIT_INVALID_INPUT;
+    }
+    if (t instanceof NativeSolver.Unavailable nu) {
+      err.println(nu.getMessage());
+      return SequencerCli.EXIT_INTERNAL;
     }
     err.println("internal error (please report it): " + t);
     if ("1".equals(System.getenv("SEQUENCER_DEBUG"))) {

@@ -29,7 +29,9 @@ import picocli.CommandLine.Model.CommandSpec;
     name = "plan",
     mixinStandardHelpOptions = true,
     description = {"Plan a scenario: visibility, slews, then the subset, order and start times that collect "
-        + "the most priority (then the least slew). Every plan is re-checked before it is written."},
+        + "the most priority (then the least slew). Every plan is re-checked before it is written.",
+        "Exit 0 with a plan; 1 when there is none (INFEASIBLE: the conflicting required requests are listed; "
+            + "NO_SOLUTION_IN_TIME); 2 on invalid input; 3 on an internal error or a missing native solver."},
     footer = {"", Caution.TEXT})
 final class PlanCommand implements Callable<Integer> {
   @Parameters(index = "0", paramLabel = "SCENARIO.json", description = "The scenario file.")
@@ -64,6 +66,7 @@ final class PlanCommand implements Callable<Integer> {
     ScenarioReader.Result r = ScenarioReader.read(scenario);
     PrintWriter out = spec.commandLine().getOut();
     r.warnings().forEach(w -> out.println("warning: " + w));
+    PlanInputs.check(r.scenario(), scenario.toString());
     Pipeline p = Pipeline.of(r.scenario(), common.astro());
     SequencerOptions options = options(r.scenario().solverOrDefaults(), out);
     PlanningProblem problem = PlanningProblem.of(r.scenario(), p.windows(), p.transitions());
@@ -78,7 +81,7 @@ final class PlanCommand implements Callable<Integer> {
       TimelineFile.write(timeline, output);
       out.println("wrote " + output);
     }
-    return 0;
+    return NoPlan.report(result, out);
   }
 
   private SequencerOptions options(SolverSettings fromFile, PrintWriter out) {
