@@ -19,7 +19,7 @@ public final class NativeSolver {
   public static final class Unavailable extends IllegalStateException {
     private static final long serialVersionUID = 1L;
 
-    Unavailable(String message, Throwable cause) {
+    public Unavailable(String message, Throwable cause) {
       super(message, cause);
     }
   }

@@ -21,6 +21,10 @@ final class Failures implements IExecutionExceptionHandler {
     PrintWriter err = cl.getErr();
     Throwable t = ex;
     if (t instanceof UncheckedIOException u && u.getCause() != null) {
+      if (u.getMessage() != null && u.getMessage().startsWith("cannot write ")) {
+        err.println(u.getMessage() + ": " + Outputs.why(u.getCause()));
+        return SequencerCli.EXIT_INVALID_INPUT;
+      }
       t = u.getCause();
     }
     if (t instanceof ScenarioException se) {

@@ -54,7 +54,8 @@ final class PlanCommand implements Callable<Integer> {
   String solver = "cpsat";
 
   @Option(names = "--reproducible", description = "Deterministic work limit instead of wall clock: the same "
-      + "file, seed and workers give the same plan.")
+      + "file, seed and workers give the same plan. With --time-limit, the limit becomes the work budget in "
+      + "CP-SAT's deterministic units (the wall time then varies with the machine).")
   boolean reproducible;
 
   @Mixin CommonOptionsMixin common;
@@ -67,12 +68,16 @@ final class PlanCommand implements Callable<Integer> {
     PrintWriter out = spec.commandLine().getOut();
     r.warnings().forEach(w -> out.println("warning: " + w));
     PlanInputs.check(r.scenario(), scenario.toString());
+    Outputs.checkFolder("--output", output);
     Pipeline p = Pipeline.of(r.scenario(), common.astro());
     SequencerOptions options = options(r.scenario().solverOrDefaults(), out);
     PlanningProblem problem = PlanningProblem.of(r.scenario(), p.windows(), p.transitions());
     SequencerResult result = new Sequencer().plan(problem, options);
     Timeline timeline = result.toTimeline();
-    List<String> violations = PlanValidator.of(r.scenario(), p.windows(), p.transitions()).violations(timeline);
+    // A result without a plan (INFEASIBLE, NO_SOLUTION_IN_TIME) has nothing to re-check: its required
+    // requests are missing by definition.
+    List<String> violations = !result.hasPlan() ? List.of()
+        : PlanValidator.of(r.scenario(), p.windows(), p.transitions()).violations(timeline);
     if (!violations.isEmpty()) {
       throw new IllegalStateException("the plan failed its re-check (a bug): " + violations);
     }
@@ -109,7 +114,7 @@ final class PlanCommand implements Callable<Integer> {
       default -> throw new InputException("--solver: must be cpsat or greedy (was " + solver + ")");
     }
     if (reproducible) {
-      o = o.withReproducible(o.deterministicLimit());
+      o = o.withReproducible(timeLimit != null ? o.timeLimitS() : o.deterministicLimit());
     }
     return o.withListener((solutions, priority, transitionS, bound, elapsedS) -> out.printf(Locale.ROOT,
         "  %6.1f s  solution %d: priority %.1f, slew %.0f s, bound %s%n", elapsedS, solutions, priority,
