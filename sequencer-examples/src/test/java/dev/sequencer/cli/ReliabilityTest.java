@@ -97,6 +97,32 @@ class ReliabilityTest {
   }
 
   @Test
+  void anAbsurdPriorityIsRefusedByPlanWithItsPath(@TempDir Path dir) {
+    // Found by CliMutationProperties: priority 1e308 overflowed CP-SAT's integer objective (exit 3).
+    ObjectNode sc = Synthetic.windowsOnly(Synthetic.base(NIGHT, 3, 6), 2, new Random(4));
+    ((ObjectNode) sc.get("requests").get(0)).put("priority", 1e308);
+    Path s = Synthetic.write(sc, dir.resolve("huge.json"));
+    for (String solver : List.of("cpsat", "greedy")) {
+      Runs.Run r = Runs.run("plan", s.toString(), "--solver", solver, "--time-limit", "1");
+      Runs.assertNoStackTrace(r);
+      assertEquals(2, r.code(), r::all);
+      assertTrue(r.err().contains("requests[0] (id \"S1\").priority: the planner takes priorities up to 1e9"),
+          r::all);
+    }
+  }
+
+  @Test
+  void fractionalDurationsAreRefusedByPlanWithTheirPath(@TempDir Path dir) {
+    ObjectNode sc = Synthetic.windowsOnly(Synthetic.base(NIGHT, 3, 6), 2, new Random(4));
+    ((ObjectNode) sc.get("requests").get(1)).put("durationS", 600.5);
+    Runs.Run r = Runs.run("plan", Synthetic.write(sc, dir.resolve("frac.json")).toString(), "--time-limit", "1");
+    Runs.assertNoStackTrace(r);
+    assertEquals(2, r.code(), r::all);
+    assertTrue(r.err().contains("requests[1] (id \"S2\").durationS: the planner needs a whole number of seconds"),
+        r::all);
+  }
+
+  @Test
   void serialisationFailureLeavesTheExistingFileUntouched(@TempDir Path dir) throws Exception {
     Path target = dir.resolve("timeline.json");
     Files.writeString(target, "previous contents\n");
