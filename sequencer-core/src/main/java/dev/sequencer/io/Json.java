@@ -10,9 +10,11 @@ import com.fasterxml.jackson.databind.json.JsonMapper;
 import java.io.IOException;
 import java.io.InputStream;
 import java.io.UncheckedIOException;
+import java.nio.charset.CharacterCodingException;
 import java.nio.charset.StandardCharsets;
 import java.nio.file.Files;
 import java.nio.file.Path;
+import java.util.List;
 
 /**
  * Text to JSON tree. NaN and Infinity are accepted by the parser so that the readers can report them
@@ -50,9 +52,13 @@ final class Json {
     return root;
   }
 
+  /** The file's text; a file that is not UTF-8 is bad input (a {@link ScenarioException}), not an I/O error. */
   static String read(Path file) {
     try {
       return Files.readString(file, StandardCharsets.UTF_8);
+    } catch (CharacterCodingException e) {
+      throw new ScenarioException(file.toString(), List.of(new Problem("",
+          "not valid UTF-8 text (JSON files must be UTF-8; was it saved in another encoding?)", null)));
     } catch (IOException e) {
       throw new UncheckedIOException("cannot read " + file, e);
     }

@@ -23,9 +23,14 @@ final class JsonOut {
 
   /**
    * A number node that reads back to exactly {@code v}: whole values below 2^53 as integers (600, not
-   * 600.0), others in Java's shortest round-trip form; -0.0 stays -0.0.
+   * 600.0), others in Java's shortest round-trip form; -0.0 stays -0.0. NaN and infinities are refused
+   * with an {@link IllegalArgumentException}.
    */
   static JsonNode number(double v) {
+    if (!Double.isFinite(v)) {
+      // JSON has no NaN or Infinity; refusing here keeps an existing output file intact (nothing is written).
+      throw new IllegalArgumentException("cannot write the non-finite number " + v + " as JSON");
+    }
     boolean negativeZero = v == 0 && Double.doubleToRawLongBits(v) != 0;
     if (v == Math.rint(v) && Math.abs(v) < 0x1p53 && !negativeZero) {
       return LongNode.valueOf((long) v);

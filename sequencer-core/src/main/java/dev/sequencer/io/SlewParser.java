@@ -43,7 +43,7 @@ final class SlewParser {
     String path = top.path("slew");
     JsonNode modelNode = n.get("model");
     String model = modelNode != null && modelNode.isTextual() ? modelNode.textValue() : null;
-    List<String> allowed = MODELS.get(model);
+    List<String> allowed = model == null ? null : MODELS.get(model); // Map.of rejects a null key
     if (allowed == null) {
       Set<String> all = new LinkedHashSet<>();
       MODEL_NAMES.forEach(m -> all.addAll(MODELS.get(m)));
@@ -53,7 +53,7 @@ final class SlewParser {
     if (f == null) {
       return null;
     }
-    if (!MODELS.containsKey(model)) {
+    if (model == null || !MODELS.containsKey(model)) {
       JsonNode m = f.get("model", true);
       if (m != null) {
         String hint = m.isTextual() ? Suggest.hint(m.textValue(), MODEL_NAMES) : "";

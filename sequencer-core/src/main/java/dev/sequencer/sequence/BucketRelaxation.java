@@ -28,7 +28,7 @@ final class BucketRelaxation {
   private static final int TARGET_ENTRIES = 150_000;
 
   static {
-    com.google.ortools.Loader.loadNativeLibraries();
+    NativeSolver.ensureLoaded();
   }
 
   private BucketRelaxation() {}

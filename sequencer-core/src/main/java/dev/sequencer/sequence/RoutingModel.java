@@ -85,7 +85,7 @@ final class RoutingModel {
   private final PriorityScale scale;
 
   static {
-    com.google.ortools.Loader.loadNativeLibraries();
+    NativeSolver.ensureLoaded();
   }
 
   RoutingModel(PlanningProblem problem, ArcCosts arcs, PriorityScale scale) {

@@ -65,10 +65,11 @@ public final class Sequencer {
     }
 
     SequencerResult execute() {
-      for (Task t : problem.tasks()) {
-        if (t.required() && !t.schedulable()) {
-          return infeasible("required request " + t.id() + " cannot be scheduled: " + t.emptyReason(), 0, 0);
-        }
+      if (options.solver() == SequencerOptions.Solver.CPSAT) {
+        NativeSolver.ensureLoaded(); // fails with a clear message on an unsupported platform
+      }
+      if (problem.tasks().stream().anyMatch(t -> t.required() && !t.schedulable())) {
+        return infeasible("", 0, 0);
       }
       long b0 = System.nanoTime();
       arcs = new ArcCosts(problem);
@@ -197,6 +198,12 @@ public final class Sequencer {
 
     private double relaxation(double timeLimitS) {
       if (timeLimitS <= 0) {
+        return Double.NaN;
+      }
+      try {
+        NativeSolver.ensureLoaded();
+      } catch (NativeSolver.Unavailable e) {
+        notes.append("no LP bound: the native solver is unavailable on this platform. ");
         return Double.NaN;
       }
       return BucketRelaxation.bound(problem, arcs, timeLimitS);
@@ -341,12 +348,23 @@ public final class Sequencer {
       return out;
     }
 
-    private SequencerResult infeasible(String message, long arcsKept, double solveS) {
+    /**
+     * INFEASIBLE with the conflicting required requests ({@link RequiredConflicts}) in the message, which
+     * starts with {@code proof} when given. The search gets the time left, at least 1 s, at most 10 s.
+     */
+    private SequencerResult infeasible(String proof, long arcsKept, double solveS) {
+      if (arcs == null) {
+        arcs = new ArcCosts(problem);
+      }
+      double budgetS = Math.min(10, Math.max(1, remainingS()));
+      RequiredConflicts.Explanation why = new RequiredConflicts(problem, arcs, options.seed(), options.reproducible())
+          .explain(options.reproducible() ? Math.min(budgetS, options.deterministicLimit()) : budgetS);
+      String message = proof.isEmpty() ? why.message() : proof + "; " + why.message();
       Stats stats = new Stats(arcsKept, arcs == null ? 0 : arcs.feasibleArcCount(), 0, solveS, solutions, 0, 0,
           Double.NaN, 0, 0, notes.toString().trim());
       return new SequencerResult(PlanStatus.INFEASIBLE, List.of(), 0, 0, Double.NaN, Double.NaN,
           unscheduled(new boolean[problem.size()], "not planned: the required requests are infeasible"), stats,
-          message);
+          message, why.conflicts());
     }
 
     private SequencerResult noPlan(String message, long arcsKept, double buildS, double solveS) {

@@ -14,7 +14,9 @@ import java.util.List;
  *
  * <p>{@code boundPriority} is {@code Double.NaN} when nothing was proven. {@code gap} = (bound −
  * priority) / bound, 0 when optimal, {@code NaN} without a bound. {@code message} explains
- * INFEASIBLE and NO_SOLUTION_IN_TIME in words ({@code ""} otherwise).
+ * INFEASIBLE and NO_SOLUTION_IN_TIME in words ({@code ""} otherwise). {@code conflicts}: for INFEASIBLE,
+ * the required requests that cannot all be scheduled and why ({@link RequiredConflicts}); empty otherwise
+ * or when no conflicting set could be singled out in time.
  */
 public record SequencerResult(
     PlanStatus status,
@@ -25,7 +27,8 @@ public record SequencerResult(
     double gap,
     List<Unscheduled> unscheduled,
     Stats stats,
-    String message) {
+    String message,
+    List<RequiredConflicts.Conflict> conflicts) {
 
   /** One scheduled request: start and end (instants and seconds from the horizon start) and the exact transition before it. */
   public record Planned(String id, Instant start, Instant end, long startS, long endS, double transitionS) {}
@@ -52,6 +55,15 @@ public record SequencerResult(
   public SequencerResult {
     observations = List.copyOf(observations);
     unscheduled = List.copyOf(unscheduled);
+    conflicts = List.copyOf(conflicts);
+  }
+
+  /** A result without conflicts (every status but INFEASIBLE). */
+  public SequencerResult(PlanStatus status, List<Planned> observations, double totalPriority,
+      double totalTransitionS, double boundPriority, double gap, List<Unscheduled> unscheduled, Stats stats,
+      String message) {
+    this(status, observations, totalPriority, totalTransitionS, boundPriority, gap, unscheduled, stats, message,
+        List.of());
   }
 
   /** True when the result carries a plan (OPTIMAL or FEASIBLE). */

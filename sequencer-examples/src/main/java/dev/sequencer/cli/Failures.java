@@ -2,6 +2,7 @@ package dev.sequencer.cli;
 
 import dev.sequencer.io.Problem;
 import dev.sequencer.io.ScenarioException;
+import dev.sequencer.sequence.NativeSolver;
 import java.io.PrintWriter;
 import java.io.UncheckedIOException;
 import java.nio.file.NoSuchFileException;
@@ -20,6 +21,10 @@ final class Failures implements IExecutionExceptionHandler {
     PrintWriter err = cl.getErr();
     Throwable t = ex;
     if (t instanceof UncheckedIOException u && u.getCause() != null) {
+      if (u.getMessage() != null && u.getMessage().startsWith("cannot write ")) {
+        err.println(u.getMessage() + ": " + Outputs.why(u.getCause()));
+        return SequencerCli.EXIT_INVALID_INPUT;
+      }
       t = u.getCause();
     }
     if (t instanceof ScenarioException se) {
@@ -40,6 +45,10 @@ final class Failures implements IExecutionExceptionHandler {
     if (t instanceof InputException ie) {
       err.println(ie.getMessage());
       return SequencerCli.EXIT_INVALID_INPUT;
+    }
+    if (t instanceof NativeSolver.Unavailable nu) {
+      err.println(nu.getMessage());
+      return SequencerCli.EXIT_INTERNAL;
     }
     err.println("internal error (please report it): " + t);
     if ("1".equals(System.getenv("SEQUENCER_DEBUG"))) {

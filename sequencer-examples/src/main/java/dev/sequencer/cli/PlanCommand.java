@@ -25,7 +25,9 @@ import picocli.CommandLine.Model.CommandSpec;
     name = "plan",
     mixinStandardHelpOptions = true,
     description = {"Plan a scenario: visibility, slews, then the subset, order and start times that collect "
-        + "the most priority (then the least slew). Every plan is re-checked before it is written."},
+        + "the most priority (then the least slew). Every plan is re-checked before it is written.",
+        "Exit 0 with a plan; 1 when there is none (INFEASIBLE: the conflicting required requests are listed; "
+            + "NO_SOLUTION_IN_TIME); 2 on invalid input; 3 on an internal error or a missing native solver."},
     footer = {"", Caution.TEXT})
 final class PlanCommand implements Callable<Integer> {
   @Parameters(index = "0", paramLabel = "SCENARIO.json", description = "The scenario file.")
@@ -55,6 +57,8 @@ final class PlanCommand implements Callable<Integer> {
     ScenarioReader.Result r = ScenarioReader.read(scenario);
     PrintWriter out = spec.commandLine().getOut();
     r.warnings().forEach(w -> out.println("warning: " + w));
+    PlanInputs.check(r.scenario(), scenario.toString());
+    Outputs.checkFolder("--output", output);
     Pipeline p = Pipeline.of(r.scenario(), common.astro());
     Pipeline.Planned planned = solve(p, solverOptions, r.scenario().solverOrDefaults(), out);
     print(out, planned.result(), planned.timeline());
@@ -68,7 +72,7 @@ final class PlanCommand implements Callable<Integer> {
     if (plot != null) {
       PlanOutputs.plots(p, planned.timeline(), plot, plotUnscheduled, out);
     }
-    return 0;
+    return NoPlan.report(planned.result(), out);
   }
 
   /** Plans {@code p} with the command-line options over {@code fromFile}, showing progress on {@code out}. */

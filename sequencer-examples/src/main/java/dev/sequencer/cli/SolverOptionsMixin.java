@@ -22,7 +22,8 @@ final class SolverOptionsMixin {
   String solver = "cpsat";
 
   @Option(names = "--reproducible", description = "Deterministic work limit instead of wall clock: the same "
-      + "file, seed and workers give the same plan.")
+      + "file, seed and workers give the same plan. With --time-limit, the limit becomes the work budget in "
+      + "CP-SAT's deterministic units (the wall time then varies with the machine).")
   boolean reproducible;
 
   /** The scenario's settings overridden by the options given, reporting progress to {@code listener}. */
@@ -51,7 +52,8 @@ final class SolverOptionsMixin {
       default -> throw new InputException("--solver: must be cpsat or greedy (was " + solver + ")");
     }
     if (reproducible) {
-      o = o.withReproducible(o.deterministicLimit());
+      // With --time-limit, the limit becomes the work budget in CP-SAT's deterministic units.
+      o = o.withReproducible(timeLimit != null ? o.timeLimitS() : o.deterministicLimit());
     }
     return o.withListener(listener);
   }
