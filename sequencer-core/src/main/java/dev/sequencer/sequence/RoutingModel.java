@@ -216,12 +216,9 @@ final class RoutingModel {
     private void addBucketLiterals(Task t, long[][] dom, BoolVar p, IntVar s) {
       java.util.TreeMap<Integer, BoolVar> lits = new java.util.TreeMap<>();
       java.util.TreeMap<Integer, long[]> spans = new java.util.TreeMap<>();
-      for (long[] part : dom) {
-        for (int q = buckets.bucket(part[0]); q <= buckets.bucket(part[1]); q++) {
-          long lo = Math.max(part[0], buckets.lo(q));
-          long hi = Math.min(part[1], buckets.hi(q));
-          spans.merge(q, new long[] {lo, hi}, (x, y) -> new long[] {Math.min(x[0], y[0]), Math.max(x[1], y[1])});
-        }
+      List<long[]> parts = TimeBuckets.partition(dom);
+      for (int q = 0; q < parts.size(); q++) {
+        spans.put(q, parts.get(q));
       }
       List<BoolVar> all = new ArrayList<>();
       for (var e : spans.entrySet()) {
@@ -622,9 +619,9 @@ final class RoutingModel {
         model.addHint(present.get(a), in[a]);
         model.addHint(startS.get(a), in[a] ? hs[a] : earliest(a));
         if (buckets != null) {
-          int q = buckets.bucket(hs[a]);
           for (var e : inBucket.get(a).entrySet()) {
-            model.addHint(e.getValue(), in[a] && e.getKey() == q);
+            long[] span = bucketSpan.get(a).get(e.getKey());
+            model.addHint(e.getValue(), in[a] && hs[a] >= span[0] && hs[a] <= span[1]);
           }
         }
       }

@@ -232,6 +232,63 @@ public final class Sequencer {
       return true;
     }
 
+    /**
+     * For slew models whose exact legs may exceed the model bound (see
+     * {@link Transitions#exactMayExceedBound}): drops, in time order, every optional observation whose exact
+     * leg at the model times does not fit before its start, re-evaluating the later legs without it.
+     */
+    private Plan dropLegsBeyondMountLimits(Plan plan) {
+      List<Integer> order = new ArrayList<>();
+      List<Long> starts = new ArrayList<>();
+      int dropped = 0;
+      for (int q = 0; q < plan.size(); q++) {
+        order.add(plan.order()[q]);
+        starts.add(plan.startS()[q]);
+        if (lastLegFits(order, starts)) {
+          continue;
+        }
+        // The mount may have run out of cable wrap while following the previous observation: try without
+        // that one first (when it is optional), else without the new one.
+        int n = order.size();
+        if (n >= 2 && !problem.tasks().get(order.get(n - 2)).required()) {
+          List<Integer> o2 = new ArrayList<>(order);
+          List<Long> s2 = new ArrayList<>(starts);
+          o2.remove(n - 2);
+          s2.remove(n - 2);
+          if (lastLegFits(o2, s2)) {
+            order = o2;
+            starts = s2;
+            dropped++;
+            continue;
+          }
+        }
+        if (!problem.tasks().get(order.get(n - 1)).required()) {
+          order.remove(n - 1);
+          starts.remove(n - 1);
+          dropped++;
+        }
+      }
+      if (dropped > 0) {
+        notes.append(dropped).append(" observation(s) dropped: the mount's cable wrap could not follow them "
+            + "at the model's times. ");
+      }
+      return new Plan(order.stream().mapToInt(Integer::intValue).toArray(),
+          starts.stream().mapToLong(Long::longValue).toArray());
+    }
+
+    /** True when the exact leg into the last observation of the sequence fits before its start. */
+    private boolean lastLegFits(List<Integer> order, List<Long> starts) {
+      int n = order.size();
+      double[] dep = new double[n];
+      double[] arr = new double[n];
+      for (int i = 0; i < n; i++) {
+        dep[i] = i == 0 ? 0 : starts.get(i - 1) + problem.tasks().get(order.get(i - 1)).durationS();
+        arr[i] = starts.get(i);
+      }
+      double leg = problem.transitions().exactS(order.stream().mapToInt(Integer::intValue).toArray(), dep, arr)[n - 1];
+      return dep[n - 1] + leg <= arr[n - 1] + 1e-9;
+    }
+
     /** The exact leg q of the plan's prefix when request q starts at {@code startS}. */
     private double legAt(Transitions tr, int[] order, double[] departure, double[] arrival, int q, long startS) {
       arrival[q] = startS;
@@ -264,19 +321,30 @@ public final class Sequencer {
     private SequencerResult finish(PlanStatus status, Plan plan, double bound, double relaxationBound,
         long arcsKept, double buildS, double solveS, int lnsRounds, int lnsImprovements) {
       Transitions tr = problem.transitions();
+      if (tr.exactMayExceedBound()) {
+        plan = dropLegsBeyondMountLimits(plan);
+      }
       int m = plan.size();
+      int[] keptOrder = new int[m];
       long[] start = new long[m];
       double[] exact = new double[m];
       double[] departure = new double[m];
       double[] arrival = new double[m];
       long prevEnd = 0;
       long shift = 0;
+      int kept = 0;
+      int lost = 0;
       for (int q = 0; q < m; q++) {
         Task t = problem.tasks().get(plan.order()[q]);
-        departure[q] = prevEnd;
+        keptOrder[kept] = plan.order()[q];
+        departure[kept] = prevEnd;
         long s = plan.startS()[q];
-        double leg = legAt(tr, plan.order(), departure, arrival, q, s);
+        double leg = legAt(tr, keptOrder, departure, arrival, kept, s);
         if (!(prevEnd + leg <= s + 1e-9)) {
+          if (tr.exactMayExceedBound() && !t.required()) {
+            lost++; // the mount cannot follow (cable wrap): leave this one out
+            continue;
+          }
           throw new IllegalStateException("request " + t.id() + ": exact transition " + leg + " s departing at "
               + prevEnd + " s does not fit before the model start " + s + " s (a bug: the transition bound "
               + "must never be below the exact time)");
@@ -286,7 +354,7 @@ public final class Sequencer {
           if (candidate < 0 || candidate >= s) {
             break;
           }
-          double candidateLeg = legAt(tr, plan.order(), departure, arrival, q, candidate);
+          double candidateLeg = legAt(tr, keptOrder, departure, arrival, kept, candidate);
           if (!(prevEnd + candidateLeg <= candidate + 1e-9)) {
             break;
           }
@@ -294,11 +362,18 @@ public final class Sequencer {
           leg = candidateLeg;
         }
         shift += plan.startS()[q] - s;
-        start[q] = s;
-        arrival[q] = s;
-        exact[q] = leg;
+        start[kept] = s;
+        arrival[kept] = s;
+        exact[kept] = leg;
         prevEnd = s + t.durationS();
+        kept++;
       }
+      if (lost > 0) {
+        notes.append(lost).append(" observation(s) left out after compaction: the mount's cable wrap could not "
+            + "follow them. ");
+      }
+      m = kept;
+      plan = new Plan(Arrays.copyOf(keptOrder, m), Arrays.copyOf(start, m));
       List<Planned> planned = new ArrayList<>();
       double totalPriority = 0;
       double totalTransition = 0;

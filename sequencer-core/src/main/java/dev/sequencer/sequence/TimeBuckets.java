@@ -3,11 +3,14 @@ package dev.sequencer.sequence;
 import dev.sequencer.slew.Transitions;
 
 /**
- * Time buckets for time-dependent transitions: the horizon is cut into equal buckets of start times, and
+ * Time buckets for time-dependent transitions: each request's start domain is cut into buckets, and
  * an arc's transition is bounded separately for each pair (bucket of the start of A, bucket of the start
  * of B). A bound over the whole start ranges of A and B lets both pointings drift over hours (an alt-az
  * mount's azimuth can turn by 100° or more), which makes it far above the exact transition; over two
  * buckets the drift is that of the bucket length only.
+ *
+ * <p>Buckets are per request (see {@link #partition}): short ones for short start ranges (an orbiting
+ * object's pass), at most half an hour for long ones (a star's night).
  *
  * <p>Validity: each bucket pair's bound is {@link Transitions#boundS} over the departures (ends of A) and
  * arrivals (starts of B) the pair allows, so it is never below the exact transition of any plan whose
@@ -15,20 +18,20 @@ import dev.sequencer.slew.Transitions;
  */
 final class TimeBuckets {
   /** Shortest bucket, seconds. */
-  static final long MIN_BUCKET_S = 1800;
-  /** At most this many buckets over the horizon (the bucket grows for long horizons). */
-  static final int MAX_BUCKETS = 32;
-  /** Bucketing is used up to this many requests in one model (the arc constraints grow as n² buckets²). */
+  static final long MIN_BUCKET_S = 60;
+  /** Longest bucket, seconds (half an hour: sidereal drift of about 7.5°). */
+  static final long MAX_BUCKET_S = 1800;
+  /** At most this many buckets per request (the arc constraints grow as buckets²). */
+  static final int MAX_BUCKETS = 12;
+  /** Bucketing is used up to this many requests in one model. */
   static final int MAX_NODES = 400;
   /** Marks an impossible bucket pair. */
   static final long IMPOSSIBLE = -1;
 
   private final PlanningProblem problem;
-  private final long bucketS;
 
   TimeBuckets(PlanningProblem problem) {
     this.problem = problem;
-    this.bucketS = Math.max(MIN_BUCKET_S, (problem.horizonS() + MAX_BUCKETS - 1) / MAX_BUCKETS);
   }
 
   /** True when a model over {@code nodes} requests should use buckets. */
@@ -36,25 +39,37 @@ final class TimeBuckets {
     return problem.transitions().timeDependent() && nodes <= MAX_NODES;
   }
 
-  long bucketS() {
-    return bucketS;
+  /**
+   * Cuts a start domain (ordered, disjoint [from, to] parts) into buckets: equal lengths between
+   * {@link #MIN_BUCKET_S} and {@link #MAX_BUCKET_S}, at most {@link #MAX_BUCKETS} over the domain's hull
+   * (longer buckets when the hull needs it); each bucket is reported as the [lowest, highest] start of the
+   * domain inside it, empty buckets left out. Every start of the domain lies in exactly one bucket.
+   */
+  static java.util.List<long[]> partition(long[][] domain) {
+    long lo = domain[0][0];
+    long hi = domain[domain.length - 1][1];
+    long span = hi - lo + 1;
+    long size = Math.max(MIN_BUCKET_S, Math.min(MAX_BUCKET_S, (span + MAX_BUCKETS - 1) / MAX_BUCKETS));
+    size = Math.max(size, (span + MAX_BUCKETS - 1) / MAX_BUCKETS);
+    java.util.List<long[]> out = new java.util.ArrayList<>();
+    for (long b0 = lo; b0 <= hi; b0 += size) {
+      long b1 = b0 + size - 1;
+      long min = Long.MAX_VALUE;
+      long max = Long.MIN_VALUE;
+      for (long[] part : domain) {
+        long a = Math.max(part[0], b0);
+        long b = Math.min(part[1], b1);
+        if (a <= b) {
+          min = Math.min(min, a);
+          max = Math.max(max, b);
+        }
+      }
+      if (min <= max) {
+        out.add(new long[] {min, max});
+      }
+    }
+    return out;
   }
-
-  /** Bucket index of a start time. */
-  int bucket(long startS) {
-    return (int) (startS / bucketS);
-  }
-
-  /** First start second of bucket q. */
-  long lo(int q) {
-    return q * bucketS;
-  }
-
-  /** Last start second of bucket q. */
-  long hi(int q) {
-    return (q + 1) * bucketS - 1;
-  }
-
   /**
    * Whole seconds bounding the transition from request {@code from} (or {@link Transitions#START}) to
    * {@code to} when the start of {@code from} lies in [fromLo, fromHi] (so it ends in that range plus

@@ -59,6 +59,11 @@ final class AltAzTransitions implements Transitions {
   }
 
   @Override
+  public boolean exactMayExceedBound() {
+    return wrap.limited();
+  }
+
+  @Override
   public double[] exactS(int[] order, double[] departureS, double[] arrivalS) {
     return run(order, departureS, arrivalS).seconds();
   }
@@ -122,20 +127,41 @@ final class AltAzTransitions implements Transitions {
     if (t1S == t2S) {
       return 0;
     }
-    double rate = track.maxAzimuthRateDegPerS(Math.min(t1S, t2S), Math.max(t1S, t2S));
-    double steps = Math.ceil(Math.abs(t2S - t1S) * rate / UNWRAP_STEP_DEG);
-    if (!(steps <= MAX_UNWRAP_STEPS)) {
-      return Double.NaN;
+    double lo = Math.min(t1S, t2S);
+    double hi = Math.max(t1S, t2S);
+    double change = unwrapPiece(track, lo, hi, track.azEl(lo).azimuthDeg(), track.azEl(hi).azimuthDeg());
+    return t2S >= t1S ? change : -change;
+  }
+
+  /** Shortest piece the unwrapping splits; below it the wrapped difference is taken as the change. */
+  private static final double MIN_UNWRAP_PIECE_S = 0.5;
+
+  /**
+   * The continuous azimuth change over [a, b], given the azimuths at both ends: where the rate bound
+   * allows at most {@value #UNWRAP_STEP_DEG}° per step in a few steps, sampled; otherwise (a fast or
+   * unbounded azimuth rate, as near the zenith) the piece is halved, down to {@link #MIN_UNWRAP_PIECE_S},
+   * where the wrapped difference is taken (an azimuth flip faster than that is beyond any mount anyway).
+   */
+  private static double unwrapPiece(PointingTrack track, double a, double b, double azA, double azB) {
+    double rate = track.maxAzimuthRateDegPerS(a, b);
+    double steps = Math.ceil((b - a) * rate / UNWRAP_STEP_DEG);
+    if (steps <= 1 || b - a <= MIN_UNWRAP_PIECE_S) {
+      return Math.IEEEremainder(azB - azA, 360);
     }
-    int n = Math.max(1, (int) steps);
-    double previous = track.azEl(t1S).azimuthDeg();
-    double sum = 0;
-    for (int i = 1; i <= n; i++) {
-      double a = track.azEl(t1S + (t2S - t1S) * i / n).azimuthDeg();
-      sum += Math.IEEEremainder(a - previous, 360);
-      previous = a;
+    if (steps <= 64) {
+      int n = (int) steps;
+      double previous = azA;
+      double sum = 0;
+      for (int i = 1; i <= n; i++) {
+        double az = i == n ? azB : track.azEl(a + (b - a) * i / n).azimuthDeg();
+        sum += Math.IEEEremainder(az - previous, 360);
+        previous = az;
+      }
+      return sum;
     }
-    return sum;
+    double m = 0.5 * (a + b);
+    double azM = track.azEl(m).azimuthDeg();
+    return unwrapPiece(track, a, m, azA, azM) + unwrapPiece(track, m, b, azM, azB);
   }
 
   @Override

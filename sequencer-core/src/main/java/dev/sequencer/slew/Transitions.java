@@ -42,6 +42,15 @@ public interface Transitions {
    */
   double[] exactS(int[] order, double[] departureS, double[] arrivalS);
 
+  /**
+   * True when an exact leg may exceed {@link #boundS} for reasons the pairwise bound cannot see: an alt-az
+   * mount whose cable wrap runs out while it follows an earlier observation (the mount state depends on
+   * the whole sequence). Planners then re-check exact legs and drop what the mount cannot follow.
+   */
+  default boolean exactMayExceedBound() {
+    return false;
+  }
+
   /** True when transition times depend on when they happen (moving pointings, alt-az mounts). */
   boolean timeDependent();
 

@@ -53,4 +53,19 @@ final class Observers {
         Constants.EIGEN5C_EARTH_C50,
         BrouwerLyddanePropagator.M2);
   }
+
+  /**
+   * {perigee radius less 2 %, perigee speed plus 2 %} of the observer's orbit, metres and m/s: bounds for
+   * the rate of lines of sight seen from it (see {@link MovingTracks}).
+   */
+  static double[] perigeeRadiusAndSpeed(OrbitObserver observer, AstroContext ctx) {
+    if (observer.orbit() instanceof Tle tle) {
+      TLE t = new TLE(tle.line1(), tle.line2(), ctx.utc());
+      return new double[] {MovingTracks.perigeeRadius(t), MovingTracks.perigeeSpeed(t)};
+    }
+    KeplerianElements k = (KeplerianElements) observer.orbit();
+    double a = k.semiMajorAxisKm() * 1000.0;
+    double rp = a * (1 - k.eccentricity());
+    return new double[] {0.98 * rp, 1.02 * Math.sqrt(Constants.EIGEN5C_EARTH_MU * (2 / rp - 1 / a))};
+  }
 }

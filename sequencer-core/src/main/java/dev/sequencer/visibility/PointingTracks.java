@@ -6,7 +6,12 @@ import dev.sequencer.model.AzElPointing;
 import dev.sequencer.model.GroundSite;
 import dev.sequencer.model.Pointing;
 import dev.sequencer.model.RaDec;
+import dev.sequencer.model.EarthPoint;
+import dev.sequencer.model.OrbitObserver;
+import dev.sequencer.model.OrbitingTarget;
 import dev.sequencer.model.Request;
+import dev.sequencer.model.Target;
+import org.orekit.propagation.Propagator;
 import dev.sequencer.model.Scenario;
 import dev.sequencer.slew.PointingTrack;
 import java.util.ArrayList;
@@ -19,12 +24,12 @@ import org.orekit.time.AbsoluteDate;
  * The instrument's pointing for each request over time, from the scenario's geometry, for the slew models.
  *
  * <p>Supported: fixed RA/Dec targets from an orbit observer (a constant inertial direction) and from a ground
- * site (constant inertial direction; azimuth and elevation turning with the Earth). Rate bounds for a fixed
+ * site (constant inertial direction; azimuth and elevation turning with the Earth); orbiting objects seen
+ * from a ground site and Earth points seen from orbit ({@link MovingTracks}). Rate bounds for a fixed
  * star at geodetic latitude phi, from the spherical-astronomy derivatives (common practice):
  * |dEl/dt| = w cos(phi) |sin A| &lt;= w and |dA/dt| = w |sin(phi) - cos(phi) cos(A) tan(El)| &lt;=
  * w (|sin phi| + |cos phi| tan El), with w the Earth's rotation rate and El bounded over the interval by
- * its larger end value plus w times the interval length. Moving targets (orbiting objects, Earth points)
- * need propagated rate bounds and are refused with a message until they are supported.
+ * its larger end value plus w times the interval length.
  */
 public final class PointingTracks {
   /** Earth rotation rate, deg/s (360.9856 deg per solar day; common practice). */
@@ -37,12 +42,28 @@ public final class PointingTracks {
     List<PointingTrack> out = new ArrayList<>();
     AbsoluteDate origin = ctx.date(scenario.horizon().start());
     GroundSite site = scenario.observer() instanceof GroundSite g ? g : null;
+    Propagator orbit = null;
+    double perigeeRadius = 0;
+    double perigeeSpeed = 0;
+    if (scenario.observer() instanceof OrbitObserver o) {
+      orbit = Observers.propagator(o, ctx);
+      double[] rv = Observers.perigeeRadiusAndSpeed(o, ctx);
+      perigeeRadius = rv[0];
+      perigeeSpeed = rv[1];
+    }
     for (Request r : scenario.requests()) {
-      if (!(r.target() instanceof RaDec rd)) {
+      Target t = r.target();
+      if (t instanceof RaDec rd) {
+        out.add(site == null ? PointingTrack.fixed(rd) : new StarFromSite(rd, site, ctx, origin));
+      } else if (t instanceof OrbitingTarget ot && site != null) {
+        out.add(MovingTracks.objectFromSite(ot, site, ctx, origin));
+      } else if (t instanceof EarthPoint ep && orbit != null) {
+        out.add(MovingTracks.pointFromOrbit(ep, orbit, perigeeRadius, perigeeSpeed, ctx, origin));
+      } else {
         throw new UnsupportedOperationException("requests " + r.id() + ": slew model '" + scenario.slew().model()
-            + "' with a moving target is not supported yet; use the 'fixed' or 'matrix' slew model");
+            + "' cannot follow this target from this observer (an orbiting object seen from orbit); use the "
+            + "'fixed' or 'matrix' slew model");
       }
-      out.add(site == null ? PointingTrack.fixed(rd) : new StarFromSite(rd, site, ctx, origin));
     }
     return out;
   }

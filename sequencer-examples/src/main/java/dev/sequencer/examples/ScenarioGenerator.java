@@ -98,7 +98,9 @@ public final class ScenarioGenerator {
     Instant epoch = Instant.parse("2031-09-10T17:00:00Z");
     GroundSite site = new GroundSite(38.87, 16.24, 610, List.of(new AzEl(0, 10), new AzEl(90, 15), new AzEl(180, 10),
         new AzEl(270, 12)));
-    Constraints c = Constraints.builder().sunElevationMaxDeg(-6).elevationMinDeg(20).targetSunlitRequired(true).build();
+    // elevationMaxDeg 85: an alt-az mount cannot follow an object through the zenith (the azimuth would flip).
+    Constraints c = Constraints.builder().sunElevationMaxDeg(-6).elevationMinDeg(20).elevationMaxDeg(85)
+        .targetSunlitRequired(true).build();
     List<Request> requests = new ArrayList<>();
     for (int k = 1; k <= 60; k++) {
       double altitudeKm = 450 + 1000 * rnd.nextDouble();
@@ -114,7 +116,8 @@ public final class ScenarioGenerator {
           new OrbitingTarget(new Tle(tle.getLine1(), tle.getLine2())), durationS, priority));
     }
     return new Scenario(Scenario.FORMAT, "satellite tracking night: invented station, 60 invented objects",
-        new TimeWindow(epoch, Instant.parse("2031-09-11T05:00:00Z")), site, c, new SlewSettings.Fixed(30), null,
+        new TimeWindow(epoch, Instant.parse("2031-09-11T05:00:00Z")), site, c,
+        new SlewSettings.AltAz(5, 4, 2, 2, 5, List.of(-270.0, 270.0)), null,
         requests, new SolverSettings(10, 2, 1));
   }
 
