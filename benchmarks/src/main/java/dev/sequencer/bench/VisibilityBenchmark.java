@@ -12,6 +12,7 @@ import dev.sequencer.model.Scenario;
 import dev.sequencer.model.SlewSettings;
 import dev.sequencer.model.TimeWindow;
 import dev.sequencer.model.Tle;
+import dev.sequencer.visibility.OrekitReference;
 import dev.sequencer.visibility.RequestVisibility;
 import dev.sequencer.visibility.VisibilityCalculator;
 import java.lang.management.ManagementFactory;
@@ -35,7 +36,6 @@ import org.orekit.propagation.analytical.tle.TLE;
 import org.orekit.propagation.analytical.tle.TLEPropagator;
 import org.orekit.propagation.events.ElevationDetector;
 import org.orekit.propagation.events.EventDetector;
-import org.orekit.propagation.events.EventsLogger;
 import org.orekit.propagation.events.FunctionalDetector;
 import org.orekit.propagation.events.handlers.ContinueOnEvent;
 import org.orekit.time.AbsoluteDate;
@@ -142,7 +142,7 @@ public final class VisibilityBenchmark {
     int mismatches = 0;
     for (int i = 0; i < s.requests().size() && sampled < sample; i += step) {
       long r0 = System.nanoTime();
-      List<double[]> ref = reference(prop.apply(i), detector.apply(i), start, end);
+      List<double[]> ref = OrekitReference.windows(prop.apply(i), detector.apply(i), start, end);
       refTime += (System.nanoTime() - r0) * 1e-9;
       sampled++;
       List<TimeWindow> w = ours.get(i).intervals();
@@ -156,30 +156,6 @@ public final class VisibilityBenchmark {
       }
     }
     return new Figures(name, s.requests().size(), oursS, peakMb, refTime / sampled, sampled, maxDiff, mismatches);
-  }
-
-  static List<double[]> reference(Propagator p, EventDetector d, AbsoluteDate start, AbsoluteDate end) {
-    EventsLogger logger = new EventsLogger();
-    p.addEventDetector(logger.monitorDetector(d));
-    boolean inside = d.g(p.propagate(start)) >= 0;
-    logger.clearLoggedEvents();
-    p.propagate(start, end);
-    List<double[]> out = new ArrayList<>();
-    double open = inside ? 0 : Double.NaN;
-    for (EventsLogger.LoggedEvent e : logger.getLoggedEvents()) {
-      double t = e.getDate().durationFrom(start);
-      if (e.isIncreasing()) {
-        open = t;
-      } else if (!Double.isNaN(open)) {
-        out.add(new double[] {open, t});
-        open = Double.NaN;
-      }
-    }
-    if (!Double.isNaN(open)) {
-      out.add(new double[] {open, end.durationFrom(start)});
-    }
-    out.removeIf(w -> w[1] - w[0] < 1e-3);
-    return out;
   }
 
   private static Propagator leoPropagator(KeplerianElements k) {

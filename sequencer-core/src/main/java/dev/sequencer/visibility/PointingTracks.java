@@ -80,20 +80,21 @@ public final class PointingTracks {
           : PointingTrack.fixed(rd);
     }
     AzElPointing ae = (AzElPointing) p;
-    AzEl fixed = new AzEl(ae.azimuthDeg(), ae.elevationDeg());
+    PointingTrack parked = PointingTrack.parked(ae);
     GroundSite site = (GroundSite) scenario.observer();
     AbsoluteDate origin = ctx.date(scenario.horizon().start());
     double[] enu = SiteFrame.enuItrf(site);
+    double az = Math.toRadians(ae.azimuthDeg());
+    double el = Math.toRadians(ae.elevationDeg());
+    double e = Math.cos(el) * Math.sin(az);
+    double n = Math.cos(el) * Math.cos(az);
+    double u = Math.sin(el);
+    Vector3D itrf = new Vector3D(e * enu[0] + n * enu[3] + u * enu[6], e * enu[1] + n * enu[4] + u * enu[7],
+        e * enu[2] + n * enu[5] + u * enu[8]);
+    // A parked mount whose line of sight turns with the Earth (for an eigenaxis model from the ground).
     return new PointingTrack() {
       @Override
       public Vector3D inertialDirection(double tS) {
-        double az = Math.toRadians(fixed.azimuthDeg());
-        double el = Math.toRadians(fixed.elevationDeg());
-        double e = Math.cos(el) * Math.sin(az);
-        double n = Math.cos(el) * Math.cos(az);
-        double u = Math.sin(el);
-        Vector3D itrf = new Vector3D(e * enu[0] + n * enu[3] + u * enu[6], e * enu[1] + n * enu[4] + u * enu[7],
-            e * enu[2] + n * enu[5] + u * enu[8]);
         return ctx.earthFixed().getStaticTransformTo(ctx.inertial(), origin.shiftedBy(tS)).transformVector(itrf);
       }
 
@@ -104,7 +105,7 @@ public final class PointingTracks {
 
       @Override
       public AzEl azEl(double tS) {
-        return fixed;
+        return parked.azEl(tS);
       }
 
       @Override

@@ -35,7 +35,6 @@ import org.orekit.propagation.analytical.tle.TLEPropagator;
 import org.orekit.propagation.events.EclipseDetector;
 import org.orekit.propagation.events.ElevationDetector;
 import org.orekit.propagation.events.EventDetector;
-import org.orekit.propagation.events.EventsLogger;
 import org.orekit.propagation.events.FunctionalDetector;
 import org.orekit.propagation.events.handlers.ContinueOnEvent;
 import org.orekit.time.AbsoluteDate;
@@ -192,7 +191,8 @@ class VisibilityReferenceTest {
 
   private static void assertSameWindows(Scenario s, Propagator p, EventDetector detector) {
     List<TimeWindow> ours = new VisibilityCalculator(CTX).compute(s).get(0).intervals();
-    List<double[]> ref = reference(s, p, detector);
+    List<double[]> ref = OrekitReference.windows(p, detector, CTX.date(s.horizon().start()),
+        CTX.date(s.horizon().end()));
     AbsoluteDate origin = CTX.date(s.horizon().start());
     String msg = "ours " + ours + " vs reference " + describe(ref);
     assertEquals(ref.size(), ours.size(), msg);
@@ -200,33 +200,6 @@ class VisibilityReferenceTest {
       assertEquals(ref.get(i)[0], CTX.date(ours.get(i).start()).durationFrom(origin), EDGE_TOL_S, msg);
       assertEquals(ref.get(i)[1], CTX.date(ours.get(i).end()).durationFrom(origin), EDGE_TOL_S, msg);
     }
-  }
-
-  /** Intervals where the detector's g is positive, from Orekit's own event detection. */
-  private static List<double[]> reference(Scenario s, Propagator p, EventDetector detector) {
-    AbsoluteDate start = CTX.date(s.horizon().start());
-    AbsoluteDate end = CTX.date(s.horizon().end());
-    EventsLogger logger = new EventsLogger();
-    p.addEventDetector(logger.monitorDetector(detector));
-    boolean inside = detector.g(p.propagate(start)) >= 0;
-    logger.clearLoggedEvents();
-    p.propagate(start, end);
-    List<double[]> out = new ArrayList<>();
-    double open = inside ? 0 : Double.NaN;
-    for (EventsLogger.LoggedEvent e : logger.getLoggedEvents()) {
-      double t = e.getDate().durationFrom(start);
-      if (e.isIncreasing()) {
-        open = t;
-      } else if (!Double.isNaN(open)) {
-        out.add(new double[] {open, t});
-        open = Double.NaN;
-      }
-    }
-    if (!Double.isNaN(open)) {
-      out.add(new double[] {open, end.durationFrom(start)});
-    }
-    out.removeIf(w -> w[1] - w[0] < 1e-3);
-    return out;
   }
 
   private static String describe(List<double[]> list) {
