@@ -33,13 +33,23 @@ public final class Sequencer {
 
   /** Plans {@code problem} with {@code options}. */
   public SequencerResult plan(PlanningProblem problem, SequencerOptions options) {
-    return new Run(problem, options).execute();
+    return new Run(problem, options, null).execute();
+  }
+
+  /**
+   * Plans with a preferred order (request indices, e.g. the rest of a previous plan): it is re-timed and,
+   * unless the greedy plan is strictly better (more priority, then less model transition) or it misses a
+   * required request, it replaces the greedy plan as warm start and fallback.
+   */
+  SequencerResult plan(PlanningProblem problem, SequencerOptions options, int[] preferredOrder) {
+    return new Run(problem, options, preferredOrder).execute();
   }
 
   /** The state of one call. */
   private static final class Run {
     private final PlanningProblem problem;
     private final SequencerOptions options;
+    private final int[] preferredOrder;
     private final long t0 = System.nanoTime();
     private final long deadline;
     private final StringBuilder notes = new StringBuilder();
@@ -50,9 +60,10 @@ public final class Sequencer {
     private long bestReportedT = Long.MAX_VALUE;
     private double knownBound = Double.NaN;
 
-    Run(PlanningProblem problem, SequencerOptions options) {
+    Run(PlanningProblem problem, SequencerOptions options, int[] preferredOrder) {
       this.problem = problem;
       this.options = options;
+      this.preferredOrder = preferredOrder;
       this.deadline = t0 + (long) (options.timeLimitS() * 1e9);
     }
 
@@ -74,7 +85,7 @@ public final class Sequencer {
       long b0 = System.nanoTime();
       arcs = new ArcCosts(problem);
       scale = new PriorityScale(problem);
-      Plan greedy = new GreedyPlanner(problem).plan();
+      Plan greedy = preferred(new GreedyPlanner(problem).plan());
       double buildS = (System.nanoTime() - b0) * 1e-9;
       boolean greedyComplete = hasAllRequired(greedy);
       if (options.solver() == SequencerOptions.Solver.GREEDY) {
@@ -180,6 +191,24 @@ public final class Sequencer {
         }
       }
       return result;
+    }
+
+    /** The re-timed preferred order when given, complete and not worse than {@code greedy}; else greedy. */
+    private Plan preferred(Plan greedy) {
+      if (preferredOrder == null) {
+        return greedy;
+      }
+      Plan p = Plan.retime(problem, arcs, preferredOrder);
+      long gp = greedy.scaledPriority(scale);
+      long pp = p.scaledPriority(scale);
+      boolean notWorse = pp > gp || (pp == gp && p.modelTransitionS(arcs) <= greedy.modelTransitionS(arcs));
+      if (hasAllRequired(p) && (notWorse || !hasAllRequired(greedy))) {
+        notes.append("warm start: the preferred order (").append(p.size()).append(" of ")
+            .append(preferredOrder.length).append(" requests fit) replaces the greedy plan. ");
+        return p;
+      }
+      notes.append("warm start: the greedy plan beats the preferred order. ");
+      return greedy;
     }
 
     /** Lexicographic: more priority, then less total exact transition. */

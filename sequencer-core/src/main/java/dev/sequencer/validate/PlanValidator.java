@@ -44,6 +44,7 @@ public final class PlanValidator {
   private final Map<String, List<TimeWindow>> windows = new HashMap<>();
   private final Transitions transitions;
   private final ObservabilityOracle oracle;
+  private final Instant now;
 
   /**
    * A validator for these requests (scenario order = transition index), their visibility windows
@@ -51,11 +52,12 @@ public final class PlanValidator {
    */
   public PlanValidator(TimeWindow horizon, List<Request> requests, List<RequestWindows> windows,
       Transitions transitions) {
-    this(horizon, requests, windows, transitions, null);
+    this(horizon, requests, windows, transitions, null, null);
   }
 
   private PlanValidator(TimeWindow horizon, List<Request> requests, List<RequestWindows> windows,
-      Transitions transitions, ObservabilityOracle oracle) {
+      Transitions transitions, ObservabilityOracle oracle, Instant now) {
+    this.now = now;
     this.horizon = Objects.requireNonNull(horizon, "horizon");
     this.requests = List.copyOf(requests);
     this.transitions = Objects.requireNonNull(transitions, "transitions");
@@ -77,7 +79,20 @@ public final class PlanValidator {
   public PlanValidator withOracle(ObservabilityOracle newOracle) {
     List<RequestWindows> w = new ArrayList<>();
     windows.forEach((id, list) -> w.add(new RequestWindows(id, list)));
-    return new PlanValidator(horizon, requests, w, transitions, newOracle);
+    return new PlanValidator(horizon, requests, w, transitions, newOracle, now);
+  }
+
+  /**
+   * A copy for a re-plan made at {@code newNow}: observations in state "done" or "running" must start
+   * at or before it, every other (planned) observation at or after it (re-planning extension). The
+   * transitions into done and running observations are history and not re-checked (a failed observation
+   * between two of them is no longer listed); every leg into a planned observation is, the first one from
+   * the end pointing of the last done or running observation.
+   */
+  public PlanValidator withNow(Instant newNow) {
+    List<RequestWindows> w = new ArrayList<>();
+    windows.forEach((id, list) -> w.add(new RequestWindows(id, list)));
+    return new PlanValidator(horizon, requests, w, transitions, oracle, Objects.requireNonNull(newNow, "now"));
   }
 
   /** All violations of {@code timeline}; empty when it is valid. */
@@ -100,6 +115,7 @@ public final class PlanValidator {
       }
       checkDuration(o, r, out);
       checkWindow(o, out);
+      checkNow(o, out);
       if (k > 0 && o.start().isBefore(obs.get(k - 1).end())) {
         Observation p = obs.get(k - 1);
         out.add(String.format(Locale.ROOT, "observation %s starts at %s, %.3f s before %s ends at %s (overlap or "
@@ -147,6 +163,20 @@ public final class PlanValidator {
       if (c != 1) {
         out.add("request " + r.id() + " appears " + c + " times in observations and unscheduled (must be exactly once)");
       }
+    }
+  }
+
+  /** With a re-planning instant: done/running observations start by it, planned ones at or after it. */
+  private void checkNow(Observation o, List<String> out) {
+    if (now == null) {
+      return;
+    }
+    long tol = (long) (TOLERANCE_S * 1e9);
+    boolean frozen = Observation.DONE.equals(o.state()) || Observation.RUNNING.equals(o.state());
+    if (frozen && o.start().isAfter(now.plusNanos(tol))) {
+      out.add("observation " + o.id() + " is " + o.state() + " but starts at " + o.start() + ", after now " + now);
+    } else if (!frozen && o.start().isBefore(now.minusNanos(tol))) {
+      out.add("observation " + o.id() + " is planned but starts at " + o.start() + ", before now " + now);
     }
   }
 
@@ -199,6 +229,9 @@ public final class PlanValidator {
     double[] exact = transitions.exactS(order, departure, arrival);
     for (int k = 0; k < obs.size(); k++) {
       Observation o = obs.get(k);
+      if (now != null && (Observation.DONE.equals(o.state()) || Observation.RUNNING.equals(o.state()))) {
+        continue; // history: legs into done/running observations are as recorded (a failed one may be gone)
+      }
       String from = k == 0 ? "the start pointing" : obs.get(k - 1).id();
       if (!(exact[k] < Double.POSITIVE_INFINITY)) {
         out.add("observation " + o.id() + ": the transition from " + from + " is impossible (exact = " + exact[k] + ")");

@@ -37,7 +37,7 @@ final class CheckCommand implements Callable<Integer> {
     ScenarioReader.Result r = ScenarioReader.read(scenario);
     Timeline t = TimelineFile.read(timeline);
     Pipeline p = Pipeline.of(r.scenario(), common.astro());
-    List<String> violations = p.violations(t);
+    List<String> violations = p.violations(t, replanInstant(t));
     PrintWriter out = spec.commandLine().getOut();
     if (violations.isEmpty()) {
       out.println("valid: " + t.observations().size() + " observations, priority " + t.priority());
@@ -46,5 +46,25 @@ final class CheckCommand implements Callable<Integer> {
     violations.forEach(out::println);
     out.println(violations.size() + " violation(s)");
     return 1;
+  }
+
+  /**
+   * For a re-planned timeline (some observation done or running): the first planned start (or the last
+   * frozen start), so the done and running observations are checked as history; null otherwise.
+   */
+  static java.time.Instant replanInstant(Timeline t) {
+    java.time.Instant at = null;
+    boolean frozen = false;
+    for (dev.sequencer.model.Observation o : t.observations()) {
+      boolean f = dev.sequencer.model.Observation.DONE.equals(o.state())
+          || dev.sequencer.model.Observation.RUNNING.equals(o.state());
+      frozen |= f;
+      if (f) {
+        at = o.start();
+      } else {
+        return frozen ? o.start() : null;
+      }
+    }
+    return frozen ? at : null;
   }
 }

@@ -60,4 +60,10 @@ record Pipeline(Scenario scenario, List<RequestVisibility> visibility, List<Requ
   List<String> violations(Timeline timeline) {
     return PlanValidator.of(scenario, windows, transitions).violations(timeline);
   }
+
+  /** As {@link #violations(Timeline)}, for a re-plan made at {@code now} when it is not null. */
+  List<String> violations(Timeline timeline, java.time.Instant now) {
+    PlanValidator v = PlanValidator.of(scenario, windows, transitions);
+    return (now == null ? v : v.withNow(now)).violations(timeline);
+  }
 }

@@ -13,7 +13,8 @@ import picocli.CommandLine.Command;
       "Turns a list of wanted observations into a checked, time-ordered observing plan.",
       ""
     },
-    subcommands = {DemoCommand.class, InspectCommand.class, WindowsCommand.class, PlanCommand.class, CheckCommand.class,
+    subcommands = {DemoCommand.class, InspectCommand.class, WindowsCommand.class, PlanCommand.class, ReplanCommand.class,
+        CheckCommand.class,
         CommandLine.HelpCommand.class},
     footer = {"", Caution.TEXT},
     usageHelpAutoWidth = true)

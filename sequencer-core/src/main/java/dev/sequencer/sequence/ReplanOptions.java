@@ -1,0 +1,54 @@
+package dev.sequencer.sequence;
+
+import java.util.Objects;
+
+/**
+ * How {@link Replanner} re-plans. Immutable; change by copy: {@code ReplanOptions.defaults().withDropFailed(true)}.
+ *
+ * <p>{@code sequencer}: the solver settings of the re-plan. {@code dropFailed}: failed requests are not
+ * retried (required ones always are). {@code stabilityWeight}: {@code NaN} (the default) ranks plans
+ * lexicographically — priority first, then the stability score (kept previous requests + kept previous
+ * successor arcs), then total slew; a number w >= 0 ranks them by priority + w x stability score, then
+ * slew (0 switches stability off). {@code warmStart}: offer the rest of the previous plan to the
+ * sequencer as warm start (it is always kept as a fallback).
+ */
+public record ReplanOptions(SequencerOptions sequencer, boolean dropFailed, double stabilityWeight, boolean warmStart) {
+  public ReplanOptions {
+    Objects.requireNonNull(sequencer, "sequencer");
+    if (!Double.isNaN(stabilityWeight) && !(stabilityWeight >= 0 && stabilityWeight < Double.POSITIVE_INFINITY)) {
+      throw new IllegalArgumentException("stabilityWeight: must be a finite number >= 0, got " + stabilityWeight);
+    }
+  }
+
+  /** Sequencer defaults, failed requests retried, lexicographic stability, warm start on. */
+  public static ReplanOptions defaults() {
+    return new ReplanOptions(SequencerOptions.defaults(), false, Double.NaN, true);
+  }
+
+  public ReplanOptions withSequencer(SequencerOptions v) {
+    return new ReplanOptions(v, dropFailed, stabilityWeight, warmStart);
+  }
+
+  public ReplanOptions withDropFailed(boolean v) {
+    return new ReplanOptions(sequencer, v, stabilityWeight, warmStart);
+  }
+
+  /** Priority units per unit of stability score; 0 switches stability off. */
+  public ReplanOptions withStabilityWeight(double v) {
+    return new ReplanOptions(sequencer, dropFailed, v, warmStart);
+  }
+
+  /** Back to the default lexicographic order: priority, then stability, then slew. */
+  public ReplanOptions withLexicographicStability() {
+    return new ReplanOptions(sequencer, dropFailed, Double.NaN, warmStart);
+  }
+
+  public ReplanOptions withWarmStart(boolean v) {
+    return new ReplanOptions(sequencer, dropFailed, stabilityWeight, v);
+  }
+
+  /** True in the default lexicographic mode. */
+  public boolean lexicographic() {
+    return Double.isNaN(stabilityWeight);
+  }
+}

@@ -1,0 +1,155 @@
+package dev.sequencer.cli;
+
+import dev.sequencer.io.ScenarioReader;
+import dev.sequencer.io.TimelineFile;
+import dev.sequencer.model.Observation;
+import dev.sequencer.model.Timeline;
+import dev.sequencer.model.Unscheduled;
+import dev.sequencer.sequence.PlanningProblem;
+import dev.sequencer.sequence.ReplanOptions;
+import dev.sequencer.sequence.ReplanResult;
+import dev.sequencer.sequence.Replanner;
+import java.io.PrintWriter;
+import java.nio.file.Path;
+import java.time.Instant;
+import java.time.format.DateTimeParseException;
+import java.util.LinkedHashSet;
+import java.util.List;
+import java.util.Locale;
+import java.util.Set;
+import java.util.concurrent.Callable;
+import picocli.CommandLine.Command;
+import picocli.CommandLine.Mixin;
+import picocli.CommandLine.Option;
+import picocli.CommandLine.Parameters;
+import picocli.CommandLine.Spec;
+import picocli.CommandLine.Model.CommandSpec;
+
+/** {@code sequencer replan}: keeps what is done and running, plans the rest of the night from now. */
+@Command(
+    name = "replan",
+    mixinStandardHelpOptions = true,
+    description = {"Re-plan the rest of a night: done and running observations of the previous timeline are kept "
+        + "and marked, nothing new starts before --now nor before the running observation ends plus the slew "
+        + "from it, failed requests are retried while visible (unless --drop-failed), requests new in the "
+        + "scenario are considered. Among plans of equal priority the one closest to the previous plan wins.",
+        "An observation of the previous timeline that ended by --now counts as done unless listed in --failed; "
+            + "one that started before --now is running.",
+        "Exit 0 with a plan; 1 when there is none; 2 on invalid input; 3 on an internal error."},
+    footer = {"", Caution.TEXT})
+final class ReplanCommand implements Callable<Integer> {
+  @Parameters(index = "0", paramLabel = "SCENARIO.json", description = "The scenario file (new requests allowed).")
+  Path scenario;
+
+  @Option(names = "--previous", required = true, paramLabel = "TIMELINE.json", description = "The timeline being executed.")
+  Path previous;
+
+  @Option(names = "--now", required = true, paramLabel = "INSTANT", description = "The re-planning instant, ISO-8601 "
+      + "UTC (2031-05-04T23:10:00Z).")
+  String now;
+
+  @Option(names = "--done", split = ",", paramLabel = "ID", description = "Observations that completed.")
+  List<String> done = List.of();
+
+  @Option(names = "--failed", split = ",", paramLabel = "ID", description = "Observations that failed or were aborted.")
+  List<String> failed = List.of();
+
+  @Option(names = "--drop-failed", description = "Do not retry failed requests (required ones are always retried).")
+  boolean dropFailed;
+
+  @Option(names = "--stability", paramLabel = "WEIGHT", description = "Priority units per unit of stability "
+      + "(kept previous requests + kept previous successor pairs); 0 = off. Default: priority first, then "
+      + "stability, then slew.")
+  String stability;
+
+  @Option(names = {"-o", "--output"}, paramLabel = "FILE", description = "Write the new timeline file here.")
+  Path output;
+
+  @Mixin SolverOptionsMixin solverOptions;
+
+  @Mixin CommonOptionsMixin common;
+
+  @Spec CommandSpec spec;
+
+  @Override
+  public Integer call() {
+    ScenarioReader.Result r = ScenarioReader.read(scenario);
+    PrintWriter out = spec.commandLine().getOut();
+    r.warnings().forEach(w -> out.println("warning: " + w));
+    PlanInputs.check(r.scenario(), scenario.toString());
+    Timeline prev = TimelineFile.read(previous);
+    Instant at = instant();
+    ReplanOptions options = ReplanOptions.defaults().withDropFailed(dropFailed);
+    if (stability != null) {
+      options = options.withStabilityWeight(weight());
+    }
+    Outputs.checkFolder("--output", output);
+    Pipeline p = Pipeline.of(r.scenario(), common.astro());
+    PlanningProblem problem = PlanningProblem.of(r.scenario(), p.windows(), p.transitions());
+    ReplanResult result;
+    try (Progress progress = Progress.to(out, Progress.consoleAttached())) {
+      options = options.withSequencer(solverOptions.options(r.scenario().solverOrDefaults(), progress));
+      progress.start();
+      result = new Replanner().replan(problem, prev, at, ids(done), ids(failed), options);
+    } catch (Replanner.BadInput e) {
+      throw new InputException("--" + e.getMessage());
+    }
+    print(out, result);
+    if (output != null) {
+      TimelineFile.write(result.timeline(), output);
+      out.println("wrote " + output);
+    }
+    if (!result.hasPlan()) {
+      out.println("no plan (" + result.status() + "): " + result.message());
+      return NoPlan.EXIT_NO_PLAN;
+    }
+    return 0;
+  }
+
+  private Instant instant() {
+    try {
+      return Instant.parse(now);
+    } catch (DateTimeParseException e) {
+      throw new InputException("--now: must be an ISO-8601 UTC instant such as 2031-05-04T23:10:00Z (was " + now + ")");
+    }
+  }
+
+  private double weight() {
+    try {
+      double w = Double.parseDouble(stability);
+      if (w >= 0 && w < Double.POSITIVE_INFINITY) {
+        return w;
+      }
+    } catch (NumberFormatException e) {
+      // reported below
+    }
+    throw new InputException("--stability: must be a number >= 0 (was " + stability + ")");
+  }
+
+  private static Set<String> ids(List<String> list) {
+    Set<String> out = new LinkedHashSet<>();
+    for (String s : list) {
+      if (!s.isBlank()) {
+        out.add(s.trim());
+      }
+    }
+    return out;
+  }
+
+  private static void print(PrintWriter out, ReplanResult r) {
+    Timeline t = r.timeline();
+    out.printf(Locale.ROOT, "%-12s %-8s %-24s %-24s %8s %8s%n", "id", "state", "start", "end", "dur [s]", "slew [s]");
+    for (Observation o : t.observations()) {
+      out.printf(Locale.ROOT, "%-12s %-8s %-24s %-24s %8.0f %8.1f%n", o.id(), o.state(), o.start(), o.end(),
+          o.durationS(), o.slewSeconds());
+    }
+    for (Unscheduled u : t.unscheduled()) {
+      out.printf(Locale.ROOT, "%-12s not scheduled: %s%n", u.id(), u.reason());
+    }
+    out.printf(Locale.ROOT, "status %s, night priority %.2f, new plan %.2f (rest of the previous plan %.2f), "
+        + "from %s, kept %d of %d previous requests and %d successor pairs, plan from %s%n", t.status(),
+        t.priority(), r.newPriority(), r.tailPriority(), r.source() == ReplanResult.Source.PREVIOUS_TAIL
+            ? "the previous plan" : "the sequencer", r.keptRequests(), r.tailRequests(), r.keptArcs(),
+        r.departure());
+  }
+}
