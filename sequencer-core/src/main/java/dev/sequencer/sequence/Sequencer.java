@@ -77,6 +77,9 @@ public final class Sequencer {
       Plan greedy = new GreedyPlanner(problem).plan();
       double buildS = (System.nanoTime() - b0) * 1e-9;
       boolean greedyComplete = hasAllRequired(greedy);
+      if (options.solver() == SequencerOptions.Solver.TWO_STAGE) {
+        return twoStage(buildS);
+      }
       if (options.solver() == SequencerOptions.Solver.GREEDY) {
         double bound = options.relaxationBound() ? relaxation(Math.min(5, remainingS())) : Double.NaN;
         if (!greedyComplete) {
@@ -89,7 +92,7 @@ public final class Sequencer {
     }
 
     private SequencerResult solveCpSat(Plan greedy, boolean greedyComplete, double buildS) {
-      Plan hint = Plan.retime(problem, arcs, greedy.order());
+      Plan hint = Plan.retime(problem, arcs, greedy.order(), greedy.durations(problem));
       boolean hintComplete = hasAllRequired(hint);
       int[] nodes = java.util.stream.IntStream.range(0, problem.size())
           .filter(k -> problem.tasks().get(k).schedulable()).toArray();
@@ -108,7 +111,7 @@ public final class Sequencer {
       RoutingModel.Params params = new RoutingModel.Params(mainTime, options.effectiveWorkers(), options.seed(),
           options.reproducible(), mainDet, large, this::report);
       if (options.hint() && hintComplete) {
-        report(hint.scaledPriority(scale), hint.modelTransitionS(arcs), -1);
+        report(hint.scaledPriority(problem, scale), hint.modelTransitionS(arcs), -1);
       }
       RoutingModel.Spec spec = new RoutingModel.Spec(nodes, Transitions.START, 0, -1, problem.horizonS(),
           options.hint() ? hint : null, k);
@@ -151,7 +154,7 @@ public final class Sequencer {
         current = lns.improve(current, deadline, options.deterministicLimit() - mainDet,
             new RoutingModel.Params(0, options.effectiveWorkers(), options.seed(), options.reproducible(), 0, false,
                 null),
-            p -> report(p.scaledPriority(scale), p.modelTransitionS(arcs), -1));
+            p -> report(p.scaledPriority(problem, scale), p.modelTransitionS(arcs), -1));
         solveS += (System.nanoTime() - ls) * 1e-9;
         lnsRounds = lns.rounds;
         lnsImprovements = lns.improvements;
@@ -180,6 +183,20 @@ public final class Sequencer {
         }
       }
       return result;
+    }
+
+    /** The two-stage baseline (flexible exposures): stage 1 gets the whole time limit, stage 2 is one LP. */
+    private SequencerResult twoStage(double buildS) {
+      long s0 = System.nanoTime();
+      Plan plan = new TwoStagePlanner(problem, arcs).plan(options.withTimeLimitS(Math.max(0.5, remainingS())));
+      double solveS = (System.nanoTime() - s0) * 1e-9;
+      if (!hasAllRequired(plan)) {
+        return noPlan("the two-stage baseline could not fit every required request (this proves nothing)",
+            arcs.feasibleArcCount(), buildS, solveS);
+      }
+      notes.append("two-stage baseline: preset exposures, then continuous re-allocation. ");
+      return finish(PlanStatus.FEASIBLE, plan, trivialBound(), Double.NaN, arcs.feasibleArcCount(), buildS, solveS,
+          0, 0);
     }
 
     /** Lexicographic: more priority, then less total exact transition. */
@@ -275,6 +292,7 @@ public final class Sequencer {
         Task t = problem.tasks().get(plan.order()[q]);
         departure[q] = prevEnd;
         long s = plan.startS()[q];
+        long d = plan.durationS(problem, q);
         double leg = legAt(tr, plan.order(), departure, arrival, q, s);
         if (!(prevEnd + leg <= s + 1e-9)) {
           throw new IllegalStateException("request " + t.id() + ": exact transition " + leg + " s departing at "
@@ -282,7 +300,7 @@ public final class Sequencer {
               + "must never be below the exact time)");
         }
         for (int step = 0; step < 32; step++) {
-          long candidate = t.firstStartAtOrAfter(prevEnd + ArcCosts.ceilS(leg));
+          long candidate = Plan.firstFittingStart(problem, plan.order()[q], prevEnd + ArcCosts.ceilS(leg), d);
           if (candidate < 0 || candidate >= s) {
             break;
           }
@@ -297,7 +315,7 @@ public final class Sequencer {
         start[q] = s;
         arrival[q] = s;
         exact[q] = leg;
-        prevEnd = s + t.durationS();
+        prevEnd = s + d;
       }
       List<Planned> planned = new ArrayList<>();
       double totalPriority = 0;
@@ -306,9 +324,11 @@ public final class Sequencer {
       for (int q = 0; q < m; q++) {
         Task t = problem.tasks().get(plan.order()[q]);
         in[plan.order()[q]] = true;
-        planned.add(new Planned(t.id(), problem.instant(start[q]), problem.instant(start[q] + t.durationS()),
-            start[q], start[q] + t.durationS(), exact[q]));
-        totalPriority += t.priority();
+        long d = plan.durationS(problem, q);
+        Double value = problem.exposure(plan.order()[q]) == null ? null : plan.value(problem, q);
+        planned.add(new Planned(t.id(), problem.instant(start[q]), problem.instant(start[q] + d),
+            start[q], start[q] + d, exact[q], value));
+        totalPriority += plan.value(problem, q);
         totalTransition += exact[q];
       }
       double modelTransition = plan.modelTransitionS(arcs);
