@@ -160,6 +160,9 @@ final class RoutingModel {
       addVariables();
       addCircuitWithTransitions();
       addRedundantNoOverlap();
+      if (flex.stream().anyMatch(java.util.Objects::nonNull)) {
+        addRedundantEnergy();
+      }
       addObjective(fixedPriority);
       addHint();
       this.buildNanos = System.nanoTime() - t0;
@@ -259,7 +262,65 @@ final class RoutingModel {
       model.addEquality(value, full).onlyEnforceIf(p);
       model.addEquality(value, 0).onlyEnforceIf(p.not());
       model.addEquality(g, 0).onlyEnforceIf(p.not()); // an absent request has one exposure: no symmetric copies
+      addEnvelopeCuts(id, grid, g, value);
       return new FlexVars(e, g, end, iv, value, in, ranges);
+    }
+
+    /**
+     * Adds (redundant): value[R] below every chord of the upper concave envelope of the scaled grid values,
+     * (b − a)·value[R] <= (b − a)·V_a + (V_b − V_a)·(g − a) for consecutive hull points a < b. The element
+     * constraint alone gives the LP relaxation no link between exposure and value; with the cuts and the
+     * energy constraint the LP bound of concave curves is the continuous optimum. Valid when R is absent
+     * too (value 0, g = 0: each chord is at least V_0 >= 0 there).
+     */
+    private void addEnvelopeCuts(String id, long[] grid, IntVar g, IntVar value) {
+      List<Integer> hull = new ArrayList<>();
+      for (int q = 0; q < grid.length; q++) {
+        while (hull.size() >= 2) {
+          int a = hull.get(hull.size() - 2);
+          int b = hull.get(hull.size() - 1);
+          // b is on or below the chord a-q: drop it
+          if ((b - a) * (double) (grid[q] - grid[a]) - (grid[b] - grid[a]) * (double) (q - a) >= 0) {
+            hull.remove(hull.size() - 1);
+          } else {
+            break;
+          }
+        }
+        hull.add(q);
+      }
+      for (int h = 0; h + 1 < hull.size(); h++) {
+        int a = hull.get(h);
+        int b = hull.get(h + 1);
+        long rise = grid[b] - grid[a];
+        // (b − a)·value − rise·g <= (b − a)·V_a − rise·a
+        model.addLessOrEqual(LinearExpr.newBuilder().addTerm(value, b - a).addTerm(g, -rise).build(),
+            (b - a) * grid[a] - rise * a);
+      }
+      if (hull.size() == 1) {
+        model.addLessOrEqual(value, grid[hull.get(0)]);
+      }
+    }
+
+    /**
+     * Adds (redundant) the energy constraint: Σ_R (shortest transition into R + duration of R)·present[R]
+     * <= arriveByS − departS, with a flexible duration min·present[R] + step·g (g = 0 when absent).
+     * Occupancies [start − least transition in, end] of a plan are disjoint inside the slice; the circuit
+     * implies this, but only through many arcs, so the LP relaxation misses it; it lets the bound trade
+     * exposure time against the number of observations.
+     */
+    private void addRedundantEnergy() {
+      LinearExprBuilder used = LinearExpr.newBuilder();
+      for (int a = 0; a < nodes.size(); a++) {
+        long in = arcs.minIn(nodes.get(a));
+        long least = in == Long.MAX_VALUE ? 0 : in;
+        FlexVars fv = flex.get(a);
+        if (fv == null) {
+          used.addTerm(present.get(a), dur(a) + least);
+        } else {
+          used.addTerm(present.get(a), fv.exposure.minS() + least).addTerm(fv.step, fv.exposure.stepS());
+        }
+      }
+      model.addLessOrEqual(used.build(), Math.max(0, spec.arriveByS() - spec.departS()));
     }
 
     /**

@@ -193,10 +193,10 @@ public final class PlanValidator {
       out.add("observation " + o.id() + ": a flexible request's observation must carry its value");
       return;
     }
-    double expected = f.valueAt(onGrid);
+    double expected = f.valueAt(d);
     if (Math.abs(o.value() - expected) > VALUE_TOLERANCE) {
       out.add(String.format(Locale.ROOT, "observation %s: value is %s, but the utility curve gives %s at %.3f s",
-          o.id(), o.value(), expected, onGrid));
+          o.id(), o.value(), expected, d));
     }
   }
 
