@@ -54,6 +54,9 @@ public final class FlexibleBenchmark {
           greedy.r.totalPriority(), greedy.r.observations().size(), two.r.totalPriority(), two.r.observations().size(),
           joint.r.totalPriority(), joint.r.observations().size(), joint.r.totalPriority() - two.r.totalPriority(),
           two.seconds, joint.seconds, joint.r.status());
+      if (System.getenv("FLEX_DEBUG") != null) {
+        System.out.println(joint.r.stats());
+      }
     }
   }
 

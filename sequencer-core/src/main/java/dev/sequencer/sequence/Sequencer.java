@@ -162,6 +162,17 @@ public final class Sequencer {
       if (current == null) {
         return noPlan("CP-SAT found no plan in the time limit", arcsKept, buildS, solveS);
       }
+      boolean polished = false;
+      if (problem.hasFlexible() && main.status() != CpSolverStatus.OPTIMAL) {
+        // Flexible exposures: re-allocate the exposures of the found sequence by the continuous LP (the
+        // two-stage baseline's stage 2); kept only when it adds value.
+        Plan better = new TwoStagePlanner(problem, arcs).polish(current);
+        polished = better != current;
+        if (polished) {
+          notes.append("exposures re-allocated by the continuous LP after the search. ");
+          current = better;
+        }
+      }
       boolean timeDependent = problem.transitions().timeDependent();
       if (timeDependent) {
         // The model's transitions are upper bounds of the exact ones: its optimum and its bound hold for
@@ -169,7 +180,8 @@ public final class Sequencer {
         // least transitions) and the trivial bound remain proven, and optimality is never claimed.
         cpBound = Double.NaN;
       }
-      boolean optimal = !timeDependent && main.status() == CpSolverStatus.OPTIMAL && allArcs && lnsImprovements == 0;
+      boolean optimal = !timeDependent && main.status() == CpSolverStatus.OPTIMAL && allArcs && lnsImprovements == 0
+          && !polished;
       double bound = minIgnoringNaN(minIgnoringNaN(cpBound, relaxationBound), trivialBound());
       SequencerResult result = finish(optimal ? PlanStatus.OPTIMAL : PlanStatus.FEASIBLE, current, bound,
           relaxationBound, arcsKept, buildS, solveS, lnsRounds, lnsImprovements);

@@ -46,6 +46,18 @@ final class TwoStagePlanner {
     return roundToGrid(chosen, continuous);
   }
 
+  /**
+   * Stage 2 alone on any plan: keeps its order and windows, re-allocates the exposures by the LP and
+   * rounds them to the grid; returns the result only when its value is larger, else {@code plan}.
+   */
+  Plan polish(Plan plan) {
+    if (plan.size() == 0) {
+      return plan;
+    }
+    Plan out = roundToGrid(plan, reallocate(plan));
+    return out.size() == plan.size() && out.priority(problem) > plan.priority(problem) + 1e-9 ? out : plan;
+  }
+
   /** The knee of flexible request k (see the class comment), seconds. */
   long knee(int k) {
     Exposure e = problem.exposure(k);
