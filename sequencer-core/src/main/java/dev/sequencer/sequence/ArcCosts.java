@@ -45,7 +45,7 @@ final class ArcCosts {
           continue;
         }
         long endMin = ti.earliestStartS() + ti.durationS();
-        long endMax = Math.min(ti.latestStartS() + ti.durationS(), tj.latestStartS());
+        long endMax = Math.min(ti.latestStartS() + problem.maxDurationS(i), tj.latestStartS()); // flexible: longest exposure
         long arrivalMin = Math.max(tj.earliestStartS(), endMin);
         if (endMax < endMin || tj.latestStartS() < arrivalMin) {
           cost[i * n + j] = -1; // i cannot end before j's last start

@@ -16,6 +16,11 @@ import java.util.List;
  * request impossible to reach directly afterwards (a necessary, not sufficient, look-ahead), and the
  * must-be-last request is taken only when nothing else fits. Ties go to the lower index, so the result is
  * deterministic.
+ *
+ * <p>Flexible requests (extension "flexible exposure time") are scored at the grid exposure with the best
+ * value per second used, (value at d) / (waiting + transition + d), among the exposures that fit in the
+ * window holding the start: the point where the value curve meets its tangent from the overhead, so a
+ * long wait or slew favours a longer exposure. Ties go to the shorter exposure.
  */
 final class GreedyPlanner {
   private final PlanningProblem problem;
@@ -34,11 +39,13 @@ final class GreedyPlanner {
     boolean[] done = new boolean[n];
     List<Integer> order = new ArrayList<>();
     List<Long> starts = new ArrayList<>();
+    List<Long> durations = new ArrayList<>();
     int cur = Transitions.START;
     long t = 0;
     while (true) {
       int best = -1;
       long bestStart = -1;
+      long bestDur = -1;
       double bestScore = -1;
       for (int pass = 0; pass < 2 && best < 0; pass++) {
         for (int j = 0; j < n; j++) {
@@ -47,13 +54,15 @@ final class GreedyPlanner {
             continue;
           }
           long s = earliestStart(cur, t, j);
-          if (s < 0 || !requiredStillReachable(j, s + tj.durationS(), done)) {
+          long d = s < 0 ? -1 : exposure(j, s, t);
+          if (s < 0 || !requiredStillReachable(j, s + d, done)) {
             continue;
           }
-          double score = tj.priority() / Math.max(1, s + tj.durationS() - t);
+          double score = valueOf(j, d) / Math.max(1, s + d - t);
           if (score > bestScore) {
             best = j;
             bestStart = s;
+            bestDur = d;
             bestScore = score;
           }
         }
@@ -64,14 +73,44 @@ final class GreedyPlanner {
       done[best] = true;
       order.add(best);
       starts.add(bestStart);
-      t = bestStart + problem.tasks().get(best).durationS();
+      durations.add(bestDur);
+      t = bestStart + bestDur;
       cur = best;
       if (best == problem.mustBeLastIndex()) {
         break;
       }
     }
     return new Plan(order.stream().mapToInt(Integer::intValue).toArray(),
-        starts.stream().mapToLong(Long::longValue).toArray());
+        starts.stream().mapToLong(Long::longValue).toArray(),
+        durations.stream().mapToLong(Long::longValue).toArray());
+  }
+
+  /**
+   * The duration request j gets when it starts at {@code s} with the clock at {@code t}: its fixed
+   * duration, or the grid exposure with the best value per second used that fits in the window.
+   */
+  private long exposure(int j, long s, long t) {
+    Exposure e = problem.exposure(j);
+    if (e == null) {
+      return problem.tasks().get(j).durationS();
+    }
+    long latestEnd = e.latestEndFor(s);
+    long bestD = e.minS();
+    double best = -1;
+    for (int g = 0; g < e.count() && s + e.durationS(g) <= latestEnd; g++) {
+      double score = e.values()[g] / Math.max(1, s + e.durationS(g) - t);
+      if (score > best) {
+        best = score;
+        bestD = e.durationS(g);
+      }
+    }
+    return bestD;
+  }
+
+  /** The value of request j observed for {@code d} seconds. */
+  private double valueOf(int j, long d) {
+    Exposure e = problem.exposure(j);
+    return e == null ? problem.tasks().get(j).priority() : e.values()[e.index(d)];
   }
 
   /**

@@ -63,12 +63,13 @@ final class NeighbourhoodSearch {
       int a = m - len <= 0 ? 0 : random.nextInt(m - len + 1);
       int b = a + len;
       int from = a == 0 ? Transitions.START : current.order()[a - 1];
-      long departS = a == 0 ? 0 : current.startS()[a - 1] + problem.tasks().get(from).durationS();
+      long departS = a == 0 ? 0 : current.startS()[a - 1] + current.durationS(problem, a - 1);
       int to = b == m ? -1 : current.order()[b];
       long arriveByS = b == m ? problem.horizonS() : current.startS()[b];
       int[] free = freeRequests(current, a, b, departS, arriveByS, to >= 0);
       Plan slicePlan = new Plan(java.util.Arrays.copyOfRange(current.order(), a, b),
-          java.util.Arrays.copyOfRange(current.startS(), a, b));
+          java.util.Arrays.copyOfRange(current.startS(), a, b),
+          java.util.Arrays.copyOfRange(current.durations(problem), a, b));
       RoutingModel.Spec spec = new RoutingModel.Spec(free, from, departS, to, arriveByS, slicePlan,
           free.length > 30 ? 12 : 0);
       double roundDet = Math.min(ROUND_TIME_S, Math.max(0.05, deterministicBudget - detUsed));
@@ -86,9 +87,9 @@ final class NeighbourhoodSearch {
       if (o.plan() == null) {
         continue;
       }
-      long oldP = slicePlan.scaledPriority(scale);
+      long oldP = slicePlan.scaledPriority(problem, scale);
       long oldT = sliceTransition(slicePlan, from, to);
-      long newP = o.plan().scaledPriority(scale);
+      long newP = o.plan().scaledPriority(problem, scale);
       long newT = sliceTransition(o.plan(), from, to);
       if (newP > oldP || (newP == oldP && newT < oldT)) {
         Plan next = splice(current, a, b, o.plan());
@@ -152,23 +153,27 @@ final class NeighbourhoodSearch {
     return free.stream().mapToInt(Integer::intValue).toArray();
   }
 
-  private static Plan splice(Plan p, int a, int b, Plan mid) {
+  private Plan splice(Plan p, int a, int b, Plan mid) {
     int m = p.size() - (b - a) + mid.size();
     int[] order = new int[m];
     long[] starts = new long[m];
+    long[] durs = new long[m];
     int q = 0;
     for (int k = 0; k < a; k++, q++) {
       order[q] = p.order()[k];
       starts[q] = p.startS()[k];
+      durs[q] = p.durationS(problem, k);
     }
     for (int k = 0; k < mid.size(); k++, q++) {
       order[q] = mid.order()[k];
       starts[q] = mid.startS()[k];
+      durs[q] = mid.durationS(problem, k);
     }
     for (int k = b; k < p.size(); k++, q++) {
       order[q] = p.order()[k];
       starts[q] = p.startS()[k];
+      durs[q] = p.durationS(problem, k);
     }
-    return new Plan(order, starts);
+    return new Plan(order, starts, durs);
   }
 }

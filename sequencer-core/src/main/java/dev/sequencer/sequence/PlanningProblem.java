@@ -99,6 +99,8 @@ public final class PlanningProblem {
   private final TimeWindow horizon;
   private final List<Request> requests;
   private final List<RequestWindows> windows;
+  /** Per request: its exposure grid, or null for fixed-duration requests (flexible-exposure extension). */
+  private final List<Exposure> exposures;
 
   private PlanningProblem(Instant horizonStart, long horizonS, List<Task> tasks, Transitions transitions, int lastIndex,
       TimeWindow horizon, List<Request> requests, List<RequestWindows> windows) {
@@ -110,6 +112,7 @@ public final class PlanningProblem {
     this.tasks = List.copyOf(tasks);
     this.transitions = Objects.requireNonNull(transitions, "transitions");
     this.lastIndex = lastIndex;
+    this.exposures = exposuresOf(horizonStart, horizonS, this.requests, this.windows, this.tasks.size());
     if (transitions.size() != tasks.size()) {
       throw new IllegalArgumentException(
           "transitions: " + transitions.size() + " requests, but the problem has " + tasks.size());
@@ -132,7 +135,7 @@ public final class PlanningProblem {
   /**
    * Builds the problem from requests and visibility windows (already intersected with each request's own
    * windows). A request without a {@link RequestWindows} entry is never visible. Durations must be whole
-   * seconds; flexible requests are not supported yet.
+   * seconds; flexible requests (whole-second minimum and step) get their exposure grid.
    */
   public static PlanningProblem of(
       TimeWindow horizon, List<Request> requests, List<RequestWindows> windows, Transitions transitions) {
@@ -146,8 +149,10 @@ public final class PlanningProblem {
     for (int k = 0; k < requests.size(); k++) {
       Request r = requests.get(k);
       String where = "requests[" + k + "] (id \"" + r.id() + "\")";
+      RequestWindows rwFlex = byId.get(r.id());
       if (r.isFlexible()) {
-        throw new IllegalArgumentException(where + ": flexible exposure is not supported by the sequencer yet");
+        tasks.add(flexibleTask(r, where, t0, horizonS, rwFlex == null ? List.of() : rwFlex.intervals(), transitions));
+        continue;
       }
       double d = r.durationS();
       if (d < 0 || d != Math.rint(d)) {
@@ -169,6 +174,49 @@ public final class PlanningProblem {
       tasks.add(new Task(r.id(), dur, r.priority(), r.required(), starts, reason));
     }
     return new PlanningProblem(t0, horizonS, tasks, transitions, -1, horizon, requests, windows);
+  }
+
+  /**
+   * The task of a flexible request (extension "flexible exposure time"): duration = the shortest grid
+   * exposure, priority = the largest grid value (so bounds computed from tasks stay valid), starts = the
+   * starts that leave room for the shortest exposure inside one window. The model and the planners read
+   * the full grid from {@link #exposure(int)}.
+   */
+  private static Task flexibleTask(Request r, String where, Instant t0, long horizonS, List<TimeWindow> intervals,
+      Transitions transitions) {
+    if (transitions.timeDependent()) {
+      throw new IllegalArgumentException(where + ": flexible exposure with time-dependent transitions (alt-az "
+          + "mount or moving targets) is not supported by the sequencer yet");
+    }
+    Exposure e = Exposure.of(r.flexible(), t0, horizonS, intervals, where);
+    List<StartRange> starts = new ArrayList<>();
+    for (Exposure.Span sp : e.spans()) {
+      starts.add(new StartRange(sp.fromS(), sp.toS() - e.minS()));
+    }
+    starts = merge(starts);
+    String reason = starts.isEmpty() ? (intervals.isEmpty() ? NEVER_VISIBLE : WINDOWS_TOO_SHORT) : null;
+    // Task priorities must be > 0; a curve that is 0 everywhere is worth (almost) nothing.
+    double best = Math.max(e.maxValue(), MIN_FLEXIBLE_PRIORITY);
+    return new Task(r.id(), e.minS(), best, r.required(), starts, reason);
+  }
+
+  /** Task priority given to a flexible request whose curve is 0 everywhere (tasks need priority > 0). */
+  static final double MIN_FLEXIBLE_PRIORITY = 1e-9;
+
+  /** The exposure grid of request k, or {@code null} for a fixed-duration request. */
+  Exposure exposure(int k) {
+    return exposures.get(k);
+  }
+
+  /** True when some request has a flexible exposure. */
+  public boolean hasFlexible() {
+    return exposures.stream().anyMatch(java.util.Objects::nonNull);
+  }
+
+  /** Longest time request k can occupy: its duration, or its longest grid exposure. */
+  long maxDurationS(int k) {
+    Exposure e = exposures.get(k);
+    return e == null ? tasks.get(k).durationS() : e.maxS();
   }
 
   /** Builds a problem directly from tasks (tests, benchmarks); {@code horizonS} is the horizon length. */
@@ -198,6 +246,27 @@ public final class PlanningProblem {
       }
     }
     throw new IllegalArgumentException("mustBeLast: unknown request id \"" + id + "\"");
+  }
+
+  /** The exposure grid of every flexible request (null entries for fixed ones). */
+  private static List<Exposure> exposuresOf(Instant t0, long horizonS, List<Request> requests,
+      List<RequestWindows> windows, int size) {
+    Map<String, RequestWindows> byId = new HashMap<>();
+    for (RequestWindows w : windows) {
+      byId.put(w.id(), w);
+    }
+    List<Exposure> out = new ArrayList<>();
+    for (int k = 0; k < size; k++) {
+      Request r = k < requests.size() ? requests.get(k) : null;
+      if (r == null || !r.isFlexible()) {
+        out.add(null);
+        continue;
+      }
+      RequestWindows rw = byId.get(r.id());
+      out.add(Exposure.of(r.flexible(), t0, horizonS, rw == null ? List.of() : rw.intervals(),
+          "requests[" + k + "] (id \"" + r.id() + "\")"));
+    }
+    return java.util.Collections.unmodifiableList(out);
   }
 
   private static List<StartRange> merge(List<StartRange> in) {

@@ -80,6 +80,10 @@ final class RoutingModel {
   record Outcome(CpSolverStatus status, Plan plan, long scaledPriority, long transitionS, long priorityBound,
       int solutions, long arcsKept, double buildS, double solveS, double deterministicTime) {}
 
+  /** The CP-SAT variables of one flexible request: grid step, end, interval, scaled value, span literals. */
+  private record FlexVars(Exposure exposure, IntVar step, IntVar end, IntervalVar interval, IntVar value,
+      List<Literal> spans, List<long[]> spanRanges) {}
+
   private final PlanningProblem problem;
   private final ArcCosts arcs;
   private final PriorityScale scale;
@@ -130,6 +134,8 @@ final class RoutingModel {
     private final List<BoolVar> present = new ArrayList<>();
     private final List<IntVar> startS = new ArrayList<>();
     private final List<IntervalVar> intervals = new ArrayList<>();
+    /** Per model position: the flexible request's variables (extension "flexible exposure"), or null. */
+    private final List<FlexVars> flex = new ArrayList<>();
     /** Per model position: bucket index -> literal "the start lies in that bucket" (time buckets only). */
     private final List<java.util.TreeMap<Integer, BoolVar>> inBucket = new ArrayList<>();
     /** Per model position: bucket index -> [lowest, highest] start of the domain inside that bucket. */
@@ -154,6 +160,9 @@ final class RoutingModel {
       addVariables();
       addCircuitWithTransitions();
       addRedundantNoOverlap();
+      if (flex.stream().anyMatch(java.util.Objects::nonNull)) {
+        addRedundantEnergy();
+      }
       addObjective(fixedPriority);
       addHint();
       this.buildNanos = System.nanoTime() - t0;
@@ -194,7 +203,10 @@ final class RoutingModel {
         long[][] dom = parts.toArray(new long[0][]);
         BoolVar p = model.newBoolVar("present[" + t.id() + "]");
         IntVar s = model.newIntVarFromDomain(Domain.fromIntervals(dom), "startS[" + t.id() + "]");
-        IntervalVar iv = model.newOptionalFixedSizeIntervalVar(s, t.durationS(), p, "obs[" + t.id() + "]");
+        Exposure e = problem.exposure(k);
+        FlexVars fv = e == null ? null : addExposure(k, e, dom, p, s);
+        IntervalVar iv = fv != null ? fv.interval
+            : model.newOptionalFixedSizeIntervalVar(s, t.durationS(), p, "obs[" + t.id() + "]");
         if (t.required()) {
           model.addEquality(p, 1);
         }
@@ -203,10 +215,112 @@ final class RoutingModel {
         present.add(p);
         startS.add(s);
         intervals.add(iv);
+        flex.add(fv);
         if (buckets != null) {
           addBucketLiterals(t, dom, p, s);
         }
       }
+    }
+
+    /**
+     * Adds the exposure of flexible request R: exposureStep[R] = g in [0, count − 1], exposure = min +
+     * step·g, endS[R] = startS[R] + exposure on the optional interval obs[R] (variable size); the whole
+     * observation in one span: inSpan[R][w] implies span.from <= startS[R] and endS[R] <= span.to, with
+     * Σ_w inSpan[R][w] = present[R]; value[R] = scaledValue[g] (element) when present, 0 (and g = 0) when
+     * absent.
+     */
+    private FlexVars addExposure(int k, Exposure e, long[][] dom, BoolVar p, IntVar s) {
+      String id = problem.tasks().get(k).id();
+      long lo = dom[0][0];
+      long hi = dom[dom.length - 1][1];
+      IntVar g = model.newIntVar(0, e.count() - 1, "exposureStep[" + id + "]");
+      LinearExpr size = LinearExpr.affine(g, e.stepS(), e.minS());
+      IntVar end = model.newIntVar(lo + e.minS(), Math.max(lo + e.minS(), Math.min(spec.arriveByS(), hi + e.maxS())),
+          "endS[" + id + "]");
+      IntervalVar iv = model.newOptionalIntervalVar(s, size, end, p, "obs[" + id + "]");
+      List<Literal> in = new ArrayList<>();
+      List<long[]> ranges = new ArrayList<>();
+      for (Exposure.Span sp : e.spans()) {
+        long from = Math.max(sp.fromS(), lo);
+        long to = Math.min(sp.toS(), spec.arriveByS());
+        if (to - from < e.minS() || from > hi) {
+          continue;
+        }
+        BoolVar y = model.newBoolVar("inSpan[" + id + "][" + sp.fromS() + ".." + sp.toS() + "]");
+        model.addGreaterOrEqual(s, from).onlyEnforceIf(y);
+        model.addLessOrEqual(end, to).onlyEnforceIf(y);
+        in.add(y);
+        ranges.add(new long[] {from, to});
+      }
+      model.addEquality(LinearExpr.sum(in.toArray(new Literal[0])), p);
+      long[] grid = scale.scaledGrid(k);
+      long top = Arrays.stream(grid).max().orElse(0);
+      long bottom = Math.min(0, Arrays.stream(grid).min().orElse(0));
+      IntVar full = model.newIntVar(bottom, top, "gridValue[" + id + "]");
+      model.addElement(g, grid, full);
+      IntVar value = model.newIntVar(bottom, top, "value[" + id + "]");
+      model.addEquality(value, full).onlyEnforceIf(p);
+      model.addEquality(value, 0).onlyEnforceIf(p.not());
+      model.addEquality(g, 0).onlyEnforceIf(p.not()); // an absent request has one exposure: no symmetric copies
+      addEnvelopeCuts(id, grid, g, value);
+      return new FlexVars(e, g, end, iv, value, in, ranges);
+    }
+
+    /**
+     * Adds (redundant): value[R] below every chord of the upper concave envelope of the scaled grid values,
+     * (b − a)·value[R] <= (b − a)·V_a + (V_b − V_a)·(g − a) for consecutive hull points a < b. The element
+     * constraint alone gives the LP relaxation no link between exposure and value; with the cuts and the
+     * energy constraint the LP bound of concave curves is the continuous optimum. Valid when R is absent
+     * too (value 0, g = 0: each chord is at least V_0 >= 0 there).
+     */
+    private void addEnvelopeCuts(String id, long[] grid, IntVar g, IntVar value) {
+      List<Integer> hull = new ArrayList<>();
+      for (int q = 0; q < grid.length; q++) {
+        while (hull.size() >= 2) {
+          int a = hull.get(hull.size() - 2);
+          int b = hull.get(hull.size() - 1);
+          // b is on or below the chord a-q: drop it
+          if ((b - a) * (double) (grid[q] - grid[a]) - (grid[b] - grid[a]) * (double) (q - a) >= 0) {
+            hull.remove(hull.size() - 1);
+          } else {
+            break;
+          }
+        }
+        hull.add(q);
+      }
+      for (int h = 0; h + 1 < hull.size(); h++) {
+        int a = hull.get(h);
+        int b = hull.get(h + 1);
+        long rise = grid[b] - grid[a];
+        // (b − a)·value − rise·g <= (b − a)·V_a − rise·a
+        model.addLessOrEqual(LinearExpr.newBuilder().addTerm(value, b - a).addTerm(g, -rise).build(),
+            (b - a) * grid[a] - rise * a);
+      }
+      if (hull.size() == 1) {
+        model.addLessOrEqual(value, grid[hull.get(0)]);
+      }
+    }
+
+    /**
+     * Adds (redundant) the energy constraint: Σ_R (shortest transition into R + duration of R)·present[R]
+     * <= arriveByS − departS, with a flexible duration min·present[R] + step·g (g = 0 when absent).
+     * Occupancies [start − least transition in, end] of a plan are disjoint inside the slice; the circuit
+     * implies this, but only through many arcs, so the LP relaxation misses it; it lets the bound trade
+     * exposure time against the number of observations.
+     */
+    private void addRedundantEnergy() {
+      LinearExprBuilder used = LinearExpr.newBuilder();
+      for (int a = 0; a < nodes.size(); a++) {
+        long in = arcs.minIn(nodes.get(a));
+        long least = in == Long.MAX_VALUE ? 0 : in;
+        FlexVars fv = flex.get(a);
+        if (fv == null) {
+          used.addTerm(present.get(a), dur(a) + least);
+        } else {
+          used.addTerm(present.get(a), fv.exposure.minS() + least).addTerm(fv.step, fv.exposure.stepS());
+        }
+      }
+      model.addLessOrEqual(used.build(), Math.max(0, spec.arriveByS() - spec.departS()));
     }
 
     /**
@@ -303,8 +417,15 @@ final class RoutingModel {
       return d[d.length - 1][1];
     }
 
+    /** Shortest time position a occupies (its duration; a flexible request's shortest exposure). */
     private long dur(int a) {
       return problem.tasks().get(nodes.get(a)).durationS();
+    }
+
+    /** endS[a] + c: startS[a] + dur(a) + c for a fixed request, endS[a] + c for a flexible one. */
+    private LinearExpr endPlus(int a, long c) {
+      FlexVars fv = flex.get(a);
+      return fv == null ? LinearExpr.affine(startS.get(a), 1, dur(a) + c) : LinearExpr.affine(fv.end, 1, c);
     }
 
     /**
@@ -367,7 +488,7 @@ final class RoutingModel {
           BoolVar lit = model.newBoolVar("next[" + t.id() + "->" + endName() + "]");
           circuit.addArc(a + 1, 0, lit);
           if (spec.to() >= 0) {
-            model.addLessOrEqual(LinearExpr.affine(startS.get(a), 1, dur(a) + c1), spec.arriveByS()).onlyEnforceIf(lit);
+            model.addLessOrEqual(endPlus(a, c1), spec.arriveByS()).onlyEnforceIf(lit);
           }
           remember(a, -1, lit, c1);
         }
@@ -381,9 +502,7 @@ final class RoutingModel {
           long c = buckets == null ? arcs.cost(k, nodes.get(b)) : lowBucketCost(a, b);
           BoolVar lit = model.newBoolVar("next[" + name(k) + "->" + name(nodes.get(b)) + "]");
           circuit.addArc(a + 1, b + 1, lit);
-          model.addGreaterOrEqual(
-              LinearExpr.newBuilder().add(startS.get(b)).addTerm(startS.get(a), -1).build(), dur(a) + c)
-              .onlyEnforceIf(lit);
+          model.addGreaterOrEqual(startS.get(b), endPlus(a, c)).onlyEnforceIf(lit);
           if (buckets != null) {
             addBucketedTransition(a, b, lit, c);
           }
@@ -545,7 +664,11 @@ final class RoutingModel {
       maxScaledPriority = 0;
       for (int a = 0; a < nodes.size(); a++) {
         long w = scale.scaled(nodes.get(a));
-        p.addTerm(present.get(a), w);
+        if (flex.get(a) != null) {
+          p.add(flex.get(a).value); // value[R] is 0 when R is absent
+        } else {
+          p.addTerm(present.get(a), w);
+        }
         maxScaledPriority += w;
       }
       LinearExprBuilder t = LinearExpr.newBuilder();
@@ -606,6 +729,7 @@ final class RoutingModel {
       int[] pos = positions();
       int m = nodes.size();
       long[] hs = new long[m];
+      long[] hd = new long[m];
       boolean[] in = new boolean[m];
       int[] order = Arrays.stream(h.order()).map(k -> pos[k]).toArray();
       for (int q = 0; q < order.length; q++) {
@@ -614,10 +738,14 @@ final class RoutingModel {
         }
         in[order[q]] = true;
         hs[order[q]] = h.startS()[q];
+        hd[order[q]] = h.durationS(problem, q);
       }
       for (int a = 0; a < m; a++) {
         model.addHint(present.get(a), in[a]);
         model.addHint(startS.get(a), in[a] ? hs[a] : earliest(a));
+        if (flex.get(a) != null) {
+          hintExposure(a, in[a], in[a] ? hs[a] : earliest(a), in[a] ? hd[a] : dur(a));
+        }
         if (buckets != null) {
           for (var e : inBucket.get(a).entrySet()) {
             long[] span = bucketSpan.get(a).get(e.getKey());
@@ -635,6 +763,23 @@ final class RoutingModel {
       for (int q = 0; q < arcLits.size(); q++) {
         int[] e = arcEnds.get(q);
         model.addHint(arcLits.get(q), used.contains(key(e[0], e[1])));
+      }
+    }
+
+    /** Hints exposure step, end, value and span literals of flexible position a. */
+    private void hintExposure(int a, boolean isIn, long start, long duration) {
+      FlexVars fv = flex.get(a);
+      int g = isIn ? fv.exposure.index(duration) : 0;
+      model.addHint(fv.step, g);
+      model.addHint(fv.end, start + fv.exposure.durationS(g));
+      model.addHint(fv.value, isIn ? scale.scaledAt(nodes.get(a), g) : 0);
+      boolean chosen = false;
+      for (int w = 0; w < fv.spans.size(); w++) {
+        Literal y = fv.spans.get(w);
+        long[] span = fv.spanRanges.get(w);
+        boolean here = isIn && !chosen && start >= span[0] && start + fv.exposure.durationS(g) <= span[1];
+        chosen |= here;
+        model.addHint(y, here);
       }
     }
 
@@ -722,6 +867,7 @@ final class RoutingModel {
       }
       List<Integer> order = new ArrayList<>();
       List<Long> starts = new ArrayList<>();
+      List<Long> durs = new ArrayList<>();
       int cur = succ[0];
       while (cur >= 0) {
         if (order.size() > m) {
@@ -729,10 +875,12 @@ final class RoutingModel {
         }
         order.add(nodes.get(cur));
         starts.add(solver.value(startS.get(cur)));
+        FlexVars fv = flex.get(cur);
+        durs.add(fv == null ? dur(cur) : fv.exposure.durationS((int) solver.value(fv.step)));
         cur = succ[cur + 1];
       }
       return new Plan(order.stream().mapToInt(Integer::intValue).toArray(),
-          starts.stream().mapToLong(Long::longValue).toArray());
+          starts.stream().mapToLong(Long::longValue).toArray(), durs.stream().mapToLong(Long::longValue).toArray());
     }
   }
 }

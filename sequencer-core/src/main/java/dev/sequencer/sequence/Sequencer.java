@@ -88,6 +88,13 @@ public final class Sequencer {
       Plan greedy = preferred(new GreedyPlanner(problem).plan());
       double buildS = (System.nanoTime() - b0) * 1e-9;
       boolean greedyComplete = hasAllRequired(greedy);
+      if (options.solver() == SequencerOptions.Solver.TWO_STAGE) {
+        return twoStage(buildS);
+      }
+      if (options.solver() == SequencerOptions.Solver.CPSAT && problem.hasFlexible()) {
+        greedy = withTwoStageStart(greedy);
+        greedyComplete = hasAllRequired(greedy);
+      }
       if (options.solver() == SequencerOptions.Solver.GREEDY) {
         double bound = options.relaxationBound() ? relaxation(Math.min(5, remainingS())) : Double.NaN;
         if (!greedyComplete) {
@@ -100,7 +107,7 @@ public final class Sequencer {
     }
 
     private SequencerResult solveCpSat(Plan greedy, boolean greedyComplete, double buildS) {
-      Plan hint = Plan.retime(problem, arcs, greedy.order());
+      Plan hint = Plan.retime(problem, arcs, greedy.order(), greedy.durations(problem));
       boolean hintComplete = hasAllRequired(hint);
       int[] nodes = java.util.stream.IntStream.range(0, problem.size())
           .filter(k -> problem.tasks().get(k).schedulable()).toArray();
@@ -119,7 +126,7 @@ public final class Sequencer {
       RoutingModel.Params params = new RoutingModel.Params(mainTime, options.effectiveWorkers(), options.seed(),
           options.reproducible(), mainDet, large, this::report);
       if (options.hint() && hintComplete) {
-        report(hint.scaledPriority(scale), hint.modelTransitionS(arcs), -1);
+        report(hint.scaledPriority(problem, scale), hint.modelTransitionS(arcs), -1);
       }
       RoutingModel.Spec spec = new RoutingModel.Spec(nodes, Transitions.START, 0, -1, problem.horizonS(),
           options.hint() ? hint : null, k);
@@ -162,13 +169,24 @@ public final class Sequencer {
         current = lns.improve(current, deadline, options.deterministicLimit() - mainDet,
             new RoutingModel.Params(0, options.effectiveWorkers(), options.seed(), options.reproducible(), 0, false,
                 null),
-            p -> report(p.scaledPriority(scale), p.modelTransitionS(arcs), -1));
+            p -> report(p.scaledPriority(problem, scale), p.modelTransitionS(arcs), -1));
         solveS += (System.nanoTime() - ls) * 1e-9;
         lnsRounds = lns.rounds;
         lnsImprovements = lns.improvements;
       }
       if (current == null) {
         return noPlan("CP-SAT found no plan in the time limit", arcsKept, buildS, solveS);
+      }
+      boolean polished = false;
+      if (problem.hasFlexible() && main.status() != CpSolverStatus.OPTIMAL) {
+        // Flexible exposures: re-allocate the exposures of the found sequence by the continuous LP (the
+        // two-stage baseline's stage 2); kept only when it adds value.
+        Plan better = new TwoStagePlanner(problem, arcs).polish(current);
+        polished = better != current;
+        if (polished) {
+          notes.append("exposures re-allocated by the continuous LP after the search. ");
+          current = better;
+        }
       }
       boolean timeDependent = problem.transitions().timeDependent();
       if (timeDependent) {
@@ -177,7 +195,8 @@ public final class Sequencer {
         // least transitions) and the trivial bound remain proven, and optimality is never claimed.
         cpBound = Double.NaN;
       }
-      boolean optimal = !timeDependent && main.status() == CpSolverStatus.OPTIMAL && allArcs && lnsImprovements == 0;
+      boolean optimal = !timeDependent && main.status() == CpSolverStatus.OPTIMAL && allArcs && lnsImprovements == 0
+          && !polished;
       double bound = minIgnoringNaN(minIgnoringNaN(cpBound, relaxationBound), trivialBound());
       SequencerResult result = finish(optimal ? PlanStatus.OPTIMAL : PlanStatus.FEASIBLE, current, bound,
           relaxationBound, arcsKept, buildS, solveS, lnsRounds, lnsImprovements);
@@ -199,8 +218,8 @@ public final class Sequencer {
         return greedy;
       }
       Plan p = Plan.retime(problem, arcs, preferredOrder);
-      long gp = greedy.scaledPriority(scale);
-      long pp = p.scaledPriority(scale);
+      long gp = greedy.scaledPriority(problem, scale);
+      long pp = p.scaledPriority(problem, scale);
       boolean notWorse = pp > gp || (pp == gp && p.modelTransitionS(arcs) <= greedy.modelTransitionS(arcs));
       if (hasAllRequired(p) && (notWorse || !hasAllRequired(greedy))) {
         notes.append("warm start: the preferred order (").append(p.size()).append(" of ")
@@ -209,6 +228,40 @@ public final class Sequencer {
       }
       notes.append("warm start: the greedy plan beats the preferred order. ");
       return greedy;
+    }
+
+    /**
+     * Flexible exposures: the joint model's warm start (and fallback) is the better of the greedy plan and
+     * the two-stage plan (preset exposures, then continuous re-allocation), which gets a quarter of the time
+     * limit; the joint search then can only improve on it.
+     */
+    private Plan withTwoStageStart(Plan greedy) {
+      Plan two = new TwoStagePlanner(problem, arcs).plan(options.withTimeLimitS(Math.max(0.5, 0.25 * remainingS())));
+      if (!hasAllRequired(two)) {
+        return greedy;
+      }
+      long gp = greedy.scaledPriority(problem, scale);
+      long tp = two.scaledPriority(problem, scale);
+      if (tp > gp || !hasAllRequired(greedy)) {
+        notes.append("warm start: the two-stage plan (").append(tp).append(" scaled value) beats greedy (")
+            .append(gp).append("). ");
+        return two;
+      }
+      return greedy;
+    }
+
+    /** The two-stage baseline (flexible exposures): stage 1 gets the whole time limit, stage 2 is one LP. */
+    private SequencerResult twoStage(double buildS) {
+      long s0 = System.nanoTime();
+      Plan plan = new TwoStagePlanner(problem, arcs).plan(options.withTimeLimitS(Math.max(0.5, remainingS())));
+      double solveS = (System.nanoTime() - s0) * 1e-9;
+      if (!hasAllRequired(plan)) {
+        return noPlan("the two-stage baseline could not fit every required request (this proves nothing)",
+            arcs.feasibleArcCount(), buildS, solveS);
+      }
+      notes.append("two-stage baseline: preset exposures, then continuous re-allocation. ");
+      return finish(PlanStatus.FEASIBLE, plan, trivialBound(), Double.NaN, arcs.feasibleArcCount(), buildS, solveS,
+          0, 0);
     }
 
     /** Lexicographic: more priority, then less total exact transition. */
@@ -355,6 +408,7 @@ public final class Sequencer {
       }
       int m = plan.size();
       int[] keptOrder = new int[m];
+      long[] dur = new long[m];
       long[] start = new long[m];
       double[] exact = new double[m];
       double[] departure = new double[m];
@@ -368,6 +422,7 @@ public final class Sequencer {
         keptOrder[kept] = plan.order()[q];
         departure[kept] = prevEnd;
         long s = plan.startS()[q];
+        long d = plan.durationS(problem, q);
         double leg = legAt(tr, keptOrder, departure, arrival, kept, s);
         if (!(prevEnd + leg <= s + 1e-9)) {
           if (tr.exactMayExceedBound() && !t.required()) {
@@ -379,7 +434,7 @@ public final class Sequencer {
               + "must never be below the exact time)");
         }
         for (int step = 0; step < 32; step++) {
-          long candidate = t.firstStartAtOrAfter(prevEnd + ArcCosts.ceilS(leg));
+          long candidate = Plan.firstFittingStart(problem, plan.order()[q], prevEnd + ArcCosts.ceilS(leg), d);
           if (candidate < 0 || candidate >= s) {
             break;
           }
@@ -394,7 +449,8 @@ public final class Sequencer {
         start[kept] = s;
         arrival[kept] = s;
         exact[kept] = leg;
-        prevEnd = s + t.durationS();
+        dur[kept] = d;
+        prevEnd = s + d;
         kept++;
       }
       if (lost > 0) {
@@ -402,7 +458,7 @@ public final class Sequencer {
             + "follow them. ");
       }
       m = kept;
-      plan = new Plan(Arrays.copyOf(keptOrder, m), Arrays.copyOf(start, m));
+      plan = new Plan(Arrays.copyOf(keptOrder, m), Arrays.copyOf(start, m), Arrays.copyOf(dur, m));
       List<Planned> planned = new ArrayList<>();
       double totalPriority = 0;
       double totalTransition = 0;
@@ -410,9 +466,11 @@ public final class Sequencer {
       for (int q = 0; q < m; q++) {
         Task t = problem.tasks().get(plan.order()[q]);
         in[plan.order()[q]] = true;
-        planned.add(new Planned(t.id(), problem.instant(start[q]), problem.instant(start[q] + t.durationS()),
-            start[q], start[q] + t.durationS(), exact[q]));
-        totalPriority += t.priority();
+        long d = plan.durationS(problem, q);
+        Double value = problem.exposure(plan.order()[q]) == null ? null : plan.value(problem, q);
+        planned.add(new Planned(t.id(), problem.instant(start[q]), problem.instant(start[q] + d),
+            start[q], start[q] + d, exact[q], value));
+        totalPriority += plan.value(problem, q);
         totalTransition += exact[q];
       }
       double modelTransition = plan.modelTransitionS(arcs);

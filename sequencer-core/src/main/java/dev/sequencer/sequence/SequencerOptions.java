@@ -32,7 +32,12 @@ public record SequencerOptions(
     /** The CP-SAT model (with greedy warm start, LNS and bounds). */
     CPSAT,
     /** Only the greedy baseline. */
-    GREEDY
+    GREEDY,
+    /**
+     * The two-stage baseline for flexible exposures ({@link TwoStagePlanner}): fixed-duration CP-SAT at
+     * preset exposures, then a continuous re-allocation of the chosen set's time; for comparisons.
+     */
+    TWO_STAGE
   }
 
   public SequencerOptions {

@@ -30,8 +30,17 @@ public record SequencerResult(
     String message,
     List<RequiredConflicts.Conflict> conflicts) {
 
-  /** One scheduled request: start and end (instants and seconds from the horizon start) and the exact transition before it. */
-  public record Planned(String id, Instant start, Instant end, long startS, long endS, double transitionS) {}
+  /**
+   * One scheduled request: start and end (instants and seconds from the horizon start), the exact
+   * transition before it and, for a flexible request, the value collected ({@code null} otherwise).
+   */
+  public record Planned(String id, Instant start, Instant end, long startS, long endS, double transitionS,
+      Double value) {
+    /** A fixed-duration observation (no value). */
+    public Planned(String id, Instant start, Instant end, long startS, long endS, double transitionS) {
+      this(id, start, end, startS, endS, transitionS, null);
+    }
+  }
 
   /**
    * Statistics: arcs kept in the main model and arcs that are time-feasible at all, model build and solve
@@ -75,7 +84,7 @@ public record SequencerResult(
   public Timeline toTimeline() {
     List<Observation> obs = new ArrayList<>();
     for (Planned p : observations) {
-      obs.add(Observation.of(p.id(), p.start(), p.end(), p.transitionS()));
+      obs.add(new Observation(p.id(), p.start(), p.end(), p.transitionS(), p.value(), null));
     }
     Double bound = Double.isNaN(boundPriority) ? null : boundPriority;
     return new Timeline(status, totalPriority, totalTransitionS, bound, obs, unscheduled);

@@ -1,5 +1,6 @@
 package dev.sequencer.validate;
 
+import dev.sequencer.model.FlexibleExposure;
 import dev.sequencer.model.Observation;
 import dev.sequencer.model.Request;
 import dev.sequencer.model.RequestWindows;
@@ -22,7 +23,8 @@ import java.util.Objects;
  * in words (empty = valid).
  *
  * <p>Checks: every observation inside one window of its request and inside the horizon; duration equal to
- * the request's; observations in time order without overlap; each gap (from the previous end, or from
+ * the request's (flexible requests: a grid exposure in [min, max] whose {@code value} is the curve's
+ * value there); observations in time order without overlap; each gap (from the previous end, or from
  * the horizon start for the first) at least the exact transition recomputed with
  * {@link Transitions#exactS} at the plan's own departure times; each reported {@code slewSeconds} equal
  * to that exact transition; every required request observed; every request exactly once (observed or
@@ -37,6 +39,11 @@ import java.util.Objects;
 public final class PlanValidator {
   /** Time tolerance of every comparison, seconds. */
   public static final double TOLERANCE_S = 1e-3;
+  /**
+   * Tolerance on a flexible observation's {@code value} against the interpolated curve: values are written
+   * as decimal doubles, so only rounding noise far below 1e-6 can separate equal values.
+   */
+  public static final double VALUE_TOLERANCE = 1e-6;
 
   private final TimeWindow horizon;
   private final List<Request> requests;
@@ -112,6 +119,8 @@ public final class PlanValidator {
       Request r = requests.get(idx);
       if (r.priority() != null) {
         prioritySum += r.priority();
+      } else if (o.value() != null) {
+        prioritySum += o.value();
       }
       checkDuration(o, r, out);
       checkWindow(o, out);
@@ -182,13 +191,47 @@ public final class PlanValidator {
 
   private void checkDuration(Observation o, Request r, List<String> out) {
     if (r.durationS() == null) {
-      return; // flexible requests: checked by the flexible-exposure extension
+      checkExposure(o, r, out);
+      return;
     }
     double d = o.durationS();
     if (Math.abs(d - r.durationS()) > TOLERANCE_S) {
       out.add(String.format(Locale.ROOT, "observation %s lasts %.3f s, but the request's durationS is %.3f",
           o.id(), d, r.durationS()));
     }
+  }
+
+  /**
+   * Flexible-exposure extension: the duration is min + k·step for a whole k and lies in [min, max]
+   * (within {@link #TOLERANCE_S}); the observation carries {@code value} equal to the curve's linear
+   * interpolation at its duration (within {@link #VALUE_TOLERANCE}).
+   */
+  private void checkExposure(Observation o, Request r, List<String> out) {
+    FlexibleExposure f = r.flexible();
+    if (f == null) {
+      return;
+    }
+    double d = o.durationS();
+    double k = Math.rint((d - f.minDurationS()) / f.durationStepS());
+    double onGrid = f.minDurationS() + k * f.durationStepS();
+    if (Math.abs(d - onGrid) > TOLERANCE_S || d < f.minDurationS() - TOLERANCE_S
+        || d > f.maxDurationS() + TOLERANCE_S) {
+      out.add(String.format(Locale.ROOT, "observation %s lasts %.3f s, not a grid exposure %s + k·%s in [%s, %s]",
+          o.id(), d, num(f.minDurationS()), num(f.durationStepS()), num(f.minDurationS()), num(f.maxDurationS())));
+    }
+    if (o.value() == null) {
+      out.add("observation " + o.id() + ": a flexible request's observation must carry its value");
+      return;
+    }
+    double expected = f.valueAt(d);
+    if (Math.abs(o.value() - expected) > VALUE_TOLERANCE) {
+      out.add(String.format(Locale.ROOT, "observation %s: value is %s, but the utility curve gives %s at %.3f s",
+          o.id(), o.value(), expected, d));
+    }
+  }
+
+  private static String num(double v) {
+    return v == Math.rint(v) ? Long.toString((long) v) : Double.toString(v);
   }
 
   private void checkWindow(Observation o, List<String> out) {

@@ -44,6 +44,10 @@ record Pipeline(Scenario scenario, List<RequestVisibility> visibility, List<Requ
 
   /** Plans with {@code options}, then re-checks the plan; a violation is our bug (IllegalStateException). */
   Planned plan(SequencerOptions options) {
+    if (transitions.timeDependent() && scenario.requests().stream().anyMatch(r -> r.isFlexible())) {
+      throw new InputException("requests: flexible exposures need time-independent transitions (fixed, matrix, "
+          + "or eigenaxis between fixed RA/Dec targets); this scenario's transitions depend on time");
+    }
     PlanningProblem problem = PlanningProblem.of(scenario, windows, transitions);
     SequencerResult result = new Sequencer().plan(problem, options);
     Timeline timeline = result.toTimeline();

@@ -9,8 +9,8 @@ import java.util.List;
 
 /**
  * Valid scenario parts the planner cannot take yet, reported like bad input (exit code 2, with the
- * JSON path) before planning starts: flexible exposures, durations that are not whole seconds and
- * priorities above {@link #MAX_PRIORITY}.
+ * JSON path) before planning starts: durations (and flexible minimum exposures and steps) that are not
+ * whole seconds and priorities or values above {@link #MAX_PRIORITY}.
  */
 final class PlanInputs {
   /**
@@ -28,8 +28,7 @@ final class PlanInputs {
       Request r = s.requests().get(i);
       String path = "requests[" + i + "] (id \"" + r.id() + "\")";
       if (r.isFlexible()) {
-        problems.add(new Problem(path, "flexible exposure (minDurationS/maxDurationS/utility) is not supported "
-            + "by the planner yet; give durationS and priority instead", null));
+        checkFlexible(r, path, problems);
       } else if (r.priority() > MAX_PRIORITY) {
         problems.add(new Problem(path + ".priority", "the planner takes priorities up to 1e9 (was " + r.priority()
             + ")", Double.toString(r.priority())));
@@ -40,6 +39,26 @@ final class PlanInputs {
     }
     if (!problems.isEmpty()) {
       throw new ScenarioException(source, problems);
+    }
+  }
+
+  /** Flexible exposure: whole-second minimum and step, values the integer objective can hold. */
+  private static void checkFlexible(Request r, String path, List<Problem> problems) {
+    var f = r.flexible();
+    if (f.minDurationS() != Math.rint(f.minDurationS())) {
+      problems.add(new Problem(path + ".minDurationS", "the planner needs a whole number of seconds (was "
+          + f.minDurationS() + ")", Double.toString(f.minDurationS())));
+    }
+    if (f.durationStepS() != Math.rint(f.durationStepS())) {
+      problems.add(new Problem(path + ".durationStepS", "the planner needs a whole number of seconds (was "
+          + f.durationStepS() + ")", Double.toString(f.durationStepS())));
+    }
+    for (int q = 0; q < f.utility().size(); q++) {
+      double v = f.utility().get(q).value();
+      if (v > MAX_PRIORITY) {
+        problems.add(new Problem(path + ".utility[" + q + "][1]", "the planner takes values up to 1e9 (was " + v
+            + ")", Double.toString(v)));
+      }
     }
   }
 }
