@@ -65,8 +65,12 @@ final class EigenaxisTransitions implements Transitions {
     return out;
   }
 
+  /** True unless every line of sight (and the start's) is still: then the legs depend on no time. */
   @Override
   public boolean timeDependent() {
-    return true;
+    if (start != null && start.maxAngularRateDegPerS(0, 1e9) != 0) {
+      return true;
+    }
+    return tracks.stream().anyMatch(t -> t.maxAngularRateDegPerS(0, 1e9) != 0);
   }
 }

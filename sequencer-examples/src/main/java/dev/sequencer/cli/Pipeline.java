@@ -11,6 +11,7 @@ import dev.sequencer.sequence.SequencerOptions;
 import dev.sequencer.sequence.SequencerResult;
 import dev.sequencer.slew.SlewModel;
 import dev.sequencer.slew.Transitions;
+import dev.sequencer.validate.PhysicsOracle;
 import dev.sequencer.validate.PlanValidator;
 import dev.sequencer.visibility.PointingTracks;
 import dev.sequencer.visibility.RequestVisibility;
@@ -29,8 +30,7 @@ record Pipeline(Scenario scenario, List<RequestVisibility> visibility, List<Requ
     List<RequestWindows> windows = vis.stream().map(RequestVisibility::toWindows).toList();
     Transitions transitions;
     try {
-      // The fixed and matrix models use only the number of requests: no pointing tracks needed (and
-      // PointingTracks supports only fixed RA/Dec targets so far).
+      // The fixed and matrix models use only the number of requests: no pointing tracks needed.
       boolean tracksNeeded = s.observer() != null
           && !(s.slew() instanceof SlewSettings.Fixed) && !(s.slew() instanceof SlewSettings.Matrix);
       transitions = !tracksNeeded
@@ -62,12 +62,21 @@ record Pipeline(Scenario scenario, List<RequestVisibility> visibility, List<Requ
 
   /** What the independent validator finds wrong with {@code timeline} (empty when it is valid). */
   List<String> violations(Timeline timeline) {
-    return PlanValidator.of(scenario, windows, transitions).violations(timeline);
+    return validator().violations(timeline);
+  }
+
+  /**
+   * The validator: windows, overlaps, exact transitions and totals, plus every constraint re-evaluated
+   * from the physics at the observations' own instants ({@link PhysicsOracle}, independent of the
+   * visibility engine).
+   */
+  private PlanValidator validator() {
+    return PlanValidator.of(scenario, windows, transitions).withOracle(new PhysicsOracle(scenario, astro));
   }
 
   /** As {@link #violations(Timeline)}, for a re-plan made at {@code now} when it is not null. */
   List<String> violations(Timeline timeline, java.time.Instant now) {
-    PlanValidator v = PlanValidator.of(scenario, windows, transitions);
+    PlanValidator v = validator();
     return (now == null ? v : v.withNow(now)).violations(timeline);
   }
 }
