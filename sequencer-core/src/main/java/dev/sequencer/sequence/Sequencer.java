@@ -86,6 +86,9 @@ public final class Sequencer {
       arcs = new ArcCosts(problem);
       scale = new PriorityScale(problem);
       Plan greedy = preferred(new GreedyPlanner(problem).plan());
+      if (!hasAllRequired(greedy)) {
+        greedy = deadlineOrderIfComplete(greedy);
+      }
       double buildS = (System.nanoTime() - b0) * 1e-9;
       boolean greedyComplete = hasAllRequired(greedy);
       if (options.solver() == SequencerOptions.Solver.TWO_STAGE) {
@@ -246,6 +249,35 @@ public final class Sequencer {
         notes.append("warm start: the two-stage plan (").append(tp).append(" scaled value) beats greedy (")
             .append(gp).append("). ");
         return two;
+      }
+      return greedy;
+    }
+
+    /**
+     * When greedy misses required requests (tight windows, as in routing benchmarks with every request
+     * required), tries three deadline orders (by latest start, by window midpoint, by earliest start),
+     * re-timed with the model's transitions: classic constructions for time windows that often fit them
+     * all; the first that does serves as warm start instead.
+     */
+    private Plan deadlineOrderIfComplete(Plan greedy) {
+      List<java.util.function.ToLongFunction<Task>> keys = List.of(
+          Task::latestStartS, t -> t.earliestStartS() + t.latestStartS(), Task::earliestStartS);
+      for (java.util.function.ToLongFunction<Task> key : keys) {
+        int[] order = java.util.stream.IntStream.range(0, problem.size())
+            .filter(k -> problem.tasks().get(k).schedulable() && k != problem.mustBeLastIndex())
+            .boxed()
+            .sorted(java.util.Comparator.comparingLong((Integer k) -> key.applyAsLong(problem.tasks().get(k)))
+                .thenComparingInt(k -> k))
+            .mapToInt(Integer::intValue).toArray();
+        if (problem.mustBeLastIndex() >= 0) {
+          order = java.util.stream.IntStream.concat(java.util.Arrays.stream(order),
+              java.util.stream.IntStream.of(problem.mustBeLastIndex())).toArray();
+        }
+        Plan candidate = Plan.retime(problem, arcs, order);
+        if (hasAllRequired(candidate)) {
+          notes.append("warm start: a deadline order fits every required request (greedy did not). ");
+          return candidate;
+        }
       }
       return greedy;
     }
