@@ -131,13 +131,7 @@ final class MovingTracks {
       if (enu == null) {
         return PointingTrack.super.azEl(tS);
       }
-      Vector3D d = ctx.inertial().getStaticTransformTo(ctx.earthFixed(), origin.shiftedBy(tS))
-          .transformVector(inertialDirection(tS));
-      double e = d.getX() * enu[0] + d.getY() * enu[1] + d.getZ() * enu[2];
-      double n = d.getX() * enu[3] + d.getY() * enu[4] + d.getZ() * enu[5];
-      double u = d.getX() * enu[6] + d.getY() * enu[7] + d.getZ() * enu[8];
-      double az = Math.toDegrees(Math.atan2(e, n));
-      return new AzEl(az < 0 ? az + 360 : az, Math.toDegrees(Math.asin(Math.max(-1, Math.min(1, u)))));
+      return SiteFrame.azEl(ctx, origin.shiftedBy(tS), enu, inertialDirection(tS));
     }
 
     @Override

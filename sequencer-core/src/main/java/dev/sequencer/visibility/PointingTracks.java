@@ -17,7 +17,6 @@ import dev.sequencer.slew.PointingTrack;
 import java.util.ArrayList;
 import java.util.List;
 import org.hipparchus.geometry.euclidean.threed.Vector3D;
-import org.orekit.frames.StaticTransform;
 import org.orekit.time.AbsoluteDate;
 
 /**
@@ -128,6 +127,7 @@ public final class PointingTracks {
     private final double cosPhi;
     private final AstroContext ctx;
     private final AbsoluteDate origin;
+    private final double culminationDeg;
 
     StarFromSite(RaDec rd, GroundSite site, AstroContext ctx, AbsoluteDate origin) {
       double[] v = TargetTrack.unit(rd.raDeg(), rd.decDeg());
@@ -137,6 +137,7 @@ public final class PointingTracks {
       this.cosPhi = Math.abs(Math.cos(Math.toRadians(site.latitudeDeg())));
       this.ctx = ctx;
       this.origin = origin;
+      this.culminationDeg = 90 - Math.abs(site.latitudeDeg() - rd.decDeg());
     }
 
     @Override
@@ -151,21 +152,16 @@ public final class PointingTracks {
 
     @Override
     public AzEl azEl(double tS) {
-      StaticTransform toItrf = ctx.inertial().getStaticTransformTo(ctx.earthFixed(), origin.shiftedBy(tS));
-      Vector3D d = toItrf.transformVector(u);
-      double e = d.getX() * enu[0] + d.getY() * enu[1] + d.getZ() * enu[2];
-      double n = d.getX() * enu[3] + d.getY() * enu[4] + d.getZ() * enu[5];
-      double up = d.getX() * enu[6] + d.getY() * enu[7] + d.getZ() * enu[8];
-      double az = Math.toDegrees(Math.atan2(e, n));
-      return new AzEl(az < 0 ? az + 360 : az, Math.toDegrees(Math.asin(Math.max(-1, Math.min(1, up)))));
+      return SiteFrame.azEl(ctx, origin.shiftedBy(tS), enu, u);
     }
 
     @Override
     public double maxAzimuthRateDegPerS(double t0S, double t1S) {
-      double elMax = Math.max(azEl(t0S).elevationDeg(), azEl(t1S).elevationDeg())
-          + EARTH_RATE_DEG_PER_S * (t1S - t0S);
+      // The star is never higher than at upper culmination, 90 - |latitude - declination| (common practice).
+      double elMax = Math.min(culminationDeg, Math.max(azEl(t0S).elevationDeg(), azEl(t1S).elevationDeg())
+          + EARTH_RATE_DEG_PER_S * (t1S - t0S));
       if (elMax >= 89.999) {
-        return 360.0; // through the zenith the azimuth can flip: no useful bound
+        return Double.POSITIVE_INFINITY; // through the zenith the azimuth can flip: no finite bound
       }
       return EARTH_RATE_DEG_PER_S * (sinPhi + cosPhi * Math.tan(Math.toRadians(elMax)));
     }
