@@ -330,7 +330,7 @@ final class RoutingModel {
     private void addBucketLiterals(Task t, long[][] dom, BoolVar p, IntVar s) {
       java.util.TreeMap<Integer, BoolVar> lits = new java.util.TreeMap<>();
       java.util.TreeMap<Integer, long[]> spans = new java.util.TreeMap<>();
-      List<long[]> parts = TimeBuckets.partition(dom);
+      List<long[]> parts = TimeBuckets.partition(dom, TimeBuckets.bucketsFor(spec.nodes().length));
       for (int q = 0; q < parts.size(); q++) {
         spans.put(q, parts.get(q));
       }

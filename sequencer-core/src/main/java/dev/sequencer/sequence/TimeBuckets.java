@@ -23,6 +23,11 @@ final class TimeBuckets {
   static final long MAX_BUCKET_S = 1800;
   /** At most this many buckets per request (the arc constraints grow as buckets²). */
   static final int MAX_BUCKETS = 12;
+  /**
+   * Budget of bucket-pair bounds per model, n² · buckets² (an alt-az bound costs a few microseconds, so
+   * this keeps the build to about a second): larger models get fewer buckets per request.
+   */
+  static final double PAIR_BUDGET = 400_000;
   /** Bucketing is used up to this many requests in one model. */
   static final int MAX_NODES = 400;
   /** Marks an impossible bucket pair. */
@@ -39,18 +44,23 @@ final class TimeBuckets {
     return problem.transitions().timeDependent() && nodes <= MAX_NODES;
   }
 
+  /** Buckets per request for a model of {@code nodes} requests: within {@link #PAIR_BUDGET}, 1 to 12. */
+  static int bucketsFor(int nodes) {
+    return (int) Math.max(1, Math.min(MAX_BUCKETS, Math.floor(Math.sqrt(PAIR_BUDGET) / Math.max(1, nodes))));
+  }
+
   /**
    * Cuts a start domain (ordered, disjoint [from, to] parts) into buckets: equal lengths between
-   * {@link #MIN_BUCKET_S} and {@link #MAX_BUCKET_S}, at most {@link #MAX_BUCKETS} over the domain's hull
+   * {@link #MIN_BUCKET_S} and {@link #MAX_BUCKET_S}, at most {@code maxBuckets} over the domain's hull
    * (longer buckets when the hull needs it); each bucket is reported as the [lowest, highest] start of the
    * domain inside it, empty buckets left out. Every start of the domain lies in exactly one bucket.
    */
-  static java.util.List<long[]> partition(long[][] domain) {
+  static java.util.List<long[]> partition(long[][] domain, int maxBuckets) {
     long lo = domain[0][0];
     long hi = domain[domain.length - 1][1];
     long span = hi - lo + 1;
-    long size = Math.max(MIN_BUCKET_S, Math.min(MAX_BUCKET_S, (span + MAX_BUCKETS - 1) / MAX_BUCKETS));
-    size = Math.max(size, (span + MAX_BUCKETS - 1) / MAX_BUCKETS);
+    long size = Math.max(MIN_BUCKET_S, Math.min(MAX_BUCKET_S, (span + maxBuckets - 1) / maxBuckets));
+    size = Math.max(size, (span + maxBuckets - 1) / maxBuckets);
     java.util.List<long[]> out = new java.util.ArrayList<>();
     for (long b0 = lo; b0 <= hi; b0 += size) {
       long b1 = b0 + size - 1;
