@@ -235,11 +235,11 @@ public final class Sequencer {
 
     /**
      * Flexible exposures: the joint model's warm start (and fallback) is the better of the greedy plan and
-     * the two-stage plan (preset exposures, then continuous re-allocation), which gets a quarter of the time
+     * the two-stage plan (preset exposures, then continuous re-allocation), which gets half of the time
      * limit; the joint search then can only improve on it.
      */
     private Plan withTwoStageStart(Plan greedy) {
-      Plan two = new TwoStagePlanner(problem, arcs).plan(options.withTimeLimitS(Math.max(0.5, 0.25 * remainingS())));
+      Plan two = new TwoStagePlanner(problem, arcs).plan(options.withTimeLimitS(Math.max(0.5, 0.5 * remainingS())));
       if (!hasAllRequired(two)) {
         return greedy;
       }
