@@ -167,17 +167,17 @@ final class AltAzTransitions implements Transitions {
   @Override
   public double boundS(int from, int to, double departureMinS, double departureMaxS, double arrivalMinS,
       double arrivalMaxS) {
-    Intervals.check("departure", departureMinS, departureMaxS);
-    Intervals.check("arrival", arrivalMinS, arrivalMaxS);
+    Intervals.Span departure = Intervals.span("departure", departureMinS, departureMaxS);
+    Intervals.Span arrival = Intervals.span("arrival", arrivalMinS, arrivalMaxS);
     if (from == START && start == null) {
       return 0;
     }
     PointingTrack f = from == START ? start : tracks.get(from);
     PointingTrack t = tracks.get(to);
-    double md = 0.5 * (departureMinS + departureMaxS);
-    double hd = 0.5 * (departureMaxS - departureMinS);
-    double ma = 0.5 * (arrivalMinS + arrivalMaxS);
-    double ha = 0.5 * (arrivalMaxS - arrivalMinS);
+    double md = departure.mid();
+    double hd = departure.half();
+    double ma = arrival.mid();
+    double ha = arrival.half();
     double fromAzimuthDriftDeg = hd == 0 ? 0 : f.maxAzimuthRateDegPerS(departureMinS, departureMaxS) * hd;
     double fromElevationDriftDeg = hd == 0 ? 0 : f.maxElevationRateDegPerS(departureMinS, departureMaxS) * hd;
     double toAzimuthDriftDeg = ha == 0 ? 0 : t.maxAzimuthRateDegPerS(arrivalMinS, arrivalMaxS) * ha;

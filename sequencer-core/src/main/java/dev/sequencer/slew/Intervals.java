@@ -12,6 +12,15 @@ final class Intervals {
     }
   }
 
+  /** The midpoint and half-width of an interval, seconds. */
+  record Span(double mid, double half) {}
+
+  /** The checked interval [minS, maxS] as midpoint and half-width (see {@link #check}). */
+  static Span span(String name, double minS, double maxS) {
+    check(name, minS, maxS);
+    return new Span(0.5 * (minS + maxS), 0.5 * (maxS - minS));
+  }
+
   /** Rejects a sequence whose arrays differ in length or whose indices are outside [0, size). */
   static void checkSequence(int[] order, double[] departureS, double[] arrivalS, int size) {
     if (order.length != departureS.length || order.length != arrivalS.length) {
