@@ -96,6 +96,7 @@ public final class SequencerBenchmark {
         r.totalPriority() / greedy.totalPriority(), r.boundPriority(), st.relaxationBound(), 100 * r.gap(),
         r.totalTransitionS(), r.observations().size(), st.arcsKept(), st.arcsFeasible(), st.buildS(), st.solveS(), s,
         st.lnsRounds(), st.lnsImprovements(), peakHeapMb(), genS);
+    System.out.println("  notes: " + st.notes());
   }
 
   private static void resetPeaks() {

@@ -23,7 +23,8 @@ import java.util.Random;
  * exactly.
  */
 final class NeighbourhoodSearch {
-  private static final int MAX_FREE = 25;
+  /** Unscheduled requests offered to one slice, beyond its own observations. */
+  private static final int MAX_CANDIDATES = 20;
   private static final int MIN_SLICE = 4;
   private static final int MAX_SLICE = 40;
   private static final double ROUND_TIME_S = 1.0;
@@ -66,7 +67,7 @@ final class NeighbourhoodSearch {
       long departS = a == 0 ? 0 : current.startS()[a - 1] + current.durationS(problem, a - 1);
       int to = b == m ? -1 : current.order()[b];
       long arriveByS = b == m ? problem.horizonS() : current.startS()[b];
-      int[] free = freeRequests(current, a, b, departS, arriveByS, to >= 0);
+      int[] free = freeRequests(current, a, b, from, departS, arriveByS, to >= 0);
       Plan slicePlan = new Plan(java.util.Arrays.copyOfRange(current.order(), a, b),
           java.util.Arrays.copyOfRange(current.startS(), a, b),
           java.util.Arrays.copyOfRange(current.durations(problem), a, b));
@@ -118,8 +119,13 @@ final class NeighbourhoodSearch {
     return sum;
   }
 
-  /** The slice's observations plus unscheduled requests that could start in it, best priority first, at most MAX_FREE. */
-  private int[] freeRequests(Plan current, int a, int b, long departS, long arriveByS, boolean hasSuccessor) {
+  /**
+   * The slice's observations plus up to {@link #MAX_CANDIDATES} unscheduled requests that could start in
+   * it, the best first by priority per second used (duration plus the cheapest model transition into it
+   * from the slice's start or one of its observations), each score scaled by a random factor in [0.5, 1.5)
+   * so that successive rounds on the same slice try different candidates.
+   */
+  private int[] freeRequests(Plan current, int a, int b, int from, long departS, long arriveByS, boolean hasSuccessor) {
     boolean[] planned = new boolean[problem.size()];
     for (int k : current.order()) {
       planned[k] = true;
@@ -129,28 +135,46 @@ final class NeighbourhoodSearch {
       free.add(current.order()[q]);
     }
     List<Integer> candidates = new ArrayList<>();
+    double[] score = new double[problem.size()];
     for (int k = 0; k < problem.size(); k++) {
       Task t = problem.tasks().get(k);
-      if (planned[k] || !t.schedulable() || (hasSuccessor && k == problem.mustBeLastIndex())) {
+      if (planned[k] || !t.schedulable() || (hasSuccessor && k == problem.mustBeLastIndex())
+          || !startsBetween(t, departS, arriveByS)) {
         continue;
       }
-      for (StartRange r : t.starts()) {
-        if (r.toS() >= departS && r.fromS() <= arriveByS - t.durationS()) {
-          candidates.add(k);
-          break;
-        }
+      long in = nearestInto(k, from, free);
+      if (in < 0) {
+        continue;
       }
+      candidates.add(k);
+      score[k] = t.priority() / (double) (t.durationS() + in + 1) * (0.5 + random.nextDouble());
     }
-    // Random tie-breaks keep successive rounds on the same slice from trying the same candidates.
-    double[] jitter = new double[problem.size()];
-    for (int k : candidates) {
-      jitter[k] = random.nextDouble();
-    }
-    candidates.sort(Comparator.comparingDouble((Integer k) -> -problem.tasks().get(k).priority() * (0.5 + jitter[k])));
-    for (int q = 0; q < candidates.size() && free.size() < MAX_FREE; q++) {
+    candidates.sort(Comparator.comparingDouble((Integer k) -> -score[k]).thenComparingInt(k -> k));
+    for (int q = 0; q < candidates.size() && q < MAX_CANDIDATES; q++) {
       free.add(candidates.get(q));
     }
     return free.stream().mapToInt(Integer::intValue).toArray();
+  }
+
+  private static boolean startsBetween(Task t, long departS, long arriveByS) {
+    for (StartRange r : t.starts()) {
+      if (r.toS() >= departS && r.fromS() <= arriveByS - t.durationS()) {
+        return true;
+      }
+    }
+    return false;
+  }
+
+  /** Cheapest model transition into k from {@code from} or one of {@code members}; -1 when none can precede it. */
+  private long nearestInto(int k, int from, List<Integer> members) {
+    long best = arcs.costFrom(from, k);
+    for (int i : members) {
+      long c = arcs.cost(i, k);
+      if (c >= 0 && (best < 0 || c < best)) {
+        best = c;
+      }
+    }
+    return best;
   }
 
   private Plan splice(Plan p, int a, int b, Plan mid) {

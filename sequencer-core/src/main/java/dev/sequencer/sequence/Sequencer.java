@@ -30,6 +30,10 @@ public final class Sequencer {
   static final int AUTO_K_BEST = 10;
   /** Share of the time limit the whole-model solve gets on large models before LNS takes over. */
   static final double MAIN_SHARE_LARGE = 0.35;
+  /** Share of the time limit the insertion search gets to improve the warm start (fixed durations). */
+  static final double INSERTION_SHARE = 0.3;
+  /** Insertion-search iterations per CP-SAT deterministic unit in reproducible mode. */
+  static final double INSERTION_ITERATIONS_PER_UNIT = 100;
 
   /** Plans {@code problem} with {@code options}. */
   public SequencerResult plan(PlanningProblem problem, SequencerOptions options) {
@@ -97,6 +101,8 @@ public final class Sequencer {
       if (options.solver() == SequencerOptions.Solver.CPSAT && problem.hasFlexible()) {
         greedy = withTwoStageStart(greedy);
         greedyComplete = hasAllRequired(greedy);
+      } else if (options.solver() == SequencerOptions.Solver.CPSAT && greedyComplete && options.hint()) {
+        greedy = withInsertionSearch(greedy);
       }
       if (options.solver() == SequencerOptions.Solver.GREEDY) {
         double bound = options.relaxationBound() ? relaxation(Math.min(5, remainingS())) : Double.NaN;
@@ -251,6 +257,33 @@ public final class Sequencer {
         return two;
       }
       return greedy;
+    }
+
+    /**
+     * Improves the warm start by {@link InsertionSearch} for {@link #INSERTION_SHARE} of the time limit
+     * (in reproducible mode, for {@link #INSERTION_ITERATIONS_PER_UNIT} iterations per deterministic
+     * unit instead); kept when better (it never is worse).
+     */
+    private Plan withInsertionSearch(Plan start) {
+      boolean anyOptional = problem.tasks().stream().anyMatch(t -> t.schedulable() && !t.required());
+      if (!anyOptional) {
+        return start;
+      }
+      InsertionSearch search = new InsertionSearch(problem, arcs, scale, options.seed());
+      long budgetNanos = (long) (INSERTION_SHARE * options.timeLimitS() * 1e9);
+      long deadlineNanos = options.reproducible() ? Long.MAX_VALUE : System.nanoTime() + budgetNanos;
+      long iterations = options.reproducible()
+          ? Math.max(1, (long) (INSERTION_SHARE * INSERTION_ITERATIONS_PER_UNIT * options.deterministicLimit()))
+          : Long.MAX_VALUE;
+      Plan out = search.improve(start, deadlineNanos, iterations);
+      long sp = start.scaledPriority(problem, scale);
+      long op = out.scaledPriority(problem, scale);
+      notes.append("insertion search: ").append(search.iterations).append(" iterations, ")
+          .append(search.improvements).append(" improving; warm start ")
+          .append(String.format(java.util.Locale.ROOT, "%.6g -> %.6g", start.priority(problem), out.priority(problem)))
+          .append(". ");
+      boolean better = op > sp || (op == sp && out.modelTransitionS(arcs) < start.modelTransitionS(arcs));
+      return better && hasAllRequired(out) ? out : start;
     }
 
     /**

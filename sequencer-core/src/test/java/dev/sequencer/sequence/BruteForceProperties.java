@@ -38,7 +38,12 @@ class BruteForceProperties {
 
   @Provide
   Arbitrary<Instance> instances() {
-    return Arbitraries.longs().map(seed -> {
+    return Arbitraries.longs().map(BruteForceProperties::instance);
+  }
+
+  /** The random instance of {@code seed}. */
+  static Instance instance(long seed) {
+    {
       Random rnd = new Random(seed);
       int n = 1 + rnd.nextInt(8);
       boolean fractional = rnd.nextBoolean();
@@ -76,7 +81,7 @@ class BruteForceProperties {
         }
       }
       return new Instance(requests, windows, m, fromStart);
-    });
+    }
   }
 
   @Property(tries = 60)
