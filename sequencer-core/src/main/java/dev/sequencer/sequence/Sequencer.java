@@ -34,6 +34,8 @@ public final class Sequencer {
   static final double INSERTION_SHARE = 0.3;
   /** Insertion-search iterations per CP-SAT deterministic unit in reproducible mode. */
   static final double INSERTION_ITERATIONS_PER_UNIT = 100;
+  /** Flexible exposures: largest share of the time limit the exposure-aware moves get for the warm start. */
+  static final double MOVES_START_SHARE = 0.4;
 
   /** Plans {@code problem} with {@code options}. */
   public SequencerResult plan(PlanningProblem problem, SequencerOptions options) {
@@ -99,7 +101,7 @@ public final class Sequencer {
         return twoStage(buildS);
       }
       if (options.solver() == SequencerOptions.Solver.CPSAT && problem.hasFlexible()) {
-        greedy = withTwoStageStart(greedy);
+        greedy = withMovesStart(greedy);
         greedyComplete = hasAllRequired(greedy);
       } else if (options.solver() == SequencerOptions.Solver.CPSAT && greedyComplete && options.hint()) {
         greedy = withInsertionSearch(greedy);
@@ -175,25 +177,34 @@ public final class Sequencer {
       if (current != null && runLns && main.status() != CpSolverStatus.OPTIMAL) {
         NeighbourhoodSearch lns = new NeighbourhoodSearch(problem, arcs, scale, model, options.seed());
         long ls = System.nanoTime();
-        current = lns.improve(current, deadline, options.deterministicLimit() - mainDet,
-            new RoutingModel.Params(0, options.effectiveWorkers(), options.seed(), options.reproducible(), 0, false,
-                null),
-            p -> report(p.scaledPriority(problem, scale), p.modelTransitionS(arcs), -1));
+        RoutingModel.Params lnsParams = new RoutingModel.Params(0, options.effectiveWorkers(), options.seed(),
+            options.reproducible(), 0, false, null);
+        java.util.function.Consumer<Plan> onImprove =
+            p -> report(p.scaledPriority(problem, scale), p.modelTransitionS(arcs), -1);
+        if (problem.hasFlexible()) {
+          FlexibleSearch search = new FlexibleSearch(problem, arcs, scale);
+          current = search.improve(current, lns, deadline, options.deterministicLimit() - mainDet, lnsParams,
+              onImprove);
+          lnsImprovements += search.moveCount();
+          notes.append("exposure-aware moves: ").append(search.moveCount()).append(" accepted. ");
+        } else {
+          current = lns.improve(current, deadline, options.deterministicLimit() - mainDet, lnsParams, onImprove);
+        }
         solveS += (System.nanoTime() - ls) * 1e-9;
         lnsRounds = lns.rounds;
-        lnsImprovements = lns.improvements;
+        lnsImprovements += lns.improvements;
       }
       if (current == null) {
         return noPlan("CP-SAT found no plan in the time limit", arcsKept, buildS, solveS);
       }
       boolean polished = false;
       if (problem.hasFlexible() && main.status() != CpSolverStatus.OPTIMAL) {
-        // Flexible exposures: re-allocate the exposures of the found sequence by the continuous LP (the
-        // two-stage baseline's stage 2); kept only when it adds value.
-        Plan better = new TwoStagePlanner(problem, arcs).polish(current);
-        polished = better != current;
+        // Flexible exposures: the exact fixed-order allocation and the exposure-aware moves on the found
+        // plan; kept only when they add value.
+        Plan better = new FlexibleSearch(problem, arcs, scale).moves(current, deadline, options.reproducible(), 0);
+        polished = better.scaledPriority(problem, scale) > current.scaledPriority(problem, scale);
         if (polished) {
-          notes.append("exposures re-allocated by the continuous LP after the search. ");
+          notes.append("exposures re-allocated exactly (and moves) after the search. ");
           current = better;
         }
       }
@@ -240,21 +251,20 @@ public final class Sequencer {
     }
 
     /**
-     * Flexible exposures: the joint model's warm start (and fallback) is the better of the greedy plan and
-     * the two-stage plan (preset exposures, then continuous re-allocation), which gets half of the time
-     * limit; the joint search then can only improve on it.
+     * Flexible exposures: the joint model's warm start (and fallback) is the greedy plan improved by the
+     * exposure-aware moves (exact re-allocation, insertions, replacements), given at most
+     * {@link #MOVES_START_SHARE} of the time; the joint search then can only improve on it.
      */
-    private Plan withTwoStageStart(Plan greedy) {
-      Plan two = new TwoStagePlanner(problem, arcs).plan(options.withTimeLimitS(Math.max(0.5, 0.5 * remainingS())));
-      if (!hasAllRequired(two)) {
-        return greedy;
-      }
+    private Plan withMovesStart(Plan greedy) {
+      long until = System.nanoTime() + (long) (MOVES_START_SHARE * remainingS() * 1e9);
+      Plan moved = new FlexibleSearch(problem, arcs, scale).moves(greedy, until, options.reproducible(),
+          MOVES_START_SHARE * options.deterministicLimit());
       long gp = greedy.scaledPriority(problem, scale);
-      long tp = two.scaledPriority(problem, scale);
-      if (tp > gp || !hasAllRequired(greedy)) {
-        notes.append("warm start: the two-stage plan (").append(tp).append(" scaled value) beats greedy (")
-            .append(gp).append("). ");
-        return two;
+      long mp = moved.scaledPriority(problem, scale);
+      if (mp > gp && hasAllRequired(moved)) {
+        notes.append("warm start: exposure-aware moves raise the greedy plan from ").append(gp).append(" to ")
+            .append(mp).append(" (scaled value). ");
+        return moved;
       }
       return greedy;
     }
