@@ -100,6 +100,10 @@ record Exposure(long minS, long stepS, double[] values, List<Span> spans) {
     double[] values = new double[count];
     for (int g = 0; g < count; g++) {
       values[g] = f.valueAt(min + g * step);
+      if (values[g] > PlanningProblem.MAX_PRIORITY) {
+        throw new IllegalArgumentException("value " + values[g] + " at " + (min + g * step) + " s is above the largest "
+            + "the planner takes, " + PlanningProblem.MAX_PRIORITY);
+      }
     }
     return new Exposure(min, step, values, spans);
   }

@@ -11,28 +11,38 @@ import java.util.Random;
  *
  * <ul>
  *   <li>Insertion: among all (unplanned request, position) pairs that fit, insert the one with the largest
- *       priority² / time used, where the time used is how much later the next observation could start
- *       (the observation's own duration, its wait and the change of transition); repeat until nothing fits.
- *       Squaring the priority favours valuable requests over merely short ones.</li>
- *   <li>Tightening: move single observations a few positions earlier or later while that lowers the
- *       total transition and the plan still fits, then insert again into the time freed.</li>
- *   <li>Perturbation: remove a run of {@code r} consecutive optional observations starting at position
- *       {@code s}, move the rest of the plan to its earliest starts, and insert again: first without the
- *       removed requests (so that others get their place), then with them. {@code r} grows by
- *       one after each iteration that does not improve the best plan and falls back to 1 when it does (or
- *       reaches a third of the plan); {@code s} advances by {@code r}, and one time in eight jumps to a
- *       random position. After {@link #RESTART_AFTER}
- *       iterations without improvement the search continues from the best plan.</li>
+ *       priority² / time used, where the time used is how much later the next observation must start (0
+ *       when the request fits in idle time) or, at the end, how much later the plan ends; repeat until
+ *       nothing fits. Squaring the priority favours valuable requests over merely short ones.</li>
+ *   <li>Tightening: move single observations up to {@link #MOVE_REACH} positions while that lowers the
+ *       total model transition and the plan still fits, then insert again into the time freed.</li>
+ *   <li>Perturbation: remove {@code r} observations — a run of consecutive ones from position {@code s},
+ *       or (one time in {@link #WORST_ONE_IN}) those with the least priority per second used — move the
+ *       rest to earliest starts and insert again, now and then (one time in {@link #TABU_ONE_IN}) first
+ *       without the removed requests so that others get their place. {@code r} grows by one after each
+ *       iteration that does not improve the best plan and falls back to 1 when it does (or reaches a
+ *       third of the plan); {@code s} advances by {@code r} and one time in eight jumps to a random
+ *       position. After {@link #RESTART_AFTER} iterations without improvement the search continues from
+ *       the best plan; after {@link #STALL_LIMIT} it ends.</li>
  * </ul>
  *
  * <p>The plan is always kept at earliest starts under the model transitions (as {@link Plan#retime}), so
- * every plan it holds is model-feasible; required requests are never removed and a request that must be
- * last stays last. Plans compare by scaled priority, then model transition. Fixed-duration requests only
- * (the caller skips problems with flexible exposures). The random generator is seeded and the iteration
- * budget can be a count, so with the same seed and count the search repeats exactly.
+ * every plan it holds is model-feasible, and a request that must be last stays last. Plans rank by the
+ * number of required requests missing (fewer first), then scaled priority, then model transition.
+ * Fitting required requests are inserted before any optional one; while the best plan still misses one,
+ * perturbations may remove required requests too (so the search also looks for a complete plan, e.g. a
+ * tour with every customer); once it is complete they are never removed, except when every request is
+ * required (a routing problem with time windows, where the search then shortens the tour).
+ * Fixed-duration requests only (the caller uses other moves for flexible exposures). The random
+ * generator is seeded and the budget can be an iteration or evaluation count, so with the same seed and
+ * count the search repeats exactly.
  */
 final class InsertionSearch {
   static final int RESTART_AFTER = 60;
+  /** One perturbation in this many removes the observations with the least priority per second instead of a run. */
+  static final int WORST_ONE_IN = 3;
+  /** The search ends after this many iterations without a better plan. */
+  static final int STALL_LIMIT = 3000;
   /** Observations re-timed one by one when an insertion exceeds the slack; beyond, the insertion is refused. */
   static final int PROPAGATION_REACH = 2;
   /** One perturbation in this many keeps the removed requests out of the first insertion round. */
@@ -55,8 +65,13 @@ final class InsertionSearch {
   private final long[] latest;
   private final long[] earliestEnd;
   private final double[] priority;
+  private final boolean[] required;
+  /** Every schedulable request is required (a routing problem): perturbations remove required ones too. */
+  private final boolean allRequired;
   int iterations;
   int improvements;
+  /** Insertion and move evaluations so far (the work measure of reproducible runs). */
+  long evaluations;
 
   InsertionSearch(PlanningProblem problem, ArcCosts arcs, PriorityScale scale, int seed) {
     this.problem = problem;
@@ -71,36 +86,57 @@ final class InsertionSearch {
     this.latest = new long[n];
     this.earliestEnd = new long[n];
     this.priority = new double[n];
+    this.required = new boolean[n];
     for (int k = 0; k < n; k++) {
       Task t = problem.tasks().get(k);
       schedulable[k] = t.schedulable();
       latest[k] = schedulable[k] ? t.latestStartS() : -1;
       earliestEnd[k] = schedulable[k] ? t.earliestStartS() + t.durationS() : Long.MAX_VALUE;
       priority[k] = scale.scaledFor(problem, k, t.durationS());
+      required[k] = t.required();
     }
     this.planned = new boolean[n];
     this.tabu = new boolean[n];
+    boolean anyOptional = false;
+    for (int k = 0; k < n; k++) {
+      anyOptional |= schedulable[k] && !required[k];
+    }
+    this.allRequired = !anyOptional;
   }
 
   /**
-   * Improves {@code initial} (model-feasible, fixed durations) until {@code deadlineNanos} (System.nanoTime)
-   * or {@code maxIterations} perturbations, whichever comes first; returns the best plan found.
+   * Improves {@code initial} (fixed durations; re-timed under the model transitions first) until {@code deadlineNanos} (System.nanoTime)
+   * or {@code maxIterations} perturbations or {@link #STALL_LIMIT} perturbations without a better plan,
+   * whichever comes first; returns the best plan found.
    */
   Plan improve(Plan initial, long deadlineNanos, long maxIterations) {
-    load(initial.order());
+    return improve(initial, deadlineNanos, maxIterations, Long.MAX_VALUE);
+  }
+
+  /**
+   * As {@link #improve(Plan, long, long)}, also ending once {@code maxEvaluations} insertion and move
+   * evaluations are spent (a machine-independent work budget for reproducible runs).
+   */
+  Plan improve(Plan initial, long deadlineNanos, long maxIterations, long maxEvaluations) {
+    // The start may hold exact transitions shorter than the model's bounds: keep what fits under the model.
+    load(Plan.retime(problem, arcs, initial.order()).order());
     insertAll(null);
     Plan best = snapshot();
-    long bestP = best.scaledPriority(problem, scale);
-    long bestT = best.modelTransitionS(arcs);
+    long[] bestKey = key(best);
     int r = 1;
     int s = 0;
     int sinceBest = 0;
-    while (iterations < maxIterations && System.nanoTime() < deadlineNanos && removableCount() > 0) {
+    while (iterations < maxIterations && evaluations < maxEvaluations && System.nanoTime() < deadlineNanos
+        && sinceBest < STALL_LIMIT
+        && removableCount(bestKey[0] < 0 || allRequired) > 0) {
       iterations++;
       s = m == 0 ? 0 : s % m;
       int[] before = Arrays.copyOf(order, m);
       Arrays.fill(tabu, false);
-      if (!removeRun(s, r)) {
+      boolean anyRequest = bestKey[0] < 0 || allRequired;
+      boolean removedOk = WORST_ONE_IN > 0 && random.nextInt(WORST_ONE_IN) == 0
+          ? removeWorst(r, anyRequest) : removeRun(s, r, anyRequest);
+      if (!removedOk) {
         load(before); // a new neighbour pair may not fit (tables without the triangle inequality)
         Arrays.fill(tabu, false);
       }
@@ -112,12 +148,10 @@ final class InsertionSearch {
         insertAll(null);
       }
       Plan current = snapshot();
-      long p = current.scaledPriority(problem, scale);
-      long t = current.modelTransitionS(arcs);
-      if (p > bestP || (p == bestP && t < bestT)) {
+      long[] k = key(current);
+      if (Arrays.compare(k, bestKey) > 0) {
         best = current;
-        bestP = p;
-        bestT = t;
+        bestKey = k;
         r = 1;
         sinceBest = 0;
         improvements++;
@@ -139,7 +173,19 @@ final class InsertionSearch {
     return best;
   }
 
-  /** Farthest position an observation is moved by {@link #tighten()}. */
+  /** Comparison key, larger is better: (−missing required requests, scaled priority, −model transition). */
+  private long[] key(Plan p) {
+    boolean[] in = new boolean[n];
+    for (int k : p.order()) {
+      in[k] = true;
+    }
+    long missing = 0;
+    for (int k = 0; k < n; k++) {
+      missing += problem.tasks().get(k).required() && !in[k] ? 1 : 0;
+    }
+    return new long[] {-missing, p.scaledPriority(problem, scale), -p.modelTransitionS(arcs)};
+  }
+
   static final int MOVE_REACH = 6;
 
   /**
@@ -176,6 +222,7 @@ final class InsertionSearch {
 
   /** Change of total model transition when the observation at q moves to position p (q != p); +∞ if impossible. */
   private long moveDelta(int q, int p) {
+    evaluations++;
     int k = order[q];
     int before = q == 0 ? Transitions.START : order[q - 1];
     long removed = arcs.costFrom(before, k) + (q + 1 < m ? arcs.cost(k, order[q + 1]) : 0)
@@ -293,6 +340,7 @@ final class InsertionSearch {
    * them are re-timed one by one.
    */
   private long insertionCost(int k, int pos) {
+    evaluations++;
     long prevEnd = pos == 0 ? 0 : end(pos - 1);
     long sk = earliestAfter(pos == 0 ? Transitions.START : order[pos - 1], prevEnd, k);
     if (sk < 0) {
@@ -353,13 +401,14 @@ final class InsertionSearch {
       int bestK = -1;
       int bestPos = -1;
       double bestScore = -1;
+      boolean bestRequired = false; // a fitting required request goes before any optional one
       int maxPos = last >= 0 && planned[last] ? positionOf(last) : m;
       for (int k = 0; k < n; k++) {
-        if (planned[k] || !schedulable[k] || k == last || (skip != null && skip[k])) {
+        if (planned[k] || !schedulable[k] || (skip != null && skip[k]) || (bestRequired && !required[k])) {
           continue;
         }
         double p = priority[k];
-        for (int pos = 0; pos <= maxPos; pos++) {
+        for (int pos = k == last ? m : 0; pos <= maxPos; pos++) {
           if (pos > 0 && latest[k] < start[pos - 1]) {
             break; // every later position starts after k's last allowed start
           }
@@ -371,10 +420,11 @@ final class InsertionSearch {
             continue;
           }
           double score = p * p / (used + 0.01 * consumed(k, pos) + 1.0);
-          if (score > bestScore) {
+          if (score > bestScore || (required[k] && !bestRequired)) {
             bestScore = score;
             bestK = k;
             bestPos = pos;
+            bestRequired = required[k];
           }
         }
       }
@@ -406,15 +456,16 @@ final class InsertionSearch {
   }
 
   /**
-   * Removes up to r consecutive optional observations from position s on (required ones stay) and moves
-   * the rest to earliest starts; false when that breaks the plan (the caller restores it).
+   * Removes up to r consecutive optional observations from position s on (required ones stay unless
+   * {@code anyRequest}; a request that must be last always stays) and moves the rest to earliest starts;
+   * false when that breaks the plan (the caller restores it).
    */
-  private boolean removeRun(int s, int r) {
+  private boolean removeRun(int s, int r, boolean anyRequest) {
     int write = s;
     int removed = 0;
     for (int q = s; q < m; q++) {
       int k = order[q];
-      if (removed < r && !problem.tasks().get(k).required()) {
+      if (removed < r && (anyRequest || !required[k]) && k != problem.mustBeLastIndex()) {
         planned[k] = false;
         tabu[k] = true;
         removed++;
@@ -428,11 +479,51 @@ final class InsertionSearch {
     return retimeFrom(s);
   }
 
-  private int removableCount() {
+  /**
+   * Removes the r removable observations with the least priority per second used (duration plus the
+   * transition into it), each ratio scaled by a random factor in [0.75, 1.25), and moves the rest to
+   * earliest starts; false when that breaks the plan (the caller restores it).
+   */
+  private boolean removeWorst(int r, boolean anyRequest) {
+    Integer[] byRatio = new Integer[m];
+    double[] ratio = new double[m];
     int count = 0;
     for (int q = 0; q < m; q++) {
-      count += problem.tasks().get(order[q]).required() ? 0 : 1;
+      int k = order[q];
+      if ((anyRequest || !required[k]) && k != problem.mustBeLastIndex()) {
+        long in = arcs.costFrom(q == 0 ? Transitions.START : order[q - 1], k);
+        ratio[q] = priority[k] / (problem.tasks().get(k).durationS() + in + 1.0) * (0.75 + 0.5 * random.nextDouble());
+        byRatio[count++] = q;
+      }
     }
-    return count + (m < n ? 1 : 0);
+    Arrays.sort(byRatio, 0, count, (a, b) -> Double.compare(ratio[a], ratio[b]));
+    boolean[] drop = new boolean[m];
+    int first = m;
+    for (int i = 0; i < Math.min(r, count); i++) {
+      drop[byRatio[i]] = true;
+      first = Math.min(first, byRatio[i]);
+    }
+    int write = 0;
+    for (int q = 0; q < m; q++) {
+      if (drop[q]) {
+        planned[order[q]] = false;
+        tabu[order[q]] = true;
+        continue;
+      }
+      order[write] = order[q];
+      start[write] = start[q];
+      write++;
+    }
+    m = write;
+    return retimeFrom(Math.min(first, m));
+  }
+
+  /** Observations a perturbation may remove (all but the must-be-last one when {@code anyRequest}). */
+  private int removableCount(boolean anyRequest) {
+    int count = 0;
+    for (int q = 0; q < m; q++) {
+      count += (anyRequest || !required[order[q]]) && order[q] != problem.mustBeLastIndex() ? 1 : 0;
+    }
+    return count;
   }
 }

@@ -22,6 +22,12 @@ import java.util.Objects;
  * visibility window. Immutable.
  */
 public final class PlanningProblem {
+  /**
+   * Largest priority (or flexible value) the planner takes: CP-SAT needs integer priorities (scaled by up
+   * to 1000), and their sum over 10,000 requests must stay far below 2^63 (1e9 × 1000 × 1e4 = 1e16).
+   */
+  public static final double MAX_PRIORITY = 1e9;
+
   /** Reason given for a request without any visibility window. */
   public static final String NEVER_VISIBLE = "never visible";
   /** Reason given for a request whose windows are all too short (after inward rounding to seconds). */
@@ -52,6 +58,10 @@ public final class PlanningProblem {
       }
       if (!(priority > 0) || !Double.isFinite(priority)) {
         throw new IllegalArgumentException("request " + id + ": priority must be a finite number > 0, got " + priority);
+      }
+      if (priority > MAX_PRIORITY) {
+        throw new IllegalArgumentException("request " + id + ": priority " + priority + " is above the largest the "
+            + "planner takes, " + MAX_PRIORITY);
       }
     }
 

@@ -31,9 +31,12 @@ public final class Sequencer {
   /** Share of the time limit the whole-model solve gets on large models before LNS takes over. */
   static final double MAIN_SHARE_LARGE = 0.35;
   /** Share of the time limit the insertion search gets to improve the warm start (fixed durations). */
-  static final double INSERTION_SHARE = 0.3;
-  /** Insertion-search iterations per CP-SAT deterministic unit in reproducible mode. */
-  static final double INSERTION_ITERATIONS_PER_UNIT = 100;
+  static final double INSERTION_SHARE = 0.5;
+  /**
+   * Insertion-search evaluations per CP-SAT deterministic unit in reproducible mode: about what one core
+   * of this project's machine evaluates per second (a rough calibration, not a measured constant).
+   */
+  static final double INSERTION_EVALUATIONS_PER_UNIT = 6e6;
   /** Flexible exposures: largest share of the time limit the exposure-aware moves get for the warm start. */
   static final double MOVES_START_SHARE = 0.4;
 
@@ -103,8 +106,9 @@ public final class Sequencer {
       if (options.solver() == SequencerOptions.Solver.CPSAT && problem.hasFlexible()) {
         greedy = withMovesStart(greedy);
         greedyComplete = hasAllRequired(greedy);
-      } else if (options.solver() == SequencerOptions.Solver.CPSAT && greedyComplete && options.hint()) {
+      } else if (options.solver() == SequencerOptions.Solver.CPSAT && options.hint()) {
         greedy = withInsertionSearch(greedy);
+        greedyComplete = hasAllRequired(greedy);
       }
       if (options.solver() == SequencerOptions.Solver.GREEDY) {
         double bound = options.relaxationBound() ? relaxation(Math.min(5, remainingS())) : Double.NaN;
@@ -271,29 +275,29 @@ public final class Sequencer {
 
     /**
      * Improves the warm start by {@link InsertionSearch} for {@link #INSERTION_SHARE} of the time limit
-     * (in reproducible mode, for {@link #INSERTION_ITERATIONS_PER_UNIT} iterations per deterministic
-     * unit instead); kept when better (it never is worse).
+     * (in reproducible mode, for {@link #INSERTION_EVALUATIONS_PER_UNIT} evaluations per deterministic
+     * unit instead); kept when better, or when it holds every required request and {@code start} does not.
      */
     private Plan withInsertionSearch(Plan start) {
-      boolean anyOptional = problem.tasks().stream().anyMatch(t -> t.schedulable() && !t.required());
-      if (!anyOptional) {
-        return start;
-      }
       InsertionSearch search = new InsertionSearch(problem, arcs, scale, options.seed());
       long budgetNanos = (long) (INSERTION_SHARE * options.timeLimitS() * 1e9);
       long deadlineNanos = options.reproducible() ? Long.MAX_VALUE : System.nanoTime() + budgetNanos;
-      long iterations = options.reproducible()
-          ? Math.max(1, (long) (INSERTION_SHARE * INSERTION_ITERATIONS_PER_UNIT * options.deterministicLimit()))
+      long evaluations = options.reproducible()
+          ? Math.max(1, (long) (INSERTION_SHARE * INSERTION_EVALUATIONS_PER_UNIT * options.deterministicLimit()))
           : Long.MAX_VALUE;
-      Plan out = search.improve(start, deadlineNanos, iterations);
+      Plan out = search.improve(start, deadlineNanos, Long.MAX_VALUE, evaluations);
       long sp = start.scaledPriority(problem, scale);
       long op = out.scaledPriority(problem, scale);
-      notes.append("insertion search: ").append(search.iterations).append(" iterations, ")
-          .append(search.improvements).append(" improving; warm start ")
+      notes.append("insertion search: ").append(search.iterations).append(" iterations (")
+          .append(search.evaluations).append(" evaluations), ").append(search.improvements)
+          .append(" improving; warm start ")
           .append(String.format(java.util.Locale.ROOT, "%.6g -> %.6g", start.priority(problem), out.priority(problem)))
           .append(". ");
       boolean better = op > sp || (op == sp && out.modelTransitionS(arcs) < start.modelTransitionS(arcs));
-      return better && hasAllRequired(out) ? out : start;
+      if (hasAllRequired(out) && (better || !hasAllRequired(start))) {
+        return out;
+      }
+      return start;
     }
 
     /**

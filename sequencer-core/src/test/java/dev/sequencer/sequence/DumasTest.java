@@ -1,11 +1,11 @@
 package dev.sequencer.sequence;
 
 import static org.junit.jupiter.api.Assertions.assertEquals;
+import static org.junit.jupiter.api.Assertions.assertTrue;
 import static org.junit.jupiter.api.Assumptions.assumeTrue;
 
 import dev.sequencer.model.PlanStatus;
 import java.nio.file.Path;
-import java.util.Map;
 import org.junit.jupiter.params.ParameterizedTest;
 import org.junit.jupiter.params.provider.ValueSource;
 
@@ -20,15 +20,47 @@ class DumasTest {
   @ValueSource(strings = {"n20w20.001", "n20w40.001", "n20w60.002", "n20w80.003", "n20w100.001", "n40w20.001",
       "n40w40.002"})
   void travelEqualsPublishedOptimum(String name) throws Exception {
-    Path folder = DumasInstance.folder();
-    assumeTrue(folder != null, "shared/benchmarks/tsptw/dumas not found next to the project: skipping Dumas check");
-    DumasInstance inst = DumasInstance.read(folder.resolve(name + ".tsptw"));
-    long published = DumasInstance.bestKnownTravel(folder.resolve("best-known.csv")).get(name);
-    PlanningProblem problem = inst.toProblem();
+    PlanningProblem problem = problem(name);
+    long published = published(name);
     SequencerResult r = new Sequencer().plan(problem, SequencerOptions.defaults().withTimeLimitS(5).withWorkers(2));
     assertEquals(PlanStatus.OPTIMAL, r.status(), name + ": " + r.stats());
     assertEquals(problem.size(), r.observations().size(), name + ": every customer and the return are planned");
     assertEquals("RETURN", r.observations().get(r.observations().size() - 1).id());
     assertEquals(published, r.totalTransitionS(), 0.0, name + ": travel incl. the return arc");
+  }
+
+  /**
+   * Wide windows where neither greedy nor the deadline orders fit every customer: the insertion search
+   * alone (deterministic iteration budget) completes the tour, and its travel is never below the
+   * published optimum.
+   */
+  @ParameterizedTest
+  @ValueSource(strings = {"n40w100.001", "n60w80.002"})
+  void insertionSearchCompletesWideWindowTours(String name) throws Exception {
+    PlanningProblem problem = problem(name);
+    long published = published(name);
+    ArcCosts arcs = new ArcCosts(problem);
+    Plan greedy = new GreedyPlanner(problem).plan();
+    assertTrue(greedy.size() < problem.size(), name + ": greedy alone already completes the tour");
+    Plan tour = new InsertionSearch(problem, arcs, new PriorityScale(problem), 1).improve(greedy, Long.MAX_VALUE, 3000);
+    assertEquals(problem.size(), tour.size(), name + ": every customer and the return are planned");
+    assertTrue(tour.modelFeasible(problem, arcs));
+    assertEquals(problem.mustBeLastIndex(), tour.order()[tour.size() - 1], "the return is last");
+    assertTrue(tour.modelTransitionS(arcs) >= published, name + ": travel below the published optimum");
+  }
+
+  /** The instance, or the test is skipped when ../shared is absent. */
+  private static PlanningProblem problem(String name) throws Exception {
+    return DumasInstance.read(folder().resolve(name + ".tsptw")).toProblem();
+  }
+
+  private static long published(String name) throws Exception {
+    return DumasInstance.bestKnownTravel(folder().resolve("best-known.csv")).get(name);
+  }
+
+  private static Path folder() {
+    Path folder = DumasInstance.folder();
+    assumeTrue(folder != null, "shared/benchmarks/tsptw/dumas not found next to the project: skipping Dumas check");
+    return folder;
   }
 }

@@ -27,6 +27,16 @@ class SequencerTest {
   }
 
   @Test
+  void prioritiesAboveTheLargestTheModelTakesAreRefusedByTheLibrary() {
+    // CP-SAT sums scaled integer priorities: 2e9 × 1000 per request would overflow sums of a few thousand.
+    List<Request> rs = List.of(req("A", 100, 2e9, false));
+    List<RequestWindows> ws = List.of(new RequestWindows("A", List.of(win(0, 500))));
+    IllegalArgumentException e = org.junit.jupiter.api.Assertions.assertThrows(IllegalArgumentException.class,
+        () -> PlanningProblem.of(win(0, 1000), rs, ws, Transitions.fixed(2, 5)));
+    assertTrue(e.getMessage().contains("A") && e.getMessage().contains("largest"), e.getMessage());
+  }
+
+  @Test
   void contradictoryRequiredRequestsAreProvenInfeasible() {
     // Both required, both 100 s, both only visible in [0, 150] s: they cannot both fit.
     List<Request> rs = List.of(req("A", 100, 1, true), req("B", 100, 1, true));

@@ -4,6 +4,7 @@ import dev.sequencer.io.Problem;
 import dev.sequencer.io.ScenarioException;
 import dev.sequencer.model.Request;
 import dev.sequencer.model.Scenario;
+import dev.sequencer.sequence.PlanningProblem;
 import java.util.ArrayList;
 import java.util.List;
 
@@ -13,11 +14,8 @@ import java.util.List;
  * whole seconds and priorities or values above {@link #MAX_PRIORITY}.
  */
 final class PlanInputs {
-  /**
-   * Largest priority the planner takes: CP-SAT needs integer priorities (scaled by up to 1000), and their
-   * sum over 10,000 requests must stay far below 2^63 (1e9 x 1000 x 1e4 = 1e16).
-   */
-  static final double MAX_PRIORITY = 1e9;
+  /** Largest priority the planner takes (see {@link PlanningProblem#MAX_PRIORITY}). */
+  static final double MAX_PRIORITY = PlanningProblem.MAX_PRIORITY;
 
   private PlanInputs() {}
 
