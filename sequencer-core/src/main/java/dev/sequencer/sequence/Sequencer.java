@@ -28,6 +28,11 @@ public final class Sequencer {
   static final int LARGE = 120;
   /** Successor arcs kept per request on large models when {@code kBest} is automatic. */
   static final int AUTO_K_BEST = 10;
+  /**
+   * On large models (wall-clock mode, complete warm start), the whole-model solve is skipped when less
+   * than this many seconds are left: building it alone can take seconds at 1,000 requests.
+   */
+  static final double MIN_MAIN_S_LARGE = 3.0;
   /** Share of the time limit the whole-model solve gets on large models before LNS takes over. */
   static final double MAIN_SHARE_LARGE = 0.35;
   /** Share of the time limit the insertion search gets to improve the warm start (fixed durations). */
@@ -145,7 +150,18 @@ public final class Sequencer {
       }
       RoutingModel.Spec spec = new RoutingModel.Spec(nodes, Transitions.START, 0, -1, problem.horizonS(),
           options.hint() ? hint : null, k);
-      RoutingModel.Outcome main = model.solve(spec, params);
+      boolean skipMain = runLns && options.hint() && hintComplete && !options.reproducible()
+          && remainingS() < MIN_MAIN_S_LARGE;
+      RoutingModel.Outcome main;
+      if (skipMain) {
+        // Too little time left to build and solve the whole large model: the LNS starts from the hint.
+        notes.append("whole-model solve skipped (").append(String.format(java.util.Locale.ROOT, "%.1f", remainingS()))
+            .append(" s left); the LNS starts from the warm start. ");
+        main = new RoutingModel.Outcome(CpSolverStatus.UNKNOWN, hint, hint.scaledPriority(problem, scale),
+            hint.modelTransitionS(arcs), -1, 0, 0, 0, 0, 0);
+      } else {
+        main = model.solve(spec, params);
+      }
       long arcsKept = main.arcsKept();
       double solveS = main.solveS();
       buildS += main.buildS();
@@ -289,7 +305,7 @@ public final class Sequencer {
       long sp = start.scaledPriority(problem, scale);
       long op = out.scaledPriority(problem, scale);
       notes.append("insertion search: ").append(search.iterations).append(" iterations (")
-          .append(search.evaluations).append(" evaluations), ").append(search.improvements)
+          .append(search.evaluations()).append(" evaluations), ").append(search.improvements)
           .append(" improving; warm start ")
           .append(String.format(java.util.Locale.ROOT, "%.6g -> %.6g", start.priority(problem), out.priority(problem)))
           .append(". ");
