@@ -7,12 +7,8 @@ import static org.junit.jupiter.api.Assertions.assertTrue;
 
 import dev.sequencer.model.FlexibleExposure;
 import dev.sequencer.model.Request;
-import dev.sequencer.model.RequestWindows;
-import dev.sequencer.model.TimeWindow;
 import dev.sequencer.model.UtilityPoint;
 import dev.sequencer.sequence.ExposureAllocator.Front;
-import dev.sequencer.slew.Transitions;
-import java.time.Instant;
 import java.util.ArrayList;
 import java.util.List;
 import java.util.Random;
@@ -27,28 +23,12 @@ import org.junit.jupiter.api.Test;
  * of the two-stage baseline, and on named edge cases.
  */
 class ExposureAllocatorTest {
-  private static final Instant T0 = Instant.parse("2031-05-04T18:00:00Z");
   private static final long HORIZON_S = 1200;
   private static final long[] GRID_S = {60, 120, 180, 240};
 
-  /** One tiny instance: requests, windows as whole-second [from, to] pairs, transition table. */
-  private record Instance(List<Request> requests, List<long[][]> windows, double[][] matrix, double[] fromStart) {
-    PlanningProblem problem() {
-      List<RequestWindows> rw = new ArrayList<>();
-      for (int k = 0; k < requests.size(); k++) {
-        List<TimeWindow> w = new ArrayList<>();
-        for (long[] x : windows.get(k)) {
-          w.add(new TimeWindow(T0.plusSeconds(x[0]), T0.plusSeconds(x[1])));
-        }
-        rw.add(new RequestWindows(requests.get(k).id(), w));
-      }
-      return PlanningProblem.of(new TimeWindow(T0, T0.plusSeconds(HORIZON_S)), requests, rw,
-          Transitions.matrix(matrix, fromStart));
-    }
-  }
 
   /** 2–5 requests (the first fixed, others flexible on GRID_S with 2/3 chance), 1–2 windows, whole-second slews. */
-  private static Instance instance(long seed) {
+  private static TinyInstance instance(long seed) {
     Random rnd = new Random(seed);
     int n = 2 + rnd.nextInt(4);
     List<Request> requests = new ArrayList<>();
@@ -76,7 +56,7 @@ class ExposureAllocatorTest {
         m[i][j] = i == j ? 0 : rnd.nextInt(120);
       }
     }
-    return new Instance(requests, windows, m, fromStart);
+    return new TinyInstance(HORIZON_S, requests, windows, m, fromStart);
   }
 
   private static long[][] randomWindows(Random rnd) {
@@ -101,7 +81,7 @@ class ExposureAllocatorTest {
    * Exhaustive enumeration: best value of {@code order} (all kept) over every combination of exposures,
    * each scheduled at earliest starts with whole observations in one window; NaN when none fits.
    */
-  private static double bruteForceFixedOrder(Instance in, int[] order, int q, int prev, long end, double value) {
+  private static double bruteForceFixedOrder(TinyInstance in, int[] order, int q, int prev, long end, double value) {
     if (q == order.length) {
       return value;
     }
@@ -121,7 +101,7 @@ class ExposureAllocatorTest {
   }
 
   /** Exhaustive enumeration over every ordered subset and every exposure combination. */
-  private static double bruteForceAny(Instance in, boolean[] used, int prev, long end, double value) {
+  private static double bruteForceAny(TinyInstance in, boolean[] used, int prev, long end, double value) {
     double best = value;
     for (int k = 0; k < in.requests().size(); k++) {
       if (used[k]) {
@@ -165,7 +145,7 @@ class ExposureAllocatorTest {
 
   @Property(tries = 300)
   void allocationMatchesExhaustiveEnumerationForAFixedOrder(@ForAll @LongRange(min = 1, max = 1_000_000) long seed) {
-    Instance in = instance(seed);
+    TinyInstance in = instance(seed);
     PlanningProblem p = in.problem();
     PriorityScale scale = new PriorityScale(p);
     int[] order = randomOrder(new Random(seed), p.size());
@@ -184,7 +164,7 @@ class ExposureAllocatorTest {
 
   @Property(tries = 200)
   void allocationIsNeverBelowTheLpPolish(@ForAll @LongRange(min = 1, max = 1_000_000) long seed) {
-    Instance in = instance(seed);
+    TinyInstance in = instance(seed);
     PlanningProblem p = in.problem();
     ArcCosts arcs = new ArcCosts(p);
     PriorityScale scale = new PriorityScale(p);
@@ -200,7 +180,7 @@ class ExposureAllocatorTest {
 
   @Property(tries = 200)
   void movesNeverLoseValueNorBeatTheExhaustiveOptimum(@ForAll @LongRange(min = 1, max = 1_000_000) long seed) {
-    Instance in = instance(seed);
+    TinyInstance in = instance(seed);
     PlanningProblem p = in.problem();
     ArcCosts arcs = new ArcCosts(p);
     PriorityScale scale = new PriorityScale(p);
@@ -214,7 +194,7 @@ class ExposureAllocatorTest {
 
   @Property(tries = 200)
   void slackProfileIsTheBestPairForEveryRoom(@ForAll @LongRange(min = 1, max = 1_000_000) long seed) {
-    Instance in = instance(seed);
+    TinyInstance in = instance(seed);
     PlanningProblem p = in.problem();
     ArcCosts arcs = new ArcCosts(p);
     PriorityScale scale = new PriorityScale(p);
@@ -245,7 +225,7 @@ class ExposureAllocatorTest {
   @Test
   void anOrderThatCannotFitHasNoAllocation() {
     // R1's only window closes before R0 (fixed 300 s, window from 0) can end: no exposure helps.
-    Instance in = new Instance(
+    TinyInstance in = new TinyInstance(HORIZON_S,
         List.of(new Request("R0", null, 300.0, 1.0, false, List.of(), null), flexible("R1", 1.0, 2.0)),
         List.of(new long[][] {{0, 400}}, new long[][] {{0, 250}}), new double[][] {{0, 10}, {10, 0}},
         new double[] {0, 0});
@@ -258,7 +238,7 @@ class ExposureAllocatorTest {
     // Two flexible requests in one 450 s window, 20 s slew between: 430 s of exposure in all. Hand
     // calculation: R0 gains 0.5 per extra 60 s step, R1 0.1 (linear curves), so R0 takes 240 s (the
     // grid maximum) and R1 the remaining 430 − 240 = 190 s, rounded down to the grid: 180 s (value 1.2).
-    Instance in = new Instance(List.of(flexible("R0", 1.0, 2.5), flexible("R1", 1.0, 1.3)),
+    TinyInstance in = new TinyInstance(HORIZON_S, List.of(flexible("R0", 1.0, 2.5), flexible("R1", 1.0, 1.3)),
         List.of(new long[][] {{0, 450}}, new long[][] {{0, 450}}), new double[][] {{0, 20}, {20, 0}},
         new double[] {0, 0});
     PlanningProblem p = in.problem();
@@ -272,7 +252,7 @@ class ExposureAllocatorTest {
   void anInsertionShortensItsNeighbour() {
     // R0 alone takes 240 s of its 300 s window (value 2.5). R1 (fixed 120 s, priority 3) fits only when R0
     // shrinks to 180 s: 180 s + 0 slew + 120 s = 300 s. Hand calculation: 2.0 + 3 = 5.0 > 2.5.
-    Instance in = new Instance(
+    TinyInstance in = new TinyInstance(HORIZON_S,
         List.of(flexible("R0", 1.0, 2.5), new Request("R1", null, 120.0, 3.0, false, List.of(), null)),
         List.of(new long[][] {{0, 300}}, new long[][] {{0, 300}}), new double[][] {{0, 0}, {0, 0}},
         new double[] {0, 0});

@@ -5,11 +5,7 @@ import static org.junit.jupiter.api.Assertions.assertEquals;
 import dev.sequencer.model.FlexibleExposure;
 import dev.sequencer.model.PlanStatus;
 import dev.sequencer.model.Request;
-import dev.sequencer.model.RequestWindows;
-import dev.sequencer.model.TimeWindow;
 import dev.sequencer.model.UtilityPoint;
-import dev.sequencer.slew.Transitions;
-import java.time.Instant;
 import java.util.ArrayList;
 import java.util.List;
 import java.util.Random;
@@ -23,26 +19,10 @@ import org.junit.jupiter.api.Test;
  * transitions: starting earlier never hurts a later request).
  */
 class FlexibleBruteForceTest {
-  private static final Instant T0 = Instant.parse("2031-05-04T18:00:00Z");
   private static final long HORIZON_S = 900;
 
-  /** One instance: requests, windows as whole-second [from, to] pairs, transitions. */
-  private record Instance(List<Request> requests, List<long[][]> windows, double[][] matrix, double[] fromStart) {
-    PlanningProblem problem() {
-      List<RequestWindows> rw = new ArrayList<>();
-      for (int k = 0; k < requests.size(); k++) {
-        List<TimeWindow> w = new ArrayList<>();
-        for (long[] x : windows.get(k)) {
-          w.add(new TimeWindow(T0.plusSeconds(x[0]), T0.plusSeconds(x[1])));
-        }
-        rw.add(new RequestWindows(requests.get(k).id(), w));
-      }
-      return PlanningProblem.of(new TimeWindow(T0, T0.plusSeconds(HORIZON_S)), requests, rw,
-          Transitions.matrix(matrix, fromStart));
-    }
-  }
 
-  private static Instance instance(long seed) {
+  private static TinyInstance instance(long seed) {
     Random rnd = new Random(seed);
     int n = 2 + rnd.nextInt(3);
     List<Request> requests = new ArrayList<>();
@@ -82,7 +62,7 @@ class FlexibleBruteForceTest {
         m[i][j] = i == j ? 0 : rnd.nextInt(150);
       }
     }
-    return new Instance(requests, windows, m, fromStart);
+    return new TinyInstance(HORIZON_S, requests, windows, m, fromStart);
   }
 
   /** Exposures request k may take. */
@@ -94,14 +74,14 @@ class FlexibleBruteForceTest {
   }
 
   /** Best value over every ordered subset and every choice of exposures. */
-  private static double bruteForce(Instance in) {
+  private static double bruteForce(TinyInstance in) {
     int n = in.requests().size();
     double[] best = {0};
     search(in, new int[n], new long[n], 0, new boolean[n], -1, 0, 0.0, best);
     return best[0];
   }
 
-  private static void search(Instance in, int[] order, long[] dur, int depth, boolean[] used, int prev, long end,
+  private static void search(TinyInstance in, int[] order, long[] dur, int depth, boolean[] used, int prev, long end,
       double value, double[] best) {
     best[0] = Math.max(best[0], value);
     for (int k = 0; k < in.requests().size(); k++) {
@@ -133,7 +113,7 @@ class FlexibleBruteForceTest {
   @Test
   void jointModelMatchesExhaustiveSearchOnTinyMixedInstances() {
     for (long seed = 1; seed <= 25; seed++) {
-      Instance in = instance(seed);
+      TinyInstance in = instance(seed);
       PlanningProblem p = in.problem();
       SequencerResult r = new Sequencer().plan(p, SequencerOptions.defaults().withTimeLimitS(2).withWorkers(2)
           .withSeed(1));
