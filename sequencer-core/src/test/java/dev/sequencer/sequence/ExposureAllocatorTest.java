@@ -26,7 +26,6 @@ class ExposureAllocatorTest {
   private static final long HORIZON_S = 1200;
   private static final long[] GRID_S = {60, 120, 180, 240};
 
-
   /** 2–5 requests (the first fixed, others flexible on GRID_S with 2/3 chance), 1–2 windows, whole-second slews. */
   private static TinyInstance instance(long seed) {
     Random rnd = new Random(seed);
@@ -35,28 +34,12 @@ class ExposureAllocatorTest {
     List<long[][]> windows = new ArrayList<>();
     for (int k = 0; k < n; k++) {
       String id = "R" + k;
-      if (k == 0 || rnd.nextInt(3) == 0) {
-        requests.add(new Request(id, null, (double) (60 + 30 * rnd.nextInt(5)), 1.0 + rnd.nextInt(4), false,
-            List.of(), null));
-      } else {
-        // Values with two decimals at 60 and 240 s: interpolated grid values have at most three decimals,
-        // so the scale factor 1000 is exact and the comparison below can be to 1e-9.
-        double v0 = 0.01 * rnd.nextInt(200);
-        double v3 = v0 + 0.04 * rnd.nextInt(100);
-        requests.add(new Request(id, null, null, null, false, List.of(), new FlexibleExposure(60, 240, 60,
-            List.of(new UtilityPoint(60, v0), new UtilityPoint(240, v3)))));
-      }
+      // Values with two decimals at 60 and 240 s: interpolated grid values have at most three decimals,
+      // so the scale factor 1000 is exact and the comparison below can be to 1e-9.
+      requests.add(TinyInstance.randomRequest(rnd, id, k == 0, 240, 0.04, 100));
       windows.add(randomWindows(rnd));
     }
-    double[][] m = new double[n][n];
-    double[] fromStart = new double[n];
-    for (int i = 0; i < n; i++) {
-      fromStart[i] = rnd.nextInt(60);
-      for (int j = 0; j < n; j++) {
-        m[i][j] = i == j ? 0 : rnd.nextInt(120);
-      }
-    }
-    return new TinyInstance(HORIZON_S, requests, windows, m, fromStart);
+    return TinyInstance.withRandomTable(HORIZON_S, requests, windows, rnd, 120);
   }
 
   private static long[][] randomWindows(Random rnd) {

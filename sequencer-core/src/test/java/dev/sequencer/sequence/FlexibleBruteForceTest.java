@@ -2,10 +2,8 @@ package dev.sequencer.sequence;
 
 import static org.junit.jupiter.api.Assertions.assertEquals;
 
-import dev.sequencer.model.FlexibleExposure;
 import dev.sequencer.model.PlanStatus;
 import dev.sequencer.model.Request;
-import dev.sequencer.model.UtilityPoint;
 import java.util.ArrayList;
 import java.util.List;
 import java.util.Random;
@@ -21,7 +19,6 @@ import org.junit.jupiter.api.Test;
 class FlexibleBruteForceTest {
   private static final long HORIZON_S = 900;
 
-
   private static TinyInstance instance(long seed) {
     Random rnd = new Random(seed);
     int n = 2 + rnd.nextInt(3);
@@ -29,16 +26,8 @@ class FlexibleBruteForceTest {
     List<long[][]> windows = new ArrayList<>();
     for (int k = 0; k < n; k++) {
       String id = "R" + k;
-      if (k == 0 || rnd.nextInt(3) == 0) {
-        requests.add(new Request(id, null, (double) (60 + 30 * rnd.nextInt(5)), 1.0 + rnd.nextInt(4), false,
-            List.of(), null));
-      } else {
-        // Grid 60, 120, 180 s; values with two decimals, so the midpoint has three and scales exactly.
-        double v0 = 0.01 * rnd.nextInt(200);
-        double v2 = v0 + 0.01 * rnd.nextInt(300);
-        requests.add(new Request(id, null, null, null, false, List.of(), new FlexibleExposure(60, 180, 60,
-            List.of(new UtilityPoint(60, v0), new UtilityPoint(180, v2)))));
-      }
+      // Grid 60, 120, 180 s; values with two decimals, so the midpoint has three and scales exactly.
+      requests.add(TinyInstance.randomRequest(rnd, id, k == 0, 180, 0.01, 300));
       int count = 1 + rnd.nextInt(2);
       long[][] w = new long[count][];
       long cursor = 0;
@@ -54,15 +43,7 @@ class FlexibleBruteForceTest {
       }
       windows.add(w);
     }
-    double[][] m = new double[n][n];
-    double[] fromStart = new double[n];
-    for (int i = 0; i < n; i++) {
-      fromStart[i] = rnd.nextInt(60);
-      for (int j = 0; j < n; j++) {
-        m[i][j] = i == j ? 0 : rnd.nextInt(150);
-      }
-    }
-    return new TinyInstance(HORIZON_S, requests, windows, m, fromStart);
+    return TinyInstance.withRandomTable(HORIZON_S, requests, windows, rnd, 150);
   }
 
   /** Exposures request k may take. */
