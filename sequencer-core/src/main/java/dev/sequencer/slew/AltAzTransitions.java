@@ -68,6 +68,11 @@ final class AltAzTransitions implements Transitions {
     return run(order, departureS, arrivalS).seconds();
   }
 
+  @Override
+  public Path path() {
+    return new MountPath(START, Double.NaN, Double.NaN, false);
+  }
+
   /**
    * Legs along a sequence: {@code seconds[k]} as {@link #exactS}, and {@code departureAzimuthDeg[k]} the
    * mount's unwrapped azimuth when leg k leaves (NaN for k = 0 without a start track, and once lost).
@@ -80,43 +85,101 @@ final class AltAzTransitions implements Transitions {
     double[] states = new double[order.length];
     Arrays.fill(out, Double.POSITIVE_INFINITY);
     Arrays.fill(states, Double.NaN);
-    double state = Double.NaN; // unwrapped azimuth at the previous arrival
+    MountPath p = (MountPath) path();
     for (int k = 0; k < order.length; k++) {
-      PointingTrack to = tracks.get(order[k]);
-      AzEl target = to.azEl(arrivalS[k]);
+      Step step = p.step(order[k], departureS[k], arrivalS[k]);
+      states[k] = step.departureAzimuthDeg();
+      out[k] = step.seconds();
+      if (step.seconds() == Double.POSITIVE_INFINITY) {
+        break; // this and every later leg are lost
+      }
+      p = new MountPath(order[k], arrivalS[k], step.arrivalAzimuthDeg(), false);
+    }
+    return new Legs(out, states);
+  }
+
+  /** One leg: its seconds (+inf when impossible), the unwrapped azimuth it leaves from and arrives at. */
+  private record Step(double seconds, double departureAzimuthDeg, double arrivalAzimuthDeg) {
+    static final Step LOST = new Step(Double.POSITIVE_INFINITY, Double.NaN, Double.NaN);
+  }
+
+  /**
+   * The mount after observing {@code last} from {@code lastArrivalS} on, arrived at the unwrapped azimuth
+   * {@code azimuthDeg} ({@link #START} before the first observation; {@code lost} once a leg was impossible).
+   */
+  private final class MountPath implements Path {
+    private final int last;
+    private final double lastArrivalS;
+    private final double azimuthDeg;
+    private final boolean lost;
+
+    MountPath(int last, double lastArrivalS, double azimuthDeg, boolean lost) {
+      this.last = last;
+      this.lastArrivalS = lastArrivalS;
+      this.azimuthDeg = azimuthDeg;
+      this.lost = lost;
+    }
+
+    @Override
+    public int last() {
+      return last;
+    }
+
+    @Override
+    public double legS(int to, double departureS, double arrivalS) {
+      return step(to, departureS, arrivalS).seconds();
+    }
+
+    /** Last request, its arrival, the arrival branch and whether the path is lost: all later legs follow from them. */
+    @Override
+    public Object state() {
+      return java.util.List.of(last, lastArrivalS, azimuthDeg, lost);
+    }
+
+    @Override
+    public Path then(int to, double departureS, double arrivalS) {
+      Step s = step(to, departureS, arrivalS);
+      return s.seconds() == Double.POSITIVE_INFINITY ? new MountPath(to, arrivalS, Double.NaN, true)
+          : new MountPath(to, arrivalS, s.arrivalAzimuthDeg(), false);
+    }
+
+    /**
+     * The leg of the class comment: from the start pointing's azimuth (or, without a start track, 0 s onto
+     * the first target's branch nearest the range centre), else from the arrival branch plus the previous
+     * target's continuous azimuth change over its observation, to the nearest legal branch of the target.
+     */
+    Step step(int to, double departureS, double arrivalS) {
+      if (lost) {
+        return Step.LOST;
+      }
+      AzEl target = tracks.get(to).azEl(arrivalS);
       if (!model.elevationAllowed(target.elevationDeg())) {
-        break;
+        return Step.LOST;
+      }
+      if (last == START && start == null) {
+        double v = wrap.initial(target.azimuthDeg());
+        return Double.isNaN(v) ? Step.LOST : new Step(0, Double.NaN, v);
       }
       double u;
       double fromElevationDeg;
-      if (k == 0 && start == null) {
-        state = wrap.initial(target.azimuthDeg());
-        if (Double.isNaN(state)) {
-          break;
-        }
-        out[k] = 0;
-        continue;
-      } else if (k == 0) {
-        AzEl s = start.azEl(departureS[k]);
+      if (last == START) {
+        AzEl s = start.azEl(departureS);
         u = wrap.initial(s.azimuthDeg());
         fromElevationDeg = s.elevationDeg();
       } else {
-        PointingTrack from = tracks.get(order[k - 1]);
-        u = state + unwrappedChangeDeg(from, arrivalS[k - 1], departureS[k]);
-        fromElevationDeg = from.azEl(departureS[k]).elevationDeg();
+        PointingTrack from = tracks.get(last);
+        u = azimuthDeg + unwrappedChangeDeg(from, lastArrivalS, departureS);
+        fromElevationDeg = from.azEl(departureS).elevationDeg();
       }
-      states[k] = u;
       if (Double.isNaN(u) || !wrap.contains(u)) {
-        break; // the cable wrap ran out during the previous observation: this and later legs are lost
+        return new Step(Double.POSITIVE_INFINITY, u, Double.NaN); // the cable wrap ran out
       }
       double v = wrap.nearestLegal(target.azimuthDeg(), u);
       if (Double.isNaN(v)) {
-        break;
+        return new Step(Double.POSITIVE_INFINITY, u, Double.NaN);
       }
-      out[k] = model.seconds(Math.abs(v - u), Math.abs(target.elevationDeg() - fromElevationDeg));
-      state = v;
+      return new Step(model.seconds(Math.abs(v - u), Math.abs(target.elevationDeg() - fromElevationDeg)), u, v);
     }
-    return new Legs(out, states);
   }
 
   /**

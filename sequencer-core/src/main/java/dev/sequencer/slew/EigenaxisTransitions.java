@@ -56,13 +56,17 @@ final class EigenaxisTransitions implements Transitions {
   @Override
   public double[] exactS(int[] order, double[] departureS, double[] arrivalS) {
     Intervals.checkSequence(order, departureS, arrivalS, tracks.size());
-    double[] out = new double[order.length];
-    for (int k = 0; k < order.length; k++) {
-      PointingTrack f = k == 0 ? start : tracks.get(order[k - 1]);
-      out[k] = f == null ? 0 : model.secondsForAngle(EigenaxisModel.angleDeg(
-          f.inertialDirection(departureS[k]), tracks.get(order[k]).inertialDirection(arrivalS[k])));
-    }
-    return out;
+    return Paths.along(path(), order, departureS, arrivalS);
+  }
+
+  /** Legs depend on the two requests and instants only; without a start track the first leg is 0 s. */
+  @Override
+  public Path path() {
+    return StatelessPath.start((from, to, departure, arrival) -> {
+      PointingTrack f = from == START ? start : tracks.get(from);
+      return f == null ? 0 : model.secondsForAngle(EigenaxisModel.angleDeg(
+          f.inertialDirection(departure), tracks.get(to).inertialDirection(arrival)));
+    });
   }
 
   /** True unless every line of sight (and the start's) is still: then the legs depend on no time. */

@@ -1,6 +1,5 @@
 package dev.sequencer.slew;
 
-import java.util.Arrays;
 
 /** A constant overhead between any two requests and from the start pointing. */
 final class FixedTransitions implements Transitions {
@@ -31,9 +30,13 @@ final class FixedTransitions implements Transitions {
 
   @Override
   public double[] exactS(int[] order, double[] departureS, double[] arrivalS) {
-    double[] out = new double[order.length];
-    Arrays.fill(out, seconds);
-    return out;
+    Intervals.checkSequence(order, departureS, arrivalS, size);
+    return Paths.along(path(), order, departureS, arrivalS);
+  }
+
+  @Override
+  public Path path() {
+    return StatelessPath.start((from, to, departure, arrival) -> seconds);
   }
 
   @Override

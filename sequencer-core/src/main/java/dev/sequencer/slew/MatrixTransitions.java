@@ -51,13 +51,13 @@ final class MatrixTransitions implements Transitions {
 
   @Override
   public double[] exactS(int[] order, double[] departureS, double[] arrivalS) {
-    double[] out = new double[order.length];
-    int prev = START;
-    for (int k = 0; k < order.length; k++) {
-      out[k] = prev == START ? fromStart[order[k]] : seconds[prev][order[k]];
-      prev = order[k];
-    }
-    return out;
+    Intervals.checkSequence(order, departureS, arrivalS, seconds.length);
+    return Paths.along(path(), order, departureS, arrivalS);
+  }
+
+  @Override
+  public Path path() {
+    return StatelessPath.start((from, to, departure, arrival) -> from == START ? fromStart[to] : seconds[from][to]);
   }
 
   @Override

@@ -54,6 +54,43 @@ public interface Transitions {
   /** True when transition times depend on when they happen (moving pointings, alt-az mounts). */
   boolean timeDependent();
 
+  /**
+   * A path at the start pointing, before any observation: exact legs evaluated one at a time, the
+   * instrument's state (an alt-az mount's unwrapped azimuth) carried along. {@link #exactS} is the same
+   * computation for a whole sequence. The default replays {@link #exactS} on the prefix (O(n) per leg);
+   * the models of this package answer each leg in O(1).
+   */
+  default Path path() {
+    return ReplayPath.start(this);
+  }
+
+  /**
+   * A point along a sequence: the observations made so far and the state they leave the instrument in.
+   * Immutable, so a search may branch from any point. Times in seconds from the horizon start.
+   */
+  interface Path {
+    /** The request observed last on this path, or {@link #START} before the first observation. */
+    int last();
+
+    /**
+     * Exact seconds from the pointing of {@link #last()} at {@code departureS} (its end; for {@link #START}
+     * the start pointing) to the pointing of {@code to} at {@code arrivalS} (its start);
+     * {@link Double#POSITIVE_INFINITY} when impossible.
+     */
+    double legS(int to, double departureS, double arrivalS);
+
+    /** The path after the leg of {@link #legS} and the observation of {@code to} that starts at {@code arrivalS}. */
+    Path then(int to, double departureS, double arrivalS);
+
+    /**
+     * A value equal for two paths whose every later leg is the same (the last request and arrival, and the
+     * mount's state); {@code null} when unknown, which never equals anything.
+     */
+    default Object state() {
+      return null;
+    }
+  }
+
   /** The same {@code seconds} between any two requests and from the start pointing. */
   static Transitions fixed(int size, double seconds) {
     return new FixedTransitions(size, seconds);
