@@ -5,7 +5,7 @@ import dev.sequencer.model.Request;
 import dev.sequencer.model.RequestWindows;
 import dev.sequencer.model.TimeWindow;
 import dev.sequencer.model.UtilityPoint;
-import dev.sequencer.sequence.PlanningProblem;
+import dev.sequencer.sequence.problem.PlanningProblem;
 import dev.sequencer.sequence.Sequencer;
 import dev.sequencer.sequence.SequencerOptions;
 import dev.sequencer.sequence.SequencerResult;

@@ -2,7 +2,7 @@ package dev.sequencer.bench;
 
 import dev.sequencer.sequence.DumasInstance;
 import dev.sequencer.sequence.NightScenario;
-import dev.sequencer.sequence.PlanningProblem;
+import dev.sequencer.sequence.problem.PlanningProblem;
 import dev.sequencer.sequence.Sequencer;
 import dev.sequencer.sequence.SequencerOptions;
 import dev.sequencer.sequence.SequencerResult;

@@ -5,7 +5,7 @@ import dev.sequencer.io.ScenarioReader;
 import dev.sequencer.model.RequestWindows;
 import dev.sequencer.model.Scenario;
 import dev.sequencer.model.SlewSettings;
-import dev.sequencer.sequence.PlanningProblem;
+import dev.sequencer.sequence.problem.PlanningProblem;
 import dev.sequencer.sequence.Sequencer;
 import dev.sequencer.sequence.SequencerOptions;
 import dev.sequencer.sequence.SequencerResult;

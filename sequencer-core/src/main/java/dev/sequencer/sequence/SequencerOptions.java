@@ -14,6 +14,10 @@ import java.util.Objects;
  * (0 = automatic, -1 = keep all). {@code lns}: run our large-neighbourhood search after the first
  * solve on large models. {@code hint}: warm start CP-SAT from the greedy plan. {@code relaxationBound}:
  * compute the time-bucket LP bound. {@code listener}: progress reports, may be {@code null}.
+ * {@code clock}: the wall clock {@code timeLimitS} counts from ({@code null}: from the call to the
+ * sequencer; the {@code Planner} façade passes the one it started before the visibility windows).
+ * {@code validator}: the one check the returned plan must pass ({@code null}: a
+ * {@link dev.sequencer.validate.PlanValidator} of the problem's own requests, windows and transitions).
  */
 public record SequencerOptions(
     Solver solver,
@@ -26,7 +30,9 @@ public record SequencerOptions(
     boolean lns,
     boolean hint,
     boolean relaxationBound,
-    ProgressListener listener) {
+    ProgressListener listener,
+    Budget clock,
+    ResultCheck validator) {
   /** Which planner to run. */
   public enum Solver {
     /** The CP-SAT model (with greedy warm start, LNS and bounds). */
@@ -55,7 +61,7 @@ public record SequencerOptions(
 
   /** CP-SAT, 30 s, all cores, seed 1, wall clock, automatic arcs, LNS, hint and relaxation bound on. */
   public static SequencerOptions defaults() {
-    return new SequencerOptions(Solver.CPSAT, 30, 0, 1, false, 30, 0, true, true, true, null);
+    return new SequencerOptions(Solver.CPSAT, 30, 0, 1, false, 30, 0, true, true, true, null, null, null);
   }
 
   /** The scenario's solver settings (time limit, workers, seed) on top of the defaults. */
@@ -65,53 +71,70 @@ public record SequencerOptions(
 
   public SequencerOptions withSolver(Solver v) {
     return new SequencerOptions(v, timeLimitS, workers, seed, reproducible, deterministicLimit, kBest, lns, hint,
-        relaxationBound, listener);
+        relaxationBound, listener, clock, validator);
   }
 
   public SequencerOptions withTimeLimitS(double v) {
     return new SequencerOptions(solver, v, workers, seed, reproducible, deterministicLimit, kBest, lns, hint,
-        relaxationBound, listener);
+        relaxationBound, listener, clock, validator);
   }
 
   public SequencerOptions withWorkers(int v) {
     return new SequencerOptions(solver, timeLimitS, v, seed, reproducible, deterministicLimit, kBest, lns, hint,
-        relaxationBound, listener);
+        relaxationBound, listener, clock, validator);
   }
 
   public SequencerOptions withSeed(int v) {
     return new SequencerOptions(solver, timeLimitS, workers, v, reproducible, deterministicLimit, kBest, lns, hint,
-        relaxationBound, listener);
+        relaxationBound, listener, clock, validator);
   }
 
   /** Reproducible mode with this deterministic work limit (CP-SAT deterministic time units). */
   public SequencerOptions withReproducible(double deterministicLimitUnits) {
     return new SequencerOptions(solver, timeLimitS, workers, seed, true, deterministicLimitUnits, kBest, lns, hint,
-        relaxationBound, listener);
+        relaxationBound, listener, clock, validator);
   }
 
   public SequencerOptions withKBest(int v) {
     return new SequencerOptions(solver, timeLimitS, workers, seed, reproducible, deterministicLimit, v, lns, hint,
-        relaxationBound, listener);
+        relaxationBound, listener, clock, validator);
   }
 
   public SequencerOptions withLns(boolean v) {
     return new SequencerOptions(solver, timeLimitS, workers, seed, reproducible, deterministicLimit, kBest, v, hint,
-        relaxationBound, listener);
+        relaxationBound, listener, clock, validator);
   }
 
   public SequencerOptions withHint(boolean v) {
     return new SequencerOptions(solver, timeLimitS, workers, seed, reproducible, deterministicLimit, kBest, lns, v,
-        relaxationBound, listener);
+        relaxationBound, listener, clock, validator);
   }
 
   public SequencerOptions withRelaxationBound(boolean v) {
     return new SequencerOptions(solver, timeLimitS, workers, seed, reproducible, deterministicLimit, kBest, lns, hint,
-        v, listener);
+        v, listener, clock, validator);
   }
 
   public SequencerOptions withListener(ProgressListener v) {
     return new SequencerOptions(solver, timeLimitS, workers, seed, reproducible, deterministicLimit, kBest, lns, hint,
-        relaxationBound, v);
+        relaxationBound, v, clock, validator);
+  }
+
+  /** The same options counting {@code timeLimitS} from {@code v}. */
+  public SequencerOptions withClock(Budget v) {
+    return new SequencerOptions(solver, timeLimitS, workers, seed, reproducible, deterministicLimit, kBest, lns, hint,
+        relaxationBound, listener, v, validator);
+  }
+
+  /** The same options with the one check the returned plan must pass. */
+  public SequencerOptions withValidator(ResultCheck v) {
+    return new SequencerOptions(solver, timeLimitS, workers, seed, reproducible, deterministicLimit, kBest, lns, hint,
+        relaxationBound, listener, clock, v);
+  }
+
+  /** The budget of a run that starts now: {@link #clock} when set (with this time limit), else a new one. */
+  public Budget budget() {
+    return clock == null ? Budget.startingNow(timeLimitS) : clock.withTotalS(timeLimitS);
   }
 
   /** Worker count to use: {@code workers}, or the number of available processors when 0. */

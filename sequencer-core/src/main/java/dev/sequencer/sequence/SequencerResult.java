@@ -6,17 +6,23 @@ import dev.sequencer.model.Timeline;
 import dev.sequencer.model.Unscheduled;
 import java.time.Instant;
 import java.util.ArrayList;
+import java.util.LinkedHashMap;
 import java.util.List;
+import java.util.Map;
+import java.util.stream.Collectors;
 
 /**
  * The answer of {@link Sequencer#plan}: status, observations in time order, totals, the proven upper
  * bound on total priority and the relative gap, the reason for each unscheduled request, and statistics.
+ * Built by the named factories {@link #planned}, {@link #infeasible} and {@link #noPlanInTime}.
  *
  * <p>{@code boundPriority} is {@code Double.NaN} when nothing was proven. {@code gap} = (bound −
- * priority) / bound, 0 when optimal, {@code NaN} without a bound. {@code message} explains
- * INFEASIBLE and NO_SOLUTION_IN_TIME in words ({@code ""} otherwise). {@code conflicts}: for INFEASIBLE,
- * the required requests that cannot all be scheduled and why ({@link RequiredConflicts}); empty otherwise
- * or when no conflicting set could be singled out in time.
+ * priority) / bound, 0 when the bound is reached, {@code NaN} without a bound. {@code priorityProven}:
+ * the bound equals the priority, so no plan collects more; the status is OPTIMAL only when the slew level
+ * is proven too (see the {@link Note.Kind#OPTIMALITY} note otherwise). {@code message} explains
+ * INFEASIBLE and NO_SOLUTION_IN_TIME in words ({@code ""} otherwise). {@code conflicts}: required
+ * requests that cannot all be scheduled and why ({@link RequiredConflicts}); for INFEASIBLE a proof, for
+ * NO_SOLUTION_IN_TIME what the model's bounds suggest, re-checked with the exact slews.
  */
 public record SequencerResult(
     PlanStatus status,
@@ -25,6 +31,7 @@ public record SequencerResult(
     double totalTransitionS,
     double boundPriority,
     double gap,
+    boolean priorityProven,
     List<Unscheduled> unscheduled,
     Stats stats,
     String message,
@@ -35,18 +42,14 @@ public record SequencerResult(
    * transition before it and, for a flexible request, the value collected ({@code null} otherwise).
    */
   public record Planned(String id, Instant start, Instant end, long startS, long endS, double transitionS,
-      Double value) {
-    /** A fixed-duration observation (no value). */
-    public Planned(String id, Instant start, Instant end, long startS, long endS, double transitionS) {
-      this(id, start, end, startS, endS, transitionS, null);
-    }
-  }
+      Double value) {}
 
   /**
    * Statistics: arcs kept in the main model and arcs that are time-feasible at all, model build and solve
-   * seconds, CP-SAT solutions found, LNS rounds and improvements, the relaxation bound alone ({@code NaN}
-   * when not computed), model transition seconds minus exact seconds after compaction, and the total
-   * seconds the compaction moved starts earlier.
+   * seconds, plans offered by all producers, LNS rounds and improvements, the relaxation bound alone
+   * ({@code NaN} when not computed), which producer found the returned plan, the priority of the best
+   * plan before the fallbacks were offered ({@link Seeds}; {@code NaN} when none held every required
+   * request), the notes, and the seconds each phase took (in run order).
    */
   public record Stats(
       long arcsKept,
@@ -57,9 +60,25 @@ public record SequencerResult(
       int lnsRounds,
       int lnsImprovements,
       double relaxationBound,
-      double transitionSavedS,
-      long compactionShiftS,
-      String notes) {}
+      String source,
+      double ownPriority,
+      List<Note> notes,
+      Map<String, Double> phaseS) {
+    public Stats {
+      notes = List.copyOf(notes);
+      phaseS = java.util.Collections.unmodifiableMap(new LinkedHashMap<>(phaseS));
+    }
+
+    /** The notes as one line of text. */
+    public String notesText() {
+      return notes.stream().map(Note::text).collect(Collectors.joining(" "));
+    }
+
+    /** True when some note is of this kind. */
+    public boolean has(Note.Kind kind) {
+      return notes.stream().anyMatch(n -> n.kind() == kind);
+    }
+  }
 
   public SequencerResult {
     observations = List.copyOf(observations);
@@ -67,12 +86,29 @@ public record SequencerResult(
     conflicts = List.copyOf(conflicts);
   }
 
-  /** A result without conflicts (every status but INFEASIBLE). */
-  public SequencerResult(PlanStatus status, List<Planned> observations, double totalPriority,
-      double totalTransitionS, double boundPriority, double gap, List<Unscheduled> unscheduled, Stats stats,
-      String message) {
-    this(status, observations, totalPriority, totalTransitionS, boundPriority, gap, unscheduled, stats, message,
-        List.of());
+  /** A plan: OPTIMAL or FEASIBLE, with its bound ({@code NaN} when none) and gap computed from it. */
+  public static SequencerResult planned(PlanStatus status, List<Planned> observations, double totalPriority,
+      double totalTransitionS, double bound, boolean priorityProven, List<Unscheduled> unscheduled, Stats stats) {
+    if (status != PlanStatus.OPTIMAL && status != PlanStatus.FEASIBLE) {
+      throw new IllegalArgumentException("a planned result is OPTIMAL or FEASIBLE, not " + status);
+    }
+    double gap = Double.isNaN(bound) ? Double.NaN : bound <= 0 ? 0 : Math.max(0, (bound - totalPriority) / bound);
+    return new SequencerResult(status, observations, totalPriority, totalTransitionS, bound, gap, priorityProven,
+        unscheduled, stats, "", List.of());
+  }
+
+  /** Proven infeasible: {@code message} says why, {@code conflicts} name the required requests at fault. */
+  public static SequencerResult infeasible(String message, List<RequiredConflicts.Conflict> conflicts,
+      List<Unscheduled> unscheduled, Stats stats) {
+    return new SequencerResult(PlanStatus.INFEASIBLE, List.of(), 0, 0, Double.NaN, Double.NaN, false, unscheduled,
+        stats, message, conflicts);
+  }
+
+  /** No plan holding every required request was found in time (nothing proven about whether one exists). */
+  public static SequencerResult noPlanInTime(String message, List<RequiredConflicts.Conflict> suspected,
+      double bound, List<Unscheduled> unscheduled, Stats stats) {
+    return new SequencerResult(PlanStatus.NO_SOLUTION_IN_TIME, List.of(), 0, 0, bound, Double.NaN, false,
+        unscheduled, stats, message, suspected);
   }
 
   /** True when the result carries a plan (OPTIMAL or FEASIBLE). */

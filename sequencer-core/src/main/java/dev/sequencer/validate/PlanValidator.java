@@ -52,6 +52,7 @@ public final class PlanValidator {
   private final Transitions transitions;
   private final ObservabilityOracle oracle;
   private final Instant now;
+  private final boolean checkRequired;
 
   /**
    * A validator for these requests (scenario order = transition index), their visibility windows
@@ -59,12 +60,13 @@ public final class PlanValidator {
    */
   public PlanValidator(TimeWindow horizon, List<Request> requests, List<RequestWindows> windows,
       Transitions transitions) {
-    this(horizon, requests, windows, transitions, null, null);
+    this(horizon, requests, windows, transitions, null, null, true);
   }
 
   private PlanValidator(TimeWindow horizon, List<Request> requests, List<RequestWindows> windows,
-      Transitions transitions, ObservabilityOracle oracle, Instant now) {
+      Transitions transitions, ObservabilityOracle oracle, Instant now, boolean checkRequired) {
     this.now = now;
+    this.checkRequired = checkRequired;
     this.horizon = Objects.requireNonNull(horizon, "horizon");
     this.requests = List.copyOf(requests);
     this.transitions = Objects.requireNonNull(transitions, "transitions");
@@ -86,7 +88,7 @@ public final class PlanValidator {
   public PlanValidator withOracle(ObservabilityOracle newOracle) {
     List<RequestWindows> w = new ArrayList<>();
     windows.forEach((id, list) -> w.add(new RequestWindows(id, list)));
-    return new PlanValidator(horizon, requests, w, transitions, newOracle, now);
+    return new PlanValidator(horizon, requests, w, transitions, newOracle, now, checkRequired);
   }
 
   /**
@@ -99,7 +101,18 @@ public final class PlanValidator {
   public PlanValidator withNow(Instant newNow) {
     List<RequestWindows> w = new ArrayList<>();
     windows.forEach((id, list) -> w.add(new RequestWindows(id, list)));
-    return new PlanValidator(horizon, requests, w, transitions, oracle, Objects.requireNonNull(newNow, "now"));
+    return new PlanValidator(horizon, requests, w, transitions, oracle, Objects.requireNonNull(newNow, "now"),
+        checkRequired);
+  }
+
+  /**
+   * A copy that does not ask for the required requests: for checking part of a night (the done and running
+   * observations a re-plan keeps), where the rest is still to come.
+   */
+  public PlanValidator withRequiredIgnored() {
+    List<RequestWindows> w = new ArrayList<>();
+    windows.forEach((id, list) -> w.add(new RequestWindows(id, list)));
+    return new PlanValidator(horizon, requests, w, transitions, oracle, now, false);
   }
 
   /** All violations of {@code timeline}; empty when it is valid. */
@@ -138,7 +151,7 @@ public final class PlanValidator {
     }
     checkTransitions(obs, out);
     for (Request r : requests) {
-      if (r.required() && obs.stream().noneMatch(o -> o.id().equals(r.id()))) {
+      if (checkRequired && r.required() && obs.stream().noneMatch(o -> o.id().equals(r.id()))) {
         out.add("required request " + r.id() + " is not observed");
       }
     }

@@ -6,6 +6,8 @@ import dev.sequencer.model.PlanStatus;
 import dev.sequencer.model.Request;
 import dev.sequencer.model.RequestWindows;
 import dev.sequencer.model.TimeWindow;
+import dev.sequencer.sequence.problem.PlanningProblem;
+import dev.sequencer.sequence.problem.Task;
 import dev.sequencer.slew.Transitions;
 import dev.sequencer.validate.PlanValidator;
 import java.time.Instant;
@@ -131,7 +133,7 @@ class BruteForceProperties {
       best[1] = trans;
     }
     for (int j = 0; j < p.size(); j++) {
-      PlanningProblem.Task t = p.tasks().get(j);
+      Task t = p.tasks().get(j);
       if (used[j] || !t.schedulable()) {
         continue;
       }

@@ -5,6 +5,12 @@ import static org.junit.jupiter.api.Assertions.assertTrue;
 import static org.junit.jupiter.api.Assumptions.assumeTrue;
 
 import dev.sequencer.model.PlanStatus;
+import dev.sequencer.sequence.problem.Plan;
+import dev.sequencer.sequence.problem.PlanningProblem;
+import dev.sequencer.sequence.search.GreedyPlanner;
+import dev.sequencer.sequence.search.InsertionSearch;
+import dev.sequencer.sequence.timing.ArcCosts;
+import dev.sequencer.sequence.timing.ExactTimer;
 import java.nio.file.Path;
 import org.junit.jupiter.params.ParameterizedTest;
 import org.junit.jupiter.params.provider.ValueSource;
@@ -40,13 +46,13 @@ class DumasTest {
     PlanningProblem problem = problem(name);
     long published = published(name);
     ArcCosts arcs = new ArcCosts(problem);
-    Plan greedy = new GreedyPlanner(problem).plan();
+    Plan greedy = new GreedyPlanner(problem, new ExactTimer(problem)).plan();
     assertTrue(greedy.size() < problem.size(), name + ": greedy alone already completes the tour");
-    Plan tour = new InsertionSearch(problem, arcs, new PriorityScale(problem), 1).improve(greedy, Long.MAX_VALUE, 3000);
+    Plan tour = new InsertionSearch(problem, arcs, 1).improve(greedy, Long.MAX_VALUE, 3000);
     assertEquals(problem.size(), tour.size(), name + ": every customer and the return are planned");
-    assertTrue(tour.modelFeasible(problem, arcs));
+    assertTrue(arcs.feasible(tour));
     assertEquals(problem.mustBeLastIndex(), tour.order()[tour.size() - 1], "the return is last");
-    assertTrue(tour.modelTransitionS(arcs) >= published, name + ": travel below the published optimum");
+    assertTrue(arcs.transitionS(tour) >= published, name + ": travel below the published optimum");
   }
 
   /** The instance, or the test is skipped when ../shared is absent. */

@@ -4,6 +4,7 @@ import static org.junit.jupiter.api.Assertions.assertEquals;
 
 import dev.sequencer.model.PlanStatus;
 import dev.sequencer.model.Request;
+import dev.sequencer.sequence.problem.PlanningProblem;
 import java.util.ArrayList;
 import java.util.List;
 import java.util.Random;

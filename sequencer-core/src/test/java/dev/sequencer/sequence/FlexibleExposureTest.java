@@ -13,6 +13,7 @@ import dev.sequencer.model.RequestWindows;
 import dev.sequencer.model.TimeWindow;
 import dev.sequencer.model.Timeline;
 import dev.sequencer.model.UtilityPoint;
+import dev.sequencer.sequence.problem.PlanningProblem;
 import dev.sequencer.slew.Transitions;
 import dev.sequencer.validate.PlanValidator;
 import java.time.Instant;

@@ -8,6 +8,7 @@ import dev.sequencer.model.Request;
 import dev.sequencer.model.RequestWindows;
 import dev.sequencer.model.TimeWindow;
 import dev.sequencer.model.UtilityPoint;
+import dev.sequencer.sequence.problem.PlanningProblem;
 import dev.sequencer.slew.Transitions;
 import java.time.Instant;
 import java.util.ArrayList;

@@ -3,6 +3,13 @@ package dev.sequencer.sequence;
 import static org.junit.jupiter.api.Assertions.assertEquals;
 import static org.junit.jupiter.api.Assertions.assertTrue;
 
+import dev.sequencer.sequence.bound.BucketRelaxation;
+import dev.sequencer.sequence.problem.Plan;
+import dev.sequencer.sequence.problem.PlanningProblem;
+import dev.sequencer.sequence.search.GreedyPlanner;
+import dev.sequencer.sequence.search.InsertionSearch;
+import dev.sequencer.sequence.timing.ArcCosts;
+import dev.sequencer.sequence.timing.ExactTimer;
 import java.util.Arrays;
 import net.jqwik.api.ForAll;
 import net.jqwik.api.Property;
@@ -21,17 +28,16 @@ class InsertionAndBoundProperties {
     PlanningProblem p = inst.problem();
     long[] best = BruteForceProperties.exhaustive(p); // {4 × priority, transition}, null = no complete plan
     ArcCosts arcs = new ArcCosts(p);
-    PriorityScale scale = new PriorityScale(p);
-    Plan greedy = new GreedyPlanner(p).plan();
-    Plan out = new InsertionSearch(p, arcs, scale, 7).improve(greedy, Long.MAX_VALUE, 40);
-    assertTrue(out.modelFeasible(p, arcs), () -> "infeasible: " + out);
+    Plan greedy = new GreedyPlanner(p, new ExactTimer(p)).plan();
+    Plan out = new InsertionSearch(p, arcs, 7).improve(greedy, Long.MAX_VALUE, 40);
+    assertTrue(arcs.feasible(out), () -> "infeasible: " + out);
     assertTrue(missingRequired(p, out) <= missingRequired(p, greedy), "fewer required requests than its start");
     if (missingRequired(p, out) > 0) {
       return;
     }
     assertEquals(out.size(), Arrays.stream(out.order()).distinct().count(), "a request planned twice");
     if (hasAllRequired(p, greedy)) {
-      assertTrue(out.scaledPriority(p, scale) >= greedy.scaledPriority(p, scale), "worse than its start");
+      assertTrue(out.prize(p) >= greedy.prize(p), "worse than its start");
     }
     assertTrue(out.priority(p) <= best[0] / 4.0 + 1e-9, "beats the exhaustive optimum");
   }
@@ -43,13 +49,13 @@ class InsertionAndBoundProperties {
     int optimal = 0;
     for (long seed = 1; seed <= 150; seed++) {
       PlanningProblem p = BruteForceProperties.instance(seed).problem();
-      Plan greedy = new GreedyPlanner(p).plan();
+      Plan greedy = new GreedyPlanner(p, new ExactTimer(p)).plan();
       long[] best = BruteForceProperties.exhaustive(p);
       if (best == null || !hasAllRequired(p, greedy)) {
         continue;
       }
       ArcCosts arcs = new ArcCosts(p);
-      Plan out = new InsertionSearch(p, arcs, new PriorityScale(p), 1).improve(greedy, Long.MAX_VALUE, 200);
+      Plan out = new InsertionSearch(p, arcs, 1).improve(greedy, Long.MAX_VALUE, 200);
       tried++;
       optimal += Math.abs(out.priority(p) - best[0] / 4.0) < 1e-9 ? 1 : 0;
     }
@@ -80,7 +86,7 @@ class InsertionAndBoundProperties {
     double capacityOnly = BucketRelaxation.bound(p, arcs, 30, false);
     double withPredecessors = BucketRelaxation.bound(p, arcs, 30, true);
     assertTrue(withPredecessors < capacityOnly - 2, withPredecessors + " vs " + capacityOnly);
-    Plan greedy = new GreedyPlanner(p).plan();
+    Plan greedy = new GreedyPlanner(p, new ExactTimer(p)).plan();
     assertTrue(withPredecessors >= greedy.priority(p), "below the greedy plan's priority");
   }
 

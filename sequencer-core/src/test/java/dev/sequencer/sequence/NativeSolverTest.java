@@ -4,6 +4,7 @@ import static org.junit.jupiter.api.Assertions.assertSame;
 import static org.junit.jupiter.api.Assertions.assertThrows;
 import static org.junit.jupiter.api.Assertions.assertTrue;
 
+import dev.sequencer.sequence.cpsat.NativeSolver;
 import org.junit.jupiter.api.Test;
 
 /** The native library loads once; a failed load becomes one clear, repeated message. */

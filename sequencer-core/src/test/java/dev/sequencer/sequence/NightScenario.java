@@ -3,6 +3,7 @@ package dev.sequencer.sequence;
 import dev.sequencer.model.Request;
 import dev.sequencer.model.RequestWindows;
 import dev.sequencer.model.TimeWindow;
+import dev.sequencer.sequence.problem.PlanningProblem;
 import dev.sequencer.slew.Transitions;
 import java.time.Instant;
 import java.util.ArrayList;

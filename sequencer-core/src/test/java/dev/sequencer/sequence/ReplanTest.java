@@ -5,11 +5,16 @@ import static org.junit.jupiter.api.Assertions.assertFalse;
 import static org.junit.jupiter.api.Assertions.assertThrows;
 import static org.junit.jupiter.api.Assertions.assertTrue;
 
+import dev.sequencer.io.ScenarioException;
 import dev.sequencer.model.Observation;
 import dev.sequencer.model.PlanStatus;
 import dev.sequencer.model.Timeline;
-import dev.sequencer.sequence.PlanningProblem.StartRange;
-import dev.sequencer.sequence.PlanningProblem.Task;
+import dev.sequencer.sequence.problem.PlanningProblem;
+import dev.sequencer.sequence.problem.StartRange;
+import dev.sequencer.sequence.problem.Task;
+import dev.sequencer.sequence.replan.ReplanOptions;
+import dev.sequencer.sequence.replan.ReplanResult;
+import dev.sequencer.sequence.replan.Replanner;
 import dev.sequencer.slew.Transitions;
 import dev.sequencer.validate.PlanValidator;
 import java.time.Instant;
@@ -54,7 +59,7 @@ class ReplanTest {
   }
 
   private static Task task(String id, long dur, double prio, long from, long to) {
-    return new Task(id, dur, prio, false, List.of(new StartRange(from, to)), null);
+    return Task.fixed(id, dur, prio, false, List.of(new StartRange(from, to)));
   }
 
   @Test
@@ -144,7 +149,7 @@ class ReplanTest {
     Instant now = prev.observations().get(9).end();
     ReplanResult r = replan(p, prev, now, Set.of(), Set.of(), ReplanOptions.defaults().withSequencer(FAST));
     assertTrue(r.newPriority() >= r.tailPriority() - 1e-9, r.newPriority() + " < tail " + r.tailPriority());
-    assertTrue(r.notes().contains("warm start: the preferred order (" + (prev.observations().size() - 10)), r.notes());
+    assertTrue(r.notes().contains("warm start: the given plan (" + (prev.observations().size() - 10)), r.notes());
   }
 
   @Test
@@ -192,12 +197,12 @@ class ReplanTest {
   void badIdsNameTheirField() {
     PlanningProblem p = fixed(3_600, task("A", 600, 2, 0, 600), task("B", 600, 2, 630, 1_300));
     Timeline prev = plan(p, FAST);
-    Replanner.BadInput e = assertThrows(Replanner.BadInput.class,
+    ScenarioException e = assertThrows(ScenarioException.class,
         () -> new Replanner().replan(p, prev, T0.plusSeconds(700), Set.of("Z"), Set.of(), ReplanOptions.defaults()));
-    assertEquals("done", e.field());
+    assertEquals("done", e.path());
     assertTrue(e.getMessage().contains("\"Z\" is not an observation of the previous timeline"), e.getMessage());
-    Replanner.BadInput later = assertThrows(Replanner.BadInput.class,
+    ScenarioException later = assertThrows(ScenarioException.class,
         () -> new Replanner().replan(p, prev, T0.plusSeconds(10), Set.of(), Set.of("B"), ReplanOptions.defaults()));
-    assertEquals("failed", later.field());
+    assertEquals("failed", later.path());
   }
 }

@@ -7,6 +7,8 @@ import dev.sequencer.model.PlanStatus;
 import dev.sequencer.model.Request;
 import dev.sequencer.model.RequestWindows;
 import dev.sequencer.model.TimeWindow;
+import dev.sequencer.sequence.problem.PlanningProblem;
+import dev.sequencer.sequence.problem.Reasons;
 import dev.sequencer.slew.Transitions;
 import java.time.Instant;
 import java.util.ArrayList;
@@ -46,8 +48,8 @@ class RequiredConflictsTest {
     PlanningProblem p = problem(Transitions.fixed(3, 0), new R("N", 60, true, -1, -1),
         new R("S", 60, true, 0, 50), new R("OK", 60, true, 100, 400));
     RequiredConflicts.Explanation e = explain(p);
-    assertEquals(List.of(new RequiredConflicts.Conflict(List.of("N"), PlanningProblem.NEVER_VISIBLE),
-        new RequiredConflicts.Conflict(List.of("S"), PlanningProblem.WINDOWS_TOO_SHORT)), e.conflicts());
+    assertEquals(List.of(new RequiredConflicts.Conflict(List.of("N"), Reasons.NEVER_VISIBLE),
+        new RequiredConflicts.Conflict(List.of("S"), Reasons.WINDOWS_TOO_SHORT)), e.conflicts());
     assertEquals("required request N cannot be scheduled: never visible; required request S cannot be scheduled: "
         + "windows shorter than its duration", e.message());
   }

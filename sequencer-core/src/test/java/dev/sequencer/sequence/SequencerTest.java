@@ -7,6 +7,9 @@ import dev.sequencer.model.PlanStatus;
 import dev.sequencer.model.Request;
 import dev.sequencer.model.RequestWindows;
 import dev.sequencer.model.TimeWindow;
+import dev.sequencer.sequence.problem.PlanningProblem;
+import dev.sequencer.sequence.problem.Reasons;
+import dev.sequencer.sequence.problem.StartRange;
 import dev.sequencer.slew.Transitions;
 import dev.sequencer.validate.PlanValidator;
 import java.time.Instant;
@@ -70,7 +73,9 @@ class SequencerTest {
     SequencerResult r = new Sequencer().plan(p, SequencerOptions.defaults().withTimeLimitS(5).withWorkers(2));
     assertEquals(PlanStatus.OPTIMAL, r.status());
     assertEquals(List.of("C"), r.observations().stream().map(SequencerResult.Planned::id).toList());
-    assertEquals(List.of("N: never visible", "S: windows shorter than its duration", "D: lost to conflicts"),
+    // D fails exact insertion too: the reason names the observation that holds its window.
+    assertEquals(List.of("N: never visible", "S: windows shorter than its duration",
+        "D: lost to conflicts: its windows are taken by C"),
         r.unscheduled().stream().map(u -> u.id() + ": " + u.reason()).toList());
   }
 
@@ -80,7 +85,7 @@ class SequencerTest {
     List<Request> rs = List.of(req("A", 60, 1, false));
     PlanningProblem p = PlanningProblem.of(win(0, 1000), rs,
         List.of(new RequestWindows("A", List.of(win(10.2, 80.9)))), Transitions.fixed(1, 0));
-    assertEquals(List.of(new PlanningProblem.StartRange(11, 20)), p.tasks().get(0).starts());
+    assertEquals(List.of(new StartRange(11, 20)), p.tasks().get(0).starts());
   }
 
   @Test
@@ -88,7 +93,7 @@ class SequencerTest {
     // Window [0.5, 60.4] s is 59.9 s long: no whole-second start fits a 60 s observation.
     PlanningProblem p = PlanningProblem.of(win(0, 1000), List.of(req("A", 60, 1, false)),
         List.of(new RequestWindows("A", List.of(win(0.5, 60.4)))), Transitions.fixed(1, 0));
-    assertEquals(PlanningProblem.WINDOWS_TOO_SHORT, p.tasks().get(0).emptyReason());
+    assertEquals(Reasons.WINDOWS_TOO_SHORT, p.tasks().get(0).emptyReason());
   }
 
   @Test

@@ -5,6 +5,7 @@ import dev.sequencer.model.Request;
 import dev.sequencer.model.RequestWindows;
 import dev.sequencer.model.TimeWindow;
 import dev.sequencer.model.UtilityPoint;
+import dev.sequencer.sequence.problem.PlanningProblem;
 import dev.sequencer.slew.Transitions;
 import java.time.Instant;
 import java.util.ArrayList;
@@ -15,16 +16,16 @@ import java.util.Random;
  * A tiny invented test instance: requests, their windows as whole-second [from, to] pairs from
  * {@link #T0}, and a transition table (seconds; {@code fromStart} from the start pointing).
  */
-record TinyInstance(long horizonS, List<Request> requests, List<long[][]> windows, double[][] matrix,
+public record TinyInstance(long horizonS, List<Request> requests, List<long[][]> windows, double[][] matrix,
     double[] fromStart) {
-  static final Instant T0 = Instant.parse("2031-05-04T18:00:00Z");
+  public static final Instant T0 = Instant.parse("2031-05-04T18:00:00Z");
 
   /**
    * A random request: the first one fixed, the others fixed with chance 1/3 (60–180 s, priority 1–4),
    * else flexible from 60 s to {@code maxS} on a 60 s grid with a value line from v0 (two decimals, below
    * 2) to v0 + valueStep·[0, valueDraws).
    */
-  static Request randomRequest(Random rnd, String id, boolean first, long maxS, double valueStep, int valueDraws) {
+  public static Request randomRequest(Random rnd, String id, boolean first, long maxS, double valueStep, int valueDraws) {
     if (first || rnd.nextInt(3) == 0) {
       return new Request(id, null, (double) (60 + 30 * rnd.nextInt(5)), 1.0 + rnd.nextInt(4), false, List.of(), null);
     }
@@ -35,7 +36,7 @@ record TinyInstance(long horizonS, List<Request> requests, List<long[][]> window
   }
 
   /** The instance with a random table: start transitions in [0, 60) s, others in [0, maxCostS) s. */
-  static TinyInstance withRandomTable(long horizonS, List<Request> requests, List<long[][]> windows, Random rnd,
+  public static TinyInstance withRandomTable(long horizonS, List<Request> requests, List<long[][]> windows, Random rnd,
       int maxCostS) {
     int n = requests.size();
     double[][] m = new double[n][n];
@@ -49,7 +50,7 @@ record TinyInstance(long horizonS, List<Request> requests, List<long[][]> window
     return new TinyInstance(horizonS, requests, windows, m, fromStart);
   }
 
-  PlanningProblem problem() {
+  public PlanningProblem problem() {
     List<RequestWindows> rw = new ArrayList<>();
     for (int k = 0; k < requests.size(); k++) {
       List<TimeWindow> w = new ArrayList<>();

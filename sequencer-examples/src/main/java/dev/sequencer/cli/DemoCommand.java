@@ -4,6 +4,7 @@ import dev.sequencer.io.ScenarioReader;
 import dev.sequencer.io.TimelineFile;
 import dev.sequencer.io.WindowsFile;
 import dev.sequencer.model.SolverSettings;
+import dev.sequencer.planner.PlanOutcome;
 import java.io.IOException;
 import java.io.InputStream;
 import java.io.PrintWriter;
@@ -60,21 +61,20 @@ final class DemoCommand implements Callable<Integer> {
     } catch (IOException e) {
       throw new UncheckedIOException(e);
     }
-    Pipeline p = Pipeline.of(r.scenario(), common.astro());
+    SolverSettings fromFile = r.scenario().solverOrDefaults();
+    fromFile = fromFile.withTimeLimitS(Math.min(fromFile.timeLimitS(), DEFAULT_TIME_LIMIT_S));
+    PlanOutcome planned = PlanCommand.solve(r.scenario(), common.astro(), solverOptions, fromFile, out);
+    Pipeline p = new Pipeline(planned.geometry(), common.astro());
     long visible = p.windows().stream().filter(w -> !w.intervals().isEmpty()).count();
     out.println("windows: " + visible + " of " + p.windows().size() + " requests visible");
     Path windowsFile = dir.resolve("windows.json");
     WindowsFile.write(p.windows(), windowsFile);
-
-    SolverSettings fromFile = r.scenario().solverOrDefaults();
-    fromFile = fromFile.withTimeLimitS(Math.min(fromFile.timeLimitS(), DEFAULT_TIME_LIMIT_S));
-    Pipeline.Planned planned = PlanCommand.solve(p, solverOptions, fromFile, out);
     PlanCommand.print(out, planned.result(), planned.timeline());
 
     Path timelineFile = dir.resolve("timeline.json");
     TimelineFile.write(planned.timeline(), timelineFile);
     // The same re-check as `sequencer check`, on the file as written (catches a lossy round trip).
-    List<String> violations = p.violations(TimelineFile.read(timelineFile));
+    List<String> violations = p.violations(TimelineFile.read(timelineFile), null);
     if (!violations.isEmpty()) {
       throw new IllegalStateException("the written timeline failed its re-check (a bug): " + violations);
     }

@@ -2,7 +2,7 @@ package dev.sequencer.cli;
 
 import dev.sequencer.io.Problem;
 import dev.sequencer.io.ScenarioException;
-import dev.sequencer.sequence.NativeSolver;
+import dev.sequencer.sequence.cpsat.NativeSolver;
 import java.io.PrintWriter;
 import java.io.UncheckedIOException;
 import java.nio.file.NoSuchFileException;

@@ -2,10 +2,12 @@ package dev.sequencer.cli;
 
 import dev.sequencer.astro.AstroContext;
 import dev.sequencer.io.ScenarioReader;
+import dev.sequencer.planner.InputRules;
 import java.io.PrintWriter;
 import java.nio.file.Path;
 import java.util.concurrent.Callable;
 import picocli.CommandLine.Command;
+import picocli.CommandLine.Mixin;
 import picocli.CommandLine.Parameters;
 import picocli.CommandLine.Spec;
 import picocli.CommandLine.Model.CommandSpec;
@@ -14,20 +16,27 @@ import picocli.CommandLine.Model.CommandSpec;
 @Command(
     name = "inspect",
     mixinStandardHelpOptions = true,
-    description = {"Check a scenario file and print a short summary.",
+    description = {"Check a scenario file against the format and the planner's rules, compute its windows, and "
+        + "print a short summary (the requested time against the time the constraints leave).",
         "Exit 0 when valid; 2 with every problem listed, one a line, when not."},
     footer = {"", Caution.TEXT})
 final class InspectCommand implements Callable<Integer> {
   @Parameters(index = "0", paramLabel = "SCENARIO.json", description = "The scenario file.")
   Path scenario;
 
+  @Mixin CommonOptionsMixin common;
+
   @Spec CommandSpec spec;
 
   @Override
   public Integer call() {
     ScenarioReader.Result r = ScenarioReader.read(scenario);
+    // The same rules as plan: what inspect calls valid, plan takes.
+    InputRules.check(r.scenario(), scenario.toString());
     PrintWriter out = spec.commandLine().getOut();
     ScenarioSummary.lines(r.scenario()).forEach(out::println);
+    Pipeline p = Pipeline.of(r.scenario(), common.astro());
+    out.println(ScenarioSummary.requestedAgainstObservable(r.scenario(), p.windows()));
     AstroContext offline = AstroContext.offline();
     if (offline.beyondLeapSecondValidity(r.scenario().horizon().end())) {
       out.println("warning     the horizon ends after " + offline.leapSecondsValidUntil()

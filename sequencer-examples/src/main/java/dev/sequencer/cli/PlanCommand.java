@@ -1,11 +1,17 @@
 package dev.sequencer.cli;
 
+import dev.sequencer.astro.AstroContext;
 import dev.sequencer.io.ScenarioReader;
 import dev.sequencer.io.TimelineFile;
 import dev.sequencer.model.Observation;
+import dev.sequencer.model.Scenario;
 import dev.sequencer.model.SolverSettings;
 import dev.sequencer.model.Timeline;
 import dev.sequencer.model.Unscheduled;
+import dev.sequencer.planner.InputRules;
+import dev.sequencer.planner.PlanOutcome;
+import dev.sequencer.planner.Planner;
+import dev.sequencer.sequence.Note;
 import dev.sequencer.sequence.SequencerOptions;
 import dev.sequencer.sequence.SequencerResult;
 import java.io.PrintWriter;
@@ -57,10 +63,10 @@ final class PlanCommand implements Callable<Integer> {
     ScenarioReader.Result r = ScenarioReader.read(scenario);
     PrintWriter out = spec.commandLine().getOut();
     r.warnings().forEach(w -> out.println("warning: " + w));
-    PlanInputs.check(r.scenario(), scenario.toString());
+    InputRules.check(r.scenario(), scenario.toString());
     Outputs.checkFolder("--output", output);
-    Pipeline p = Pipeline.of(r.scenario(), common.astro());
-    Pipeline.Planned planned = solve(p, solverOptions, r.scenario().solverOrDefaults(), out);
+    PlanOutcome planned = solve(r.scenario(), common.astro(), solverOptions, r.scenario().solverOrDefaults(), out);
+    Pipeline p = new Pipeline(planned.geometry(), common.astro());
     print(out, planned.result(), planned.timeline());
     if (output != null) {
       TimelineFile.write(planned.timeline(), output);
@@ -75,12 +81,16 @@ final class PlanCommand implements Callable<Integer> {
     return NoPlan.report(planned.result(), out);
   }
 
-  /** Plans {@code p} with the command-line options over {@code fromFile}, showing progress on {@code out}. */
-  static Pipeline.Planned solve(Pipeline p, SolverOptionsMixin o, SolverSettings fromFile, PrintWriter out) {
+  /**
+   * Plans {@code s} through the {@link Planner} façade with the command-line options over {@code fromFile},
+   * showing progress on {@code out}; the time limit covers windows, transitions, planning and the check.
+   */
+  static PlanOutcome solve(Scenario s, AstroContext ctx, SolverOptionsMixin o, SolverSettings fromFile,
+      PrintWriter out) {
     try (Progress progress = Progress.to(out, Progress.consoleAttached())) {
       SequencerOptions options = o.options(fromFile, progress);
       progress.start();
-      return p.plan(options);
+      return Planner.plan(s, ctx, options);
     }
   }
 
@@ -97,9 +107,15 @@ final class PlanCommand implements Callable<Integer> {
     double span = t.observations().isEmpty() ? 0
         : Duration.between(t.observations().get(0).start(), t.observations().get(t.observations().size() - 1).end())
             .toMillis() / 1000.0 + t.observations().get(0).slewSeconds();
-    out.printf(Locale.ROOT, "status %s, priority %.2f, bound %s, gap %.1f%%, slew total %.0f s, idle total %.0f s, "
+    out.printf(Locale.ROOT, "status %s, priority %.2f, bound %s, gap %s, slew total %.0f s (exact), idle total %.0f s, "
         + "%d scheduled, %d not%n", t.status(), t.priority(),
-        t.bound() == null ? "-" : String.format(Locale.ROOT, "%.2f", t.bound()), 100 * result.gap(),
+        t.bound() == null ? "-" : String.format(Locale.ROOT, "%.2f", t.bound()),
+        Double.isNaN(result.gap()) ? "-" : String.format(Locale.ROOT, "%.1f%%", 100 * result.gap()),
         t.slewSeconds(), Math.max(0, span - busy), t.observations().size(), t.unscheduled().size());
+    for (Note n : result.stats().notes()) {
+      if (n.kind() == Note.Kind.OPTIMALITY) {
+        out.println("note: " + n.text());
+      }
+    }
   }
 }

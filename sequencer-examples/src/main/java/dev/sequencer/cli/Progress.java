@@ -8,7 +8,8 @@ import java.util.concurrent.ScheduledExecutorService;
 import java.util.concurrent.TimeUnit;
 
 /**
- * Solver progress for the terminal: elapsed seconds, solutions found, best priority and proven bound.
+ * Planner progress for the terminal: elapsed seconds, plans found by all producers, the incumbent's priority
+ * (the plan that would be returned now) and the proven bound, in the user's units.
  *
  * <p>Interactive (a console): one status line redrawn in place with a carriage return, refreshed every
  * second so the elapsed time moves between solutions, and ended with a newline by {@link #close()}.
@@ -64,7 +65,7 @@ final class Progress implements ProgressListener, AutoCloseable {
     if (interactive) {
       redraw();
     } else {
-      out.printf(Locale.ROOT, "  %6.1f s  solution %d: priority %.1f, slew %.0f s, bound %s%n", elapsedS,
+      out.printf(Locale.ROOT, "  %6.1f s  plan %d: priority %.1f, exact slew %.0f s, bound %s%n", elapsedS,
           solutionCount, bestPriority, transitionS, format(boundPriority));
       out.flush();
     }
@@ -72,7 +73,7 @@ final class Progress implements ProgressListener, AutoCloseable {
 
   private synchronized void redraw() {
     double elapsedS = (System.nanoTime() - startNanos) * 1e-9;
-    String line = String.format(Locale.ROOT, "  solving %6.1f s | %d solution%s | best priority %s | bound %s",
+    String line = String.format(Locale.ROOT, "  planning %6.1f s | %d plan%s found | best priority %s | bound %s",
         elapsedS, solutions, solutions == 1 ? "" : "s", format(priority), format(bound));
     // Pad with spaces so a shorter line fully covers the previous one.
     out.print("\r" + line + " ".repeat(Math.max(0, drawnWidth - line.length())));

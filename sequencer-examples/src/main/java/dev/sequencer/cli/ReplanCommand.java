@@ -1,14 +1,16 @@
 package dev.sequencer.cli;
 
+import dev.sequencer.io.ScenarioException;
 import dev.sequencer.io.ScenarioReader;
 import dev.sequencer.io.TimelineFile;
 import dev.sequencer.model.Observation;
 import dev.sequencer.model.Timeline;
 import dev.sequencer.model.Unscheduled;
-import dev.sequencer.sequence.PlanningProblem;
-import dev.sequencer.sequence.ReplanOptions;
-import dev.sequencer.sequence.ReplanResult;
-import dev.sequencer.sequence.Replanner;
+import dev.sequencer.planner.InputRules;
+import dev.sequencer.planner.Planner;
+import dev.sequencer.sequence.replan.ReplanOptions;
+import dev.sequencer.sequence.replan.ReplanResult;
+import dev.sequencer.sequence.replan.Replanner;
 import java.io.PrintWriter;
 import java.nio.file.Path;
 import java.time.Instant;
@@ -76,7 +78,7 @@ final class ReplanCommand implements Callable<Integer> {
     ScenarioReader.Result r = ScenarioReader.read(scenario);
     PrintWriter out = spec.commandLine().getOut();
     r.warnings().forEach(w -> out.println("warning: " + w));
-    PlanInputs.check(r.scenario(), scenario.toString());
+    InputRules.check(r.scenario(), scenario.toString());
     Timeline prev = TimelineFile.read(previous);
     Instant at = instant();
     ReplanOptions options = ReplanOptions.defaults().withDropFailed(dropFailed);
@@ -84,15 +86,16 @@ final class ReplanCommand implements Callable<Integer> {
       options = options.withStabilityWeight(weight());
     }
     Outputs.checkFolder("--output", output);
-    Pipeline p = Pipeline.of(r.scenario(), common.astro());
-    PlanningProblem problem = PlanningProblem.of(r.scenario(), p.windows(), p.transitions());
     ReplanResult result;
     try (Progress progress = Progress.to(out, Progress.consoleAttached())) {
       options = options.withSequencer(solverOptions.options(r.scenario().solverOrDefaults(), progress));
       progress.start();
-      result = new Replanner().replan(problem, prev, at, ids(done), ids(failed), options);
-    } catch (Replanner.BadInput e) {
-      throw new InputException("--" + e.getMessage());
+      result = Planner.replan(r.scenario(), common.astro(), prev, at, ids(done), ids(failed), options).result();
+    } catch (ScenarioException e) {
+      if (!Replanner.INPUT.equals(e.source())) {
+        throw e;
+      }
+      throw new InputException("--" + e.problems().get(0));
     }
     print(out, result);
     if (output != null) {

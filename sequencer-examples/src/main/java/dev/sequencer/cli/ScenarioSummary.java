@@ -8,6 +8,9 @@ import dev.sequencer.model.OrbitObserver;
 import dev.sequencer.model.OrbitingTarget;
 import dev.sequencer.model.RaDec;
 import dev.sequencer.model.Request;
+import dev.sequencer.model.RequestWindows;
+import dev.sequencer.model.SlewSettings;
+import dev.sequencer.model.TimeWindow;
 import dev.sequencer.model.Scenario;
 import dev.sequencer.model.Target;
 import java.util.ArrayList;
@@ -28,7 +31,7 @@ final class ScenarioSummary {
         horizonS / 3600));
     out.add("observer    " + observer(s));
     out.add("constraints " + constraints(s.constraints()));
-    out.add("slew        " + s.slew());
+    out.add("slew        " + slew(s.slew()));
     Map<String, Integer> kinds = new LinkedHashMap<>();
     double requested = 0;
     int required = 0;
@@ -44,6 +47,59 @@ final class ScenarioSummary {
     out.add(String.format(Locale.ROOT, "requested   %.0f s of observation (minimum) for a %.0f s horizon: %.0f%%",
         requested, horizonS, 100 * requested / horizonS));
     return out;
+  }
+
+  /** Seconds of observation requested (each request's shortest exposure). */
+  static double requestedS(Scenario s) {
+    return s.requests().stream().mapToDouble(Request::minDurationS).sum();
+  }
+
+  /**
+   * The requested time against the time the constraints leave: the seconds in which at least one request
+   * is observable (the union of all windows; at a ground site, darkness and elevation included).
+   */
+  static String requestedAgainstObservable(Scenario s, List<RequestWindows> windows) {
+    List<TimeWindow> all = new ArrayList<>();
+    windows.forEach(w -> all.addAll(w.intervals()));
+    all.sort((a, b) -> a.start().compareTo(b.start()));
+    double union = 0;
+    java.time.Instant end = null;
+    for (TimeWindow w : all) {
+      java.time.Instant from = end == null || w.start().isAfter(end) ? w.start() : end;
+      if (w.end().isAfter(from)) {
+        union += java.time.Duration.between(from, w.end()).toNanos() * 1e-9;
+      }
+      end = end == null || w.end().isAfter(end) ? w.end() : end;
+    }
+    double requested = requestedS(s);
+    return union <= 0 ? String.format(Locale.ROOT, "observable  no request is ever observable (%.0f s requested)",
+        requested) : String.format(Locale.ROOT, "observable  %.0f s in which some request is observable (the "
+        + "constraints' time, e.g. darkness); requested %.0f s: %.0f%% of it", union, requested, 100 * requested / union);
+  }
+
+  /** The slew model in the file's own terms. */
+  static String slew(SlewSettings slew) {
+    if (slew instanceof SlewSettings.Eigenaxis e) {
+      return String.format(Locale.ROOT, "eigenaxis, rate %s deg/s, acceleration %s deg/s², settle %s s",
+          num(e.rateDegPerS()), num(e.accelDegPerS2()), num(e.settleS()));
+    } else if (slew instanceof SlewSettings.AltAz a) {
+      return String.format(Locale.ROOT, "altaz, azimuth %s deg/s (%s deg/s²), elevation %s deg/s (%s deg/s²), "
+          + "settle %s s, %s", num(a.azimuthRateDegPerS()), num(a.azimuthAccelDegPerS2()),
+          num(a.elevationRateDegPerS()), num(a.elevationAccelDegPerS2()), num(a.settleS()),
+          a.azimuthRangeDeg() == null ? "azimuth unlimited"
+              : "azimuth range [" + num(a.azimuthRangeDeg().get(0)) + ", " + num(a.azimuthRangeDeg().get(1)) + "] deg");
+    } else if (slew instanceof SlewSettings.Fixed f) {
+      return "fixed, " + num(f.seconds()) + " s between any two requests";
+    } else if (slew instanceof SlewSettings.Matrix m) {
+      return "matrix, " + m.seconds().size() + " x " + m.seconds().size() + " table"
+          + (m.fromStartSeconds() == null ? "" : " with a row from the start state");
+    }
+    return slew.model();
+  }
+
+  private static String num(double v) {
+    return v == Math.rint(v) && Math.abs(v) < 1e15 ? String.format(Locale.ROOT, "%.0f", v)
+        : String.format(Locale.ROOT, "%s", v);
   }
 
   static String kind(Target t) {

@@ -21,8 +21,8 @@ class ProgressTest {
     assertFalse(out.contains("\r"), out);
     String[] lines = out.split("\n");
     assertEquals(2, lines.length, out);
-    assertTrue(lines[0].contains("solution 1: priority 10.0") && lines[0].contains("bound -"), lines[0]);
-    assertTrue(lines[1].contains("solution 2: priority 12.0") && lines[1].contains("bound 20.0"), lines[1]);
+    assertTrue(lines[0].contains("plan 1: priority 10.0") && lines[0].contains("bound -"), lines[0]);
+    assertTrue(lines[1].contains("plan 2: priority 12.0") && lines[1].contains("bound 20.0"), lines[1]);
   }
 
   @Test
@@ -37,6 +37,6 @@ class ProgressTest {
     assertTrue(out.endsWith("\n"), out);
     assertEquals(1, out.chars().filter(c -> c == '\n').count(), out);
     String last = out.substring(out.lastIndexOf('\r') + 1).trim();
-    assertTrue(last.contains("2 solutions") && last.contains("best priority 12.0") && last.contains("bound 30.0"), last);
+    assertTrue(last.contains("2 plans found") && last.contains("best priority 12.0") && last.contains("bound 30.0"), last);
   }
 }

@@ -9,7 +9,7 @@ import com.fasterxml.jackson.databind.node.ObjectNode;
 import dev.sequencer.io.TimelineFile;
 import dev.sequencer.model.PlanStatus;
 import dev.sequencer.model.Timeline;
-import dev.sequencer.sequence.NativeSolver;
+import dev.sequencer.sequence.cpsat.NativeSolver;
 import java.io.PrintWriter;
 import java.io.StringWriter;
 import java.nio.file.Files;

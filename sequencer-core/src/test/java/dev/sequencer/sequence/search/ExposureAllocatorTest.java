@@ -1,4 +1,4 @@
-package dev.sequencer.sequence;
+package dev.sequencer.sequence.search;
 
 import static org.junit.jupiter.api.Assertions.assertEquals;
 import static org.junit.jupiter.api.Assertions.assertNotNull;
@@ -8,7 +8,14 @@ import static org.junit.jupiter.api.Assertions.assertTrue;
 import dev.sequencer.model.FlexibleExposure;
 import dev.sequencer.model.Request;
 import dev.sequencer.model.UtilityPoint;
-import dev.sequencer.sequence.ExposureAllocator.Front;
+import dev.sequencer.sequence.search.ExposureAllocator.Front;
+import dev.sequencer.sequence.TinyInstance;
+import dev.sequencer.sequence.problem.Plan;
+import dev.sequencer.sequence.problem.PlanningProblem;
+import dev.sequencer.sequence.search.GreedyPlanner;
+import dev.sequencer.sequence.search.TwoStagePlanner;
+import dev.sequencer.sequence.timing.ArcCosts;
+import dev.sequencer.sequence.timing.ExactTimer;
 import java.util.ArrayList;
 import java.util.List;
 import java.util.Random;
@@ -130,9 +137,8 @@ class ExposureAllocatorTest {
   void allocationMatchesExhaustiveEnumerationForAFixedOrder(@ForAll @LongRange(min = 1, max = 1_000_000) long seed) {
     TinyInstance in = instance(seed);
     PlanningProblem p = in.problem();
-    PriorityScale scale = new PriorityScale(p);
     int[] order = randomOrder(new Random(seed), p.size());
-    Plan plan = new ExposureAllocator(p, new ArcCosts(p), scale).allocate(order);
+    Plan plan = new ExposureAllocator(p, new ArcCosts(p)).allocate(order);
     // Exhaustive enumeration over the exposures of this order (see bruteForceFixedOrder).
     double expected = bruteForceFixedOrder(in, order, 0, -1, 0, 0.0);
     if (Double.isNaN(expected)) {
@@ -140,9 +146,9 @@ class ExposureAllocatorTest {
       return;
     }
     assertNotNull(plan, "seed " + seed + ": exhaustive enumeration fits value " + expected);
-    assertTrue(plan.modelFeasible(p, new ArcCosts(p)), "seed " + seed);
+    assertTrue(new ArcCosts(p).feasible(plan), "seed " + seed);
     assertEquals(expected, plan.priority(p), 1e-9, "seed " + seed);
-    assertEquals(plan.scaledPriority(p, scale), new ExposureAllocator(p, new ArcCosts(p), scale).bestValue(order));
+    assertEquals(plan.prize(p), new ExposureAllocator(p, new ArcCosts(p)).bestValue(order));
   }
 
   @Property(tries = 200)
@@ -150,14 +156,13 @@ class ExposureAllocatorTest {
     TinyInstance in = instance(seed);
     PlanningProblem p = in.problem();
     ArcCosts arcs = new ArcCosts(p);
-    PriorityScale scale = new PriorityScale(p);
-    Plan greedy = new GreedyPlanner(p).plan();
+    Plan greedy = new GreedyPlanner(p, new ExactTimer(p)).plan();
     Plan polished = new TwoStagePlanner(p, arcs).polish(greedy);
-    Plan allocated = new ExposureAllocator(p, arcs, scale).allocate(greedy.order());
+    Plan allocated = new ExposureAllocator(p, arcs).allocate(greedy.order());
     // The LP polish keeps the order and each window; the allocator searches every grid exposure and
     // window for the same order, a superset, so its optimum cannot be lower.
     assertNotNull(allocated, "seed " + seed);
-    assertTrue(allocated.scaledPriority(p, scale) >= polished.scaledPriority(p, scale),
+    assertTrue(allocated.prize(p) >= polished.prize(p),
         "seed " + seed + ": allocation " + allocated + " below polish " + polished);
   }
 
@@ -166,11 +171,10 @@ class ExposureAllocatorTest {
     TinyInstance in = instance(seed);
     PlanningProblem p = in.problem();
     ArcCosts arcs = new ArcCosts(p);
-    PriorityScale scale = new PriorityScale(p);
-    Plan greedy = new GreedyPlanner(p).plan();
-    Plan moved = new ExposureMoves(p, arcs, scale).improve(greedy, Long.MAX_VALUE, Long.MAX_VALUE);
-    assertTrue(moved.modelFeasible(p, arcs), "seed " + seed);
-    assertTrue(moved.scaledPriority(p, scale) >= greedy.scaledPriority(p, scale), "seed " + seed);
+    Plan greedy = new GreedyPlanner(p, new ExactTimer(p)).plan();
+    Plan moved = new ExposureMoves(p, arcs).improve(greedy, Long.MAX_VALUE, Long.MAX_VALUE);
+    assertTrue(arcs.feasible(moved), "seed " + seed);
+    assertTrue(moved.prize(p) >= greedy.prize(p), "seed " + seed);
     // Exhaustive enumeration over every ordered subset and exposure: no plan can beat it.
     assertTrue(moved.priority(p) <= bruteForceAny(in, new boolean[p.size()], -1, 0, 0.0) + 1e-9, "seed " + seed);
   }
@@ -180,8 +184,7 @@ class ExposureAllocatorTest {
     TinyInstance in = instance(seed);
     PlanningProblem p = in.problem();
     ArcCosts arcs = new ArcCosts(p);
-    PriorityScale scale = new PriorityScale(p);
-    ExposureAllocator allocator = new ExposureAllocator(p, arcs, scale);
+    ExposureAllocator allocator = new ExposureAllocator(p, arcs);
     int[] order = randomOrder(new Random(seed), p.size());
     Front[] forward = allocator.forward(order);
     Front[] backward = allocator.backward(order);
@@ -190,7 +193,7 @@ class ExposureAllocatorTest {
     }
     Front before = forward[0];
     Front after = backward[1];
-    Front profile = new ExposureMoves(p, arcs, scale).slackProfile(before, after);
+    Front profile = new ExposureMoves(p, arcs).slackProfile(before, after);
     for (long room = 0; room <= HORIZON_S; room += 7) {
       // Exhaustive enumeration over all (prefix, suffix) pairs that leave at least this room.
       long expected = ExposureAllocator.INFEASIBLE;
@@ -213,7 +216,7 @@ class ExposureAllocatorTest {
         List.of(new long[][] {{0, 400}}, new long[][] {{0, 250}}), new double[][] {{0, 10}, {10, 0}},
         new double[] {0, 0});
     PlanningProblem p = in.problem();
-    assertNull(new ExposureAllocator(p, new ArcCosts(p), new PriorityScale(p)).allocate(new int[] {0, 1}));
+    assertNull(new ExposureAllocator(p, new ArcCosts(p)).allocate(new int[] {0, 1}));
   }
 
   @Test
@@ -225,9 +228,9 @@ class ExposureAllocatorTest {
         List.of(new long[][] {{0, 450}}, new long[][] {{0, 450}}), new double[][] {{0, 20}, {20, 0}},
         new double[] {0, 0});
     PlanningProblem p = in.problem();
-    Plan plan = new ExposureAllocator(p, new ArcCosts(p), new PriorityScale(p)).allocate(new int[] {0, 1});
-    assertEquals(240, plan.durationS(p, 0));
-    assertEquals(180, plan.durationS(p, 1));
+    Plan plan = new ExposureAllocator(p, new ArcCosts(p)).allocate(new int[] {0, 1});
+    assertEquals(240, plan.durationS()[0]);
+    assertEquals(180, plan.durationS()[1]);
     assertEquals(2.5 + 1.2, plan.priority(p), 1e-9);
   }
 
@@ -241,9 +244,9 @@ class ExposureAllocatorTest {
         new double[] {0, 0});
     PlanningProblem p = in.problem();
     ArcCosts arcs = new ArcCosts(p);
-    Plan start = new ExposureAllocator(p, arcs, new PriorityScale(p)).allocate(new int[] {0});
+    Plan start = new ExposureAllocator(p, arcs).allocate(new int[] {0});
     assertEquals(2.5, start.priority(p), 1e-9);
-    Plan moved = new ExposureMoves(p, arcs, new PriorityScale(p)).improve(start, Long.MAX_VALUE, Long.MAX_VALUE);
+    Plan moved = new ExposureMoves(p, arcs).improve(start, Long.MAX_VALUE, Long.MAX_VALUE);
     assertEquals(5.0, moved.priority(p), 1e-9);
     assertEquals(2, moved.size());
   }

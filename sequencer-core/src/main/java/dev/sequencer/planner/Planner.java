@@ -1,0 +1,152 @@
+package dev.sequencer.planner;
+
+import dev.sequencer.astro.AstroContext;
+import dev.sequencer.io.Problem;
+import dev.sequencer.io.ScenarioException;
+import dev.sequencer.model.RequestWindows;
+import dev.sequencer.model.Scenario;
+import dev.sequencer.model.SlewSettings;
+import dev.sequencer.model.Timeline;
+import dev.sequencer.sequence.Budget;
+import dev.sequencer.sequence.ResultCheck;
+import dev.sequencer.sequence.Sequencer;
+import dev.sequencer.sequence.SequencerOptions;
+import dev.sequencer.sequence.SequencerResult;
+import dev.sequencer.sequence.cpsat.NativeSolver;
+import dev.sequencer.sequence.problem.PlanningProblem;
+import dev.sequencer.sequence.replan.ReplanOptions;
+import dev.sequencer.sequence.replan.ReplanResult;
+import dev.sequencer.sequence.replan.Replanner;
+import dev.sequencer.slew.SlewModel;
+import dev.sequencer.slew.Transitions;
+import dev.sequencer.validate.PhysicsOracle;
+import dev.sequencer.validate.PlanValidator;
+import dev.sequencer.visibility.PointingTracks;
+import dev.sequencer.visibility.RequestVisibility;
+import dev.sequencer.visibility.VisibilityCalculator;
+import java.time.Instant;
+import java.util.Collections;
+import java.util.LinkedHashMap;
+import java.util.List;
+import java.util.Map;
+import java.util.Set;
+
+/**
+ * Plans a scenario end to end: the input rules ({@link InputRules}), visibility windows, slew transitions,
+ * the sequencer, and the one independent check of the plan (the validator with the physics re-check,
+ * {@link PhysicsOracle}). The time limit of the options is the wall clock of the whole call: windows and
+ * transitions count, and the sequencer gets what they leave. Stateless.
+ *
+ * <pre>{@code
+ * PlanOutcome o = Planner.plan(scenario, AstroContext.offline(), SequencerOptions.from(scenario.solverOrDefaults()));
+ * TimelineFile.write(o.timeline(), Path.of("timeline.json"));
+ * }</pre>
+ */
+public final class Planner {
+  private Planner() {}
+
+  /**
+   * Starts loading OR-Tools' native library in the background, so that its second or so overlaps the
+   * visibility windows instead of adding to the run (the sequencer waits for it, or sees its failure).
+   */
+  private static void preloadSolver() {
+    Thread t = new Thread(() -> {
+      try {
+        NativeSolver.ensureLoaded();
+      } catch (RuntimeException e) {
+        // reported by the sequencer's own call, with the same message
+      }
+    }, "sequencer-native-load");
+    t.setDaemon(true);
+    t.start();
+  }
+
+  /** Windows and transitions of {@code s}; bad input (a slew model the observer cannot drive) as a {@link ScenarioException}. */
+  public static Geometry geometry(Scenario s, AstroContext ctx) {
+    long t0 = System.nanoTime();
+    List<RequestVisibility> visibility = new VisibilityCalculator(ctx).compute(s);
+    List<RequestWindows> windows = visibility.stream().map(RequestVisibility::toWindows).toList();
+    long t1 = System.nanoTime();
+    Transitions transitions;
+    try {
+      // The fixed and matrix models use only the number of requests: no pointing tracks needed.
+      boolean tracksNeeded = s.observer() != null
+          && !(s.slew() instanceof SlewSettings.Fixed) && !(s.slew() instanceof SlewSettings.Matrix);
+      transitions = !tracksNeeded
+          ? SlewModel.of(s.slew()).transitions(Collections.nCopies(s.requests().size(), null), null)
+          : SlewModel.of(s.slew()).transitions(PointingTracks.of(s, ctx), PointingTracks.start(s, ctx));
+    } catch (UnsupportedOperationException e) {
+      throw new ScenarioException("scenario", List.of(new Problem("slew.model", e.getMessage(), null)));
+    }
+    long t2 = System.nanoTime();
+    return new Geometry(s, visibility, windows, transitions, (t1 - t0) * 1e-9, (t2 - t1) * 1e-9);
+  }
+
+  /** The full validator of {@code g}: windows, overlaps, exact transitions, totals and the physics re-check. */
+  public static PlanValidator validator(Geometry g, AstroContext ctx) {
+    return PlanValidator.of(g.scenario(), g.windows(), g.transitions())
+        .withOracle(new PhysicsOracle(g.scenario(), ctx));
+  }
+
+  /**
+   * Plans {@code s}: every phase counts towards {@code options.timeLimitS()} from this call on (in
+   * reproducible mode the sequencer's work limits apply instead). A returned plan has passed the full
+   * validator once; a plan that fails it is a bug and raises {@link IllegalStateException}.
+   */
+  public static PlanOutcome plan(Scenario s, AstroContext ctx, SequencerOptions options) {
+    Budget clock = Budget.startingNow(options.timeLimitS());
+    InputRules.check(s, "scenario");
+    preloadSolver();
+    Geometry g = geometry(s, ctx);
+    InputRules.checkTransitions(s, g.transitions(), "scenario");
+    PlanningProblem problem = PlanningProblem.of(s, g.windows(), g.transitions());
+    PlanValidator validator = validator(g, ctx);
+    SequencerResult result = new Sequencer().plan(problem, options.withClock(clock).withValidator(check(validator)));
+    Map<String, Double> phases = new LinkedHashMap<>();
+    phases.put("windows", g.windowsS());
+    phases.put("transitions", g.transitionsS());
+    result.stats().phaseS().forEach((k, v) -> phases.merge(k, v, Double::sum));
+    return new PlanOutcome(g, result, result.toTimeline(), phases, clock.elapsedS());
+  }
+
+  /**
+   * The façade's one check: the full validator, with its expected cost (the physics re-check samples each
+   * observation every {@link PhysicsOracle#STEP_S} seconds, about {@link #CHECK_SAMPLE_S} each).
+   */
+  static ResultCheck check(PlanValidator validator) {
+    return new ResultCheck() {
+      @Override
+      public List<String> violations(SequencerResult r) {
+        return validator.violations(r.toTimeline());
+      }
+
+      @Override
+      public double expectedS(long observedS) {
+        return 0.05 + observedS / PhysicsOracle.STEP_S * CHECK_SAMPLE_S;
+      }
+    };
+  }
+
+  /**
+   * Seconds per sample of the physics re-check, a deliberately high figure: about 4 times what one
+   * sample took on this project's 2-core machine under load (60 µs idle; see docs/benchmarks.md).
+   */
+  static final double CHECK_SAMPLE_S = 1e-4;
+
+  /**
+   * Re-plans the rest of a night (see {@link Replanner}) under the same budget rule as {@link #plan};
+   * bad re-planning input (ids, instants) as a {@link ScenarioException}.
+   */
+  public static ReplanOutcome replan(Scenario s, AstroContext ctx, Timeline previous, Instant now, Set<String> done,
+      Set<String> failed, ReplanOptions options) {
+    Budget clock = Budget.startingNow(options.sequencer().timeLimitS());
+    InputRules.check(s, "scenario");
+    preloadSolver();
+    Geometry g = geometry(s, ctx);
+    InputRules.checkTransitions(s, g.transitions(), "scenario");
+    PlanningProblem problem = PlanningProblem.of(s, g.windows(), g.transitions());
+    ReplanOptions o = options.withSequencer(options.sequencer().withClock(clock)).withValidator(validator(g, ctx));
+    ReplanResult r = new Replanner().replan(problem, previous, now, done, failed, o);
+    return new ReplanOutcome(g, r, clock.elapsedS());
+  }
+}

@@ -1,0 +1,292 @@
+package dev.sequencer.sequence.problem;
+
+import dev.sequencer.model.FlexibleExposure;
+import dev.sequencer.model.Request;
+import dev.sequencer.model.RequestWindows;
+import dev.sequencer.model.Scenario;
+import dev.sequencer.model.TimeWindow;
+import dev.sequencer.slew.Transitions;
+import java.time.Duration;
+import java.time.Instant;
+import java.util.ArrayList;
+import java.util.HashMap;
+import java.util.List;
+import java.util.Map;
+import java.util.Objects;
+
+/**
+ * The planner's input in whole seconds from the horizon start: the tasks (one per request, in scenario
+ * order = transition index), the transition times, the prizes the objective collects, and the requests
+ * and windows as given (for the validator and the timeline).
+ *
+ * <p>Spans are the visibility windows rounded inward (start up, end down), so any observation inside one
+ * lies inside a visibility window. Immutable.
+ */
+public final class PlanningProblem {
+  private final Instant horizonStart;
+  private final long horizonS;
+  private final List<Task> tasks;
+  private final Transitions transitions;
+  private final int lastIndex;
+  private final TimeWindow horizon;
+  private final List<Request> requests;
+  private final List<RequestWindows> windows;
+  private final Prizes prizes;
+
+  private PlanningProblem(Instant horizonStart, long horizonS, List<Task> tasks, Transitions transitions, int lastIndex,
+      TimeWindow horizon, List<Request> requests, List<RequestWindows> windows, Prizes prizes) {
+    this.horizonStart = Objects.requireNonNull(horizonStart, "horizonStart");
+    this.horizon = horizon;
+    this.requests = List.copyOf(requests);
+    this.windows = List.copyOf(windows);
+    this.horizonS = horizonS;
+    this.tasks = List.copyOf(tasks);
+    this.transitions = Objects.requireNonNull(transitions, "transitions");
+    this.lastIndex = lastIndex;
+    if (transitions.size() != tasks.size()) {
+      throw new IllegalArgumentException(
+          "transitions: " + transitions.size() + " requests, but the problem has " + tasks.size());
+    }
+    Map<String, Integer> seen = new HashMap<>();
+    for (int k = 0; k < this.tasks.size(); k++) {
+      Integer prev = seen.put(this.tasks.get(k).id(), k);
+      if (prev != null) {
+        throw new IllegalArgumentException("requests[" + k + "]: id \"" + this.tasks.get(k).id()
+            + "\" already used by requests[" + prev + "]");
+      }
+    }
+    this.prizes = prizes != null ? prizes : Prizes.of(this.tasks);
+  }
+
+  /** Builds the problem from the scenario's requests, their visibility windows (any order, by id) and transitions. */
+  public static PlanningProblem of(Scenario scenario, List<RequestWindows> windows, Transitions transitions) {
+    return of(scenario.horizon(), scenario.requests(), windows, transitions);
+  }
+
+  /**
+   * Builds the problem from requests and visibility windows (already intersected with each request's own
+   * windows). A request without a {@link RequestWindows} entry is never visible. Durations must be whole
+   * seconds; flexible requests (whole-second minimum and step) get their exposure grid.
+   */
+  public static PlanningProblem of(
+      TimeWindow horizon, List<Request> requests, List<RequestWindows> windows, Transitions transitions) {
+    Map<String, RequestWindows> byId = new HashMap<>();
+    for (RequestWindows w : windows) {
+      byId.put(w.id(), w);
+    }
+    Instant t0 = horizon.start();
+    long horizonS = (long) Math.floor(horizon.durationS());
+    List<Task> tasks = new ArrayList<>();
+    for (int k = 0; k < requests.size(); k++) {
+      Request r = requests.get(k);
+      String where = "requests[" + k + "] (id \"" + r.id() + "\")";
+      RequestWindows rw = byId.get(r.id());
+      List<TimeWindow> intervals = rw == null ? List.of() : rw.intervals();
+      List<Span> spans = spans(t0, horizonS, intervals);
+      if (r.isFlexible()) {
+        tasks.add(flexibleTask(r, where, spans));
+        continue;
+      }
+      long dur = whole(r.durationS(), where + ".durationS");
+      tasks.add(Task.fixedInSpans(r.id(), dur, r.priority(), r.required(), spans));
+    }
+    return new PlanningProblem(t0, horizonS, tasks, transitions, -1, horizon, requests, windows, null);
+  }
+
+  /**
+   * The task of a flexible request: option g = minDurationS + g·durationStepS up to the largest grid point
+   * ≤ maxDurationS that also fits in the longest span (so every option can occur), valued by the curve's
+   * linear interpolation.
+   */
+  private static Task flexibleTask(Request r, String where, List<Span> spans) {
+    FlexibleExposure f = r.flexible();
+    long min = whole(f.minDurationS(), where + ".minDurationS");
+    long step = whole(f.durationStepS(), where + ".durationStepS");
+    if (step <= 0) {
+      throw new IllegalArgumentException(where + ".durationStepS: must be > 0, got " + f.durationStepS());
+    }
+    if (f.maxDurationS() < f.minDurationS()) {
+      throw new IllegalArgumentException(where + ".maxDurationS: must be >= minDurationS " + f.minDurationS()
+          + ", got " + f.maxDurationS());
+    }
+    long longest = -1;
+    for (Span s : spans) {
+      longest = Math.max(longest, s.toS() - s.fromS());
+    }
+    long top = (long) Math.floor(f.maxDurationS() + 1e-9);
+    if (longest >= min) {
+      top = Math.min(top, longest);
+    }
+    int count = (int) Math.max(1, (top - min) / step + 1);
+    double[] values = new double[count];
+    for (int g = 0; g < count; g++) {
+      values[g] = f.valueAt(min + g * step);
+    }
+    try {
+      return Task.flexible(r.id(), min, step, values, r.required(), spans);
+    } catch (IllegalArgumentException e) {
+      throw new IllegalArgumentException(where + ": " + e.getMessage(), e);
+    }
+  }
+
+  /** Windows as whole-second spans from the horizon start, clipped to [0, horizonS], rounded inward. */
+  private static List<Span> spans(Instant t0, long horizonS, List<TimeWindow> windows) {
+    List<Span> out = new ArrayList<>();
+    for (TimeWindow w : windows) {
+      long from = Math.max(0, ceilSeconds(t0, w.start()));
+      long to = Math.min(horizonS, floorSeconds(t0, w.end()));
+      if (from <= to) {
+        out.add(new Span(from, to));
+      }
+    }
+    return out;
+  }
+
+  private static long whole(Double v, String path) {
+    if (v == null || v < 0 || v != Math.rint(v)) {
+      throw new IllegalArgumentException(path + ": must be a whole number of seconds >= 0, got " + v);
+    }
+    return v.longValue();
+  }
+
+  /** Builds a problem directly from tasks (tests, benchmarks); {@code horizonS} is the horizon length. */
+  public static PlanningProblem ofTasks(Instant horizonStart, long horizonS, List<Task> tasks, Transitions transitions) {
+    List<Request> requests = new ArrayList<>();
+    List<RequestWindows> windows = new ArrayList<>();
+    for (Task t : tasks) {
+      requests.add(t.flexible() ? null : new Request(t.id(), null, (double) t.durationS(), t.priority(), t.required(),
+          List.of(), null));
+      List<TimeWindow> w = new ArrayList<>();
+      for (Span s : t.spans()) {
+        w.add(new TimeWindow(horizonStart.plusSeconds(s.fromS()), horizonStart.plusSeconds(s.toS())));
+      }
+      windows.add(new RequestWindows(t.id(), w));
+    }
+    if (requests.contains(null)) {
+      throw new IllegalArgumentException("ofTasks: flexible tasks need their requests; use of(...)");
+    }
+    return new PlanningProblem(horizonStart, horizonS, tasks, transitions, -1,
+        new TimeWindow(horizonStart, horizonStart.plusSeconds(horizonS)), requests, windows, null);
+  }
+
+  /**
+   * A copy in which request {@code id}, when scheduled, must be the last observation (used for a
+   * return-to-base request).
+   */
+  public PlanningProblem withMustBeLast(String id) {
+    return new PlanningProblem(horizonStart, horizonS, tasks, transitions, indexOf(id), horizon, requests, windows,
+        prizes);
+  }
+
+  /** A copy whose objective collects {@code newPrizes} (re-planning adds stability bonuses). */
+  public PlanningProblem withPrizes(Prizes newPrizes) {
+    if (newPrizes.size() != tasks.size()) {
+      throw new IllegalArgumentException("prizes: " + newPrizes.size() + " tasks, but the problem has " + tasks.size());
+    }
+    return new PlanningProblem(horizonStart, horizonS, tasks, transitions, lastIndex, horizon, requests, windows,
+        newPrizes);
+  }
+
+  /** A copy with these tasks (same ids, same order) and everything else as is. */
+  public PlanningProblem withTasks(List<Task> newTasks) {
+    for (int k = 0; k < tasks.size(); k++) {
+      if (!tasks.get(k).id().equals(newTasks.get(k).id())) {
+        throw new IllegalArgumentException("withTasks: task " + k + " is " + newTasks.get(k).id() + ", was "
+            + tasks.get(k).id());
+      }
+    }
+    return new PlanningProblem(horizonStart, horizonS, newTasks, transitions, lastIndex, horizon, requests, windows,
+        null);
+  }
+
+  /** Index of the request with this id; throws when unknown. */
+  public int indexOf(String id) {
+    for (int k = 0; k < tasks.size(); k++) {
+      if (tasks.get(k).id().equals(id)) {
+        return k;
+      }
+    }
+    throw new IllegalArgumentException("unknown request id \"" + id + "\"");
+  }
+
+  /** True when some request has a flexible exposure. */
+  public boolean hasFlexible() {
+    return tasks.stream().anyMatch(t -> t.optionCount() > 1);
+  }
+
+  /** Whole seconds from t0 to t, rounded up. */
+  public static long ceilSeconds(Instant t0, Instant t) {
+    Duration d = Duration.between(t0, t);
+    return d.getNano() == 0 ? d.getSeconds() : d.getSeconds() + 1;
+  }
+
+  /** Whole seconds from t0 to t, rounded down. */
+  public static long floorSeconds(Instant t0, Instant t) {
+    return Duration.between(t0, t).getSeconds();
+  }
+
+  /** Horizon start (time 0). */
+  public Instant horizonStart() {
+    return horizonStart;
+  }
+
+  /** The horizon as given. */
+  public TimeWindow horizon() {
+    return horizon;
+  }
+
+  /** The requests as given (scenario order). */
+  public List<Request> requests() {
+    return requests;
+  }
+
+  /** The visibility windows as given. */
+  public List<RequestWindows> windows() {
+    return windows;
+  }
+
+  /** Horizon length, whole seconds. */
+  public long horizonS() {
+    return horizonS;
+  }
+
+  /** The tasks in scenario order (= transition indices). */
+  public List<Task> tasks() {
+    return tasks;
+  }
+
+  /** Task k. */
+  public Task task(int k) {
+    return tasks.get(k);
+  }
+
+  /** Number of requests. */
+  public int size() {
+    return tasks.size();
+  }
+
+  /** Transition times between requests. */
+  public Transitions transitions() {
+    return transitions;
+  }
+
+  /** What the objective collects. */
+  public Prizes prizes() {
+    return prizes;
+  }
+
+  /** Index of the request that must be last when scheduled, or -1. */
+  public int mustBeLastIndex() {
+    return lastIndex;
+  }
+
+  /** The instant {@code s} seconds after the horizon start. */
+  public Instant instant(long s) {
+    return horizonStart.plusSeconds(s);
+  }
+
+  /** Sum of the largest value of every schedulable request: always a valid bound on total priority. */
+  public double trivialBound() {
+    return tasks.stream().filter(Task::schedulable).mapToDouble(Task::priority).sum();
+  }
+}

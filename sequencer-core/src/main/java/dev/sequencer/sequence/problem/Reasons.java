@@ -1,0 +1,21 @@
+package dev.sequencer.sequence.problem;
+
+/** The reasons the planner gives for an unscheduled request (the timeline's {@code unscheduled[].reason}). */
+public final class Reasons {
+  /** A request without any visibility window. */
+  public static final String NEVER_VISIBLE = "never visible";
+  /** A request whose windows are all too short (after inward rounding to whole seconds). */
+  public static final String WINDOWS_TOO_SHORT = "windows shorter than its duration";
+  /** Prefix of the reason of a schedulable request the plan leaves out; the rest names what took its time. */
+  public static final String LOST_TO_CONFLICTS = "lost to conflicts";
+  /** A schedulable request exact repair did not get to before the time limit. */
+  public static final String NOT_RECHECKED = "not scheduled: the time limit ended before it was re-checked with the exact slews";
+  /** A request that fits the plan but would add nothing to its score (a value of 0 there). */
+  public static final String NO_GAIN = "not scheduled: observing it would collect no more priority";
+  /** A request left out because the planning run had no plan to put it in. */
+  public static final String NO_PLAN = "not planned: no plan holds every required request";
+  /** Requests of an infeasible run. */
+  public static final String INFEASIBLE = "not planned: the required requests are infeasible";
+
+  private Reasons() {}
+}

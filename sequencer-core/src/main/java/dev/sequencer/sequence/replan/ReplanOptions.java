@@ -1,0 +1,63 @@
+package dev.sequencer.sequence.replan;
+
+import dev.sequencer.sequence.SequencerOptions;
+import dev.sequencer.validate.PlanValidator;
+import java.util.Objects;
+
+/**
+ * How {@link Replanner} re-plans. Immutable; change by copy: {@code ReplanOptions.defaults().withDropFailed(true)}.
+ *
+ * <p>{@code sequencer}: the solver settings of the re-plan. {@code dropFailed}: failed requests are not
+ * retried (required ones always are). {@code stabilityWeight}: {@code NaN} (the default) ranks plans
+ * lexicographically — priority first, then the stability score (kept previous requests + kept previous
+ * successor arcs), then total slew; a number w >= 0 ranks them by priority + w x stability score, then
+ * slew (0 switches stability off). {@code warmStart}: offer the rest of the previous plan to the
+ * sequencer as warm start (it is always kept as a fallback). {@code validator}: the check of the whole
+ * night, done and running observations included ({@code null}: one built from the scenario's own windows
+ * and transitions); the re-plan applies its re-planning instant.
+ */
+public record ReplanOptions(SequencerOptions sequencer, boolean dropFailed, double stabilityWeight, boolean warmStart,
+    PlanValidator validator) {
+  public ReplanOptions {
+    Objects.requireNonNull(sequencer, "sequencer");
+    if (!Double.isNaN(stabilityWeight) && !(stabilityWeight >= 0 && stabilityWeight < Double.POSITIVE_INFINITY)) {
+      throw new IllegalArgumentException("stabilityWeight: must be a finite number >= 0, got " + stabilityWeight);
+    }
+  }
+
+  /** Sequencer defaults, failed requests retried, lexicographic stability, warm start on. */
+  public static ReplanOptions defaults() {
+    return new ReplanOptions(SequencerOptions.defaults(), false, Double.NaN, true, null);
+  }
+
+  public ReplanOptions withSequencer(SequencerOptions v) {
+    return new ReplanOptions(v, dropFailed, stabilityWeight, warmStart, validator);
+  }
+
+  public ReplanOptions withDropFailed(boolean v) {
+    return new ReplanOptions(sequencer, v, stabilityWeight, warmStart, validator);
+  }
+
+  /** Priority units per unit of stability score; 0 switches stability off. */
+  public ReplanOptions withStabilityWeight(double v) {
+    return new ReplanOptions(sequencer, dropFailed, v, warmStart, validator);
+  }
+
+  /** Back to the default lexicographic order: priority, then stability, then slew. */
+  public ReplanOptions withLexicographicStability() {
+    return new ReplanOptions(sequencer, dropFailed, Double.NaN, warmStart, validator);
+  }
+
+  public ReplanOptions withWarmStart(boolean v) {
+    return new ReplanOptions(sequencer, dropFailed, stabilityWeight, v, validator);
+  }
+
+  public ReplanOptions withValidator(PlanValidator v) {
+    return new ReplanOptions(sequencer, dropFailed, stabilityWeight, warmStart, v);
+  }
+
+  /** True in the default lexicographic mode. */
+  public boolean lexicographic() {
+    return Double.isNaN(stabilityWeight);
+  }
+}

@@ -1,0 +1,476 @@
+package dev.sequencer.sequence.replan;
+
+import dev.sequencer.io.Problem;
+import dev.sequencer.io.ScenarioException;
+import dev.sequencer.model.Observation;
+import dev.sequencer.model.PlanStatus;
+import dev.sequencer.model.Request;
+import dev.sequencer.model.RequestWindows;
+import dev.sequencer.model.TimeWindow;
+import dev.sequencer.model.Timeline;
+import dev.sequencer.model.Unscheduled;
+import dev.sequencer.sequence.ProgressListener;
+import dev.sequencer.sequence.Seeds;
+import dev.sequencer.sequence.Sequencer;
+import dev.sequencer.sequence.SequencerOptions;
+import dev.sequencer.sequence.SequencerResult;
+import dev.sequencer.sequence.problem.Plan;
+import dev.sequencer.sequence.problem.PlanningProblem;
+import dev.sequencer.sequence.problem.Prizes;
+import dev.sequencer.sequence.problem.Reasons;
+import dev.sequencer.sequence.problem.Task;
+import dev.sequencer.slew.Transitions;
+import dev.sequencer.validate.PlanValidator;
+import java.time.Duration;
+import java.time.Instant;
+import java.util.ArrayList;
+import java.util.HashMap;
+import java.util.HashSet;
+import java.util.List;
+import java.util.Map;
+import java.util.Objects;
+import java.util.Set;
+
+/**
+ * Re-plans the rest of a night from "now" (the scenario format's re-planning extension): done and
+ * running observations are kept, nothing new starts before now, and the new plan departs from the end
+ * pointing of the running (or last done) observation, no earlier than its end and now.
+ *
+ * <p>Previous observations are classified in time order: listed as failed → failed (re-planned like any
+ * other request unless {@code dropFailed}; required requests are always retried); listed as done, ended
+ * by now, or already marked done → done; started before now → running; the rest (not started) is the
+ * previous plan's <em>tail</em>. Requests of the scenario that the previous timeline does not plan (new
+ * ones, earlier losers) are candidates too.
+ *
+ * <p>The remaining requests form a {@link PlanningProblem} whose horizon starts at the departure
+ * (rounded up to a whole second) and whose transitions ({@link DepartureTransitions}) start from the
+ * frozen observation. The requests are the scenario's own (a flexible request keeps its curve); the
+ * stability of the plan enters through the objective ({@link Prizes#withBonuses}): in the default
+ * lexicographic mode each scaled value is multiplied by M = (tail requests + tail successor pairs + 1)
+ * and each kept tail request and kept successor pair (the pair from the frozen observation to the first
+ * tail request included) earns 1, so priority comes first, then stability, then slew; with a weight w,
+ * the bonus is w priority units per kept request or pair. The tail is the sequencer's warm start (or,
+ * without warm start, its fallback), so the new plan is never worse than the rest of the previous plan by
+ * that order. The merged night passes the validator, with the re-planning instant, once. Bad re-planning
+ * input (an unknown id, an instant after the horizon) is a {@link ScenarioException} of source
+ * {@link #INPUT}. Stateless.
+ */
+public final class Replanner {
+  /** Reason for a failed request that is not retried. */
+  public static final String FAILED_DROPPED = "failed; not retried (drop-failed)";
+  /** Reason for a request whose windows all close before the re-planned part begins. */
+  public static final String NO_TIME_LEFT = "no visibility window left after the re-planning instant";
+  /** The objective must stay far below CP-SAT's exact range (2^53) even with the stability multiplier. */
+  static final double MAX_OBJECTIVE = 1e15;
+
+  /** Source name of the re-planning input in a {@link ScenarioException}: its problems name "previous", "now", "done" or "failed". */
+  public static final String INPUT = "re-planning input";
+
+  private static ScenarioException badInput(String field, String message) {
+    return new ScenarioException(INPUT, List.of(new Problem(field, message, null)));
+  }
+
+  /**
+   * Re-plans {@code full} (the whole scenario) after {@code previous} at {@code now}; {@code done} and
+   * {@code failed} are ids of previous observations.
+   */
+  public ReplanResult replan(PlanningProblem full, Timeline previous, Instant now, Set<String> done,
+      Set<String> failed, ReplanOptions options) {
+    return new ReplanRun(full, previous, Objects.requireNonNull(now, "now"), Set.copyOf(done), Set.copyOf(failed),
+        options).execute();
+  }
+
+  /** The state of one re-plan. */
+  private static final class ReplanRun {
+    private final PlanningProblem full;
+    private final Timeline previous;
+    private final Instant now;
+    private final Set<String> done;
+    private final Set<String> failed;
+    private final ReplanOptions options;
+    private final PlanValidator validator;
+    private final Map<String, Integer> index = new HashMap<>();
+    private final List<Observation> frozen = new ArrayList<>();
+    private final List<Observation> tail = new ArrayList<>();
+    private final StringBuilder notes = new StringBuilder();
+    private PlanningProblem sub;
+    private int[] subToFull;
+    private int[] fullToSub;
+    private long offsetS;
+
+    ReplanRun(PlanningProblem full, Timeline previous, Instant now, Set<String> done, Set<String> failed,
+        ReplanOptions options) {
+      this.full = full;
+      this.previous = previous;
+      this.now = now;
+      this.done = done;
+      this.failed = failed;
+      this.options = options;
+      PlanValidator v = options.validator() != null ? options.validator()
+          : new PlanValidator(full.horizon(), full.requests(), full.windows(), full.transitions());
+      this.validator = v.withNow(now);
+      for (int k = 0; k < full.size(); k++) {
+        index.put(full.task(k).id(), k);
+      }
+    }
+
+    ReplanResult execute() {
+      if (now.isAfter(full.horizon().end())) {
+        throw badInput("now", "must not be after the horizon end " + full.horizon().end() + " (was " + now + ")");
+      }
+      classify();
+      checkFrozen();
+      Instant departure = departure();
+      buildSubProblem(departure);
+      double tailPriority = 0;
+      for (Observation o : tail) {
+        tailPriority += o.value() != null ? o.value() : full.task(index.get(o.id())).priority();
+      }
+      double frozenPriority = priorityOf(frozen);
+      boolean anything = sub.tasks().stream().anyMatch(t -> t.schedulable() || t.required());
+      if (!anything) {
+        Timeline t = merged(List.of(), PlanStatus.OPTIMAL, frozenPriority);
+        check(t);
+        return new ReplanResult(t, ReplanResult.Source.SOLVER, 0, tailPriority, 0, tail.size(), 0, 0, departure, "",
+            notes.toString().trim());
+      }
+      Plan tailPlan = tailPlan();
+      Seeds seeds = options.warmStart() ? new Seeds(List.of(tailPlan), List.of())
+          : new Seeds(List.of(), List.of(tailPlan));
+      SequencerOptions so = options.sequencer().withValidator(r -> violations(r, frozenPriority));
+      ProgressListener l = so.listener();
+      if (l != null) {
+        // Progress speaks of the whole night, as the summary does.
+        so = so.withListener((n, p, slew, bound, elapsed) -> l.onProgress(n, frozenPriority + p, slew,
+            Double.isNaN(bound) ? bound : frozenPriority + bound, elapsed));
+      }
+      SequencerResult r = new Sequencer().plan(sub, so, seeds);
+      String sequencerNotes = r.stats().notesText();
+      if (!r.hasPlan()) {
+        String message = r.message().isEmpty() ? "no plan" : r.message();
+        Timeline none = new Timeline(r.status(), frozenPriority, slewOf(frozen), null, frozen,
+            unscheduled(Set.of(), "not planned: " + message, List.of()));
+        return new ReplanResult(none, ReplanResult.Source.NONE, 0, tailPriority, Double.NaN, tail.size(), 0, 0,
+            departure, message, (notes + sequencerNotes).trim());
+      }
+      Timeline timeline = mergedFrom(r, frozenPriority);
+      ReplanResult.Source source = "PREFERRED".equals(r.stats().source()) || "FALLBACK".equals(r.stats().source())
+          ? ReplanResult.Source.PREVIOUS_TAIL : ReplanResult.Source.SOLVER;
+      if (source == ReplanResult.Source.PREVIOUS_TAIL) {
+        notes.append("the rest of the previous plan ranks at least as high as every plan the search found and is "
+            + "kept. ");
+      }
+      List<Observation> planned = timeline.observations().subList(frozen.size(), timeline.observations().size());
+      int keptRequests = (int) planned.stream().filter(o -> tailIds().contains(o.id())).count();
+      Set<String> tailArcs = successorArcs(tail);
+      int keptArcs = (int) successorArcs(planned).stream().filter(tailArcs::contains).count();
+      return new ReplanResult(timeline, source, r.totalPriority(), tailPriority, r.stats().ownPriority(), tail.size(),
+          keptRequests, keptArcs, departure, "", (notes + sequencerNotes).trim());
+    }
+
+    /** The one check of the new plan: merged with the frozen observations, the whole night validated at now. */
+    private List<String> violations(SequencerResult r, double frozenPriority) {
+      return validator.violations(mergedFrom(r, frozenPriority));
+    }
+
+    private void check(Timeline t) {
+      List<String> v = validator.violations(t);
+      if (!v.isEmpty()) {
+        throw new IllegalStateException("the re-plan failed its re-check (a bug): " + v);
+      }
+    }
+
+    /** Splits the previous observations into frozen (done, running), failed and the tail; checks the ids. */
+    private void classify() {
+      for (String id : done) {
+        if (failed.contains(id)) {
+          throw badInput("done", "id \"" + id + "\" is also listed as failed");
+        }
+      }
+      Set<String> planned = new HashSet<>();
+      List<Observation> obs = previous.observations();
+      for (int k = 0; k < obs.size(); k++) {
+        Observation o = obs.get(k);
+        if (!index.containsKey(o.id())) {
+          throw badInput("previous", "observations[" + k + "]: id \"" + o.id() + "\" is not a request of the scenario");
+        }
+        planned.add(o.id());
+        boolean started = o.start().isBefore(now);
+        if (failed.contains(o.id()) || done.contains(o.id())) {
+          if (!started) {
+            String field = failed.contains(o.id()) ? "failed" : "done";
+            throw badInput(field, "observation \"" + o.id() + "\" starts at " + o.start() + ", not before now "
+                + now + ": it cannot be " + field + " yet");
+          }
+          if (done.contains(o.id())) {
+            frozen.add(withState(o, Observation.DONE));
+          }
+        } else if (!o.end().isAfter(now)) {
+          frozen.add(withState(o, Observation.DONE));
+        } else if (started) {
+          frozen.add(withState(o, Observation.DONE.equals(o.state()) ? Observation.DONE : Observation.RUNNING));
+        } else if (Observation.DONE.equals(o.state()) || Observation.RUNNING.equals(o.state())) {
+          throw badInput("previous", "observations[" + k + "] (id \"" + o.id() + "\") is " + o.state()
+              + " but starts at " + o.start() + ", after now " + now);
+        } else {
+          tail.add(o);
+        }
+      }
+      for (String id : done) {
+        if (!planned.contains(id)) {
+          throw badInput("done", "id \"" + id + "\" is not an observation of the previous timeline");
+        }
+      }
+      for (String id : failed) {
+        if (!planned.contains(id)) {
+          throw badInput("failed", "id \"" + id + "\" is not an observation of the previous timeline");
+        }
+      }
+    }
+
+    private static Observation withState(Observation o, String state) {
+      return new Observation(o.id(), o.start(), o.end(), o.slewSeconds(), o.value(), state);
+    }
+
+    /** The frozen observations must be valid against the scenario (required flags aside): else bad input. */
+    private void checkFrozen() {
+      Set<String> in = new HashSet<>();
+      frozen.forEach(o -> in.add(o.id()));
+      List<Unscheduled> rest = full.tasks().stream().filter(t -> !in.contains(t.id()))
+          .map(t -> new Unscheduled(t.id(), "-")).toList();
+      List<String> violations = validator.withRequiredIgnored().violations(
+          new Timeline(PlanStatus.FEASIBLE, priorityOf(frozen), slewOf(frozen), null, frozen, rest));
+      if (!violations.isEmpty()) {
+        throw badInput("previous", "the done and running observations are not valid for this scenario: "
+            + String.join("; ", violations));
+      }
+    }
+
+    /** Priority of observations: each flexible one's value, each fixed one's priority. */
+    private double priorityOf(List<Observation> obs) {
+      double p = 0;
+      for (Observation o : obs) {
+        Request r = full.requests().get(index.get(o.id()));
+        p += r.isFlexible() ? (o.value() == null ? 0 : o.value()) : r.priority();
+      }
+      return p;
+    }
+
+    private static double slewOf(List<Observation> obs) {
+      return obs.stream().mapToDouble(Observation::slewSeconds).sum();
+    }
+
+    /** Scenario seconds of an instant, with the fraction. */
+    private double fullSeconds(Instant t) {
+      Duration d = Duration.between(full.horizonStart(), t);
+      return d.getSeconds() + d.getNano() * 1e-9;
+    }
+
+    /** The later of now and the end of the last frozen observation (the horizon start at the earliest). */
+    private Instant departure() {
+      Instant d = now.isBefore(full.horizonStart()) ? full.horizonStart() : now;
+      if (!frozen.isEmpty() && frozen.get(frozen.size() - 1).end().isAfter(d)) {
+        d = frozen.get(frozen.size() - 1).end();
+      }
+      return d;
+    }
+
+    /** The remaining requests from the departure (rounded up to a whole second) to the horizon end. */
+    private void buildSubProblem(Instant departure) {
+      offsetS = Math.min(full.horizonS(), PlanningProblem.ceilSeconds(full.horizonStart(), departure));
+      Set<String> frozenIds = new HashSet<>();
+      frozen.forEach(o -> frozenIds.add(o.id()));
+      List<Integer> keep = new ArrayList<>();
+      for (int k = 0; k < full.size(); k++) {
+        Task t = full.task(k);
+        boolean dropped = options.dropFailed() && failed.contains(t.id()) && !t.required();
+        if (!frozenIds.contains(t.id()) && !dropped) {
+          keep.add(k);
+        }
+      }
+      subToFull = keep.stream().mapToInt(Integer::intValue).toArray();
+      fullToSub = new int[full.size()];
+      java.util.Arrays.fill(fullToSub, -1);
+      for (int q = 0; q < subToFull.length; q++) {
+        fullToSub[subToFull[q]] = q;
+      }
+      List<Request> requests = new ArrayList<>();
+      Set<String> ids = new HashSet<>();
+      for (int k : subToFull) {
+        requests.add(full.requests().get(k));
+        ids.add(full.requests().get(k).id());
+      }
+      List<RequestWindows> windows = full.windows().stream().filter(w -> ids.contains(w.id())).toList();
+      int[] fo = new int[frozen.size()];
+      double[] fd = new double[frozen.size()];
+      double[] fa = new double[frozen.size()];
+      for (int q = 0; q < frozen.size(); q++) {
+        fo[q] = index.get(frozen.get(q).id());
+        fd[q] = q == 0 ? 0.0 : fullSeconds(frozen.get(q - 1).end());
+        fa[q] = fullSeconds(frozen.get(q).start());
+      }
+      double fromEndS = frozen.isEmpty() ? 0.0 : fullSeconds(frozen.get(frozen.size() - 1).end());
+      DepartureTransitions tr = new DepartureTransitions(full.transitions(), subToFull, fo, fd, fa, fromEndS, offsetS);
+      TimeWindow h = new TimeWindow(full.horizonStart().plusSeconds(offsetS), full.horizon().end());
+      PlanningProblem p = PlanningProblem.of(h, requests, windows, tr);
+      int last = full.mustBeLastIndex();
+      p = last >= 0 && fullToSub[last] >= 0 ? p.withMustBeLast(full.task(last).id()) : p;
+      sub = p.withPrizes(stabilityPrizes(p));
+    }
+
+    /** The sub-problem's objective with the stability bonuses of the class comment (none when switched off or too large). */
+    private Prizes stabilityPrizes(PlanningProblem p) {
+      Prizes plain = p.prizes();
+      Set<String> tailIds = tailIds();
+      if (tail.isEmpty() || (!options.lexicographic() && options.stabilityWeight() == 0)) {
+        return plain;
+      }
+      List<long[]> arcs = new ArrayList<>();
+      // START of the sub-problem is the last frozen observation (or the start pointing): the pair from it to
+      // the first tail request counts too. A request no longer in the sub-problem breaks the chain.
+      int prev = Transitions.START;
+      boolean linked = true;
+      for (Observation o : tail) {
+        int k = fullToSub[index.get(o.id())];
+        if (k < 0) {
+          linked = false;
+          continue;
+        }
+        if (linked) {
+          arcs.add(new long[] {prev, k, 1});
+        }
+        prev = k;
+        linked = true;
+      }
+      long[] bonus = new long[p.size()];
+      for (int k = 0; k < p.size(); k++) {
+        bonus[k] = tailIds.contains(p.task(k).id()) ? 1 : 0;
+      }
+      long multiplier;
+      long unit;
+      if (options.lexicographic()) {
+        multiplier = tail.size() + arcs.size() + 1L;
+        unit = 1;
+      } else {
+        double wScaled = options.stabilityWeight() * plain.factor();
+        multiplier = Math.abs(wScaled - Math.rint(wScaled)) < 1e-9 ? 1 : 1000;
+        unit = Math.round(wScaled * multiplier);
+      }
+      double maxPrize = 0;
+      for (int k = 0; k < p.size(); k++) {
+        maxPrize = Math.max(maxPrize, plain.maxPrize(k));
+      }
+      if ((maxPrize * multiplier + unit) * Math.max(1, p.size()) * 2 > MAX_OBJECTIVE) {
+        notes.append("stability is not weighed in the objective here (priorities too large); the rest of the previous "
+            + "plan is still the warm start. ");
+        return plain;
+      }
+      for (int k = 0; k < bonus.length; k++) {
+        bonus[k] *= unit;
+      }
+      for (long[] a : arcs) {
+        a[2] = unit;
+      }
+      return plain.withBonuses(multiplier, bonus, arcs);
+    }
+
+    private Set<String> tailIds() {
+      Set<String> out = new HashSet<>();
+      tail.forEach(o -> out.add(o.id()));
+      return out;
+    }
+
+    /**
+     * The tail as a plan of the sub-problem: its requests in order at their previous starts and exposures
+     * (the incumbent times it exactly and leaves out what no longer fits).
+     */
+    private Plan tailPlan() {
+      List<long[]> rows = new ArrayList<>();
+      for (Observation o : tail) {
+        int k = fullToSub[index.get(o.id())];
+        if (k < 0 || !sub.task(k).schedulable()) {
+          continue;
+        }
+        Task t = sub.task(k);
+        long s = Math.max(0, PlanningProblem.ceilSeconds(sub.horizonStart(), o.start()));
+        long d = Math.round(o.durationS());
+        try {
+          t.option(d);
+        } catch (IllegalStateException e) {
+          d = t.durationS(); // an exposure the scenario no longer offers: the shortest one
+        }
+        rows.add(new long[] {k, s, d});
+      }
+      int[] order = rows.stream().mapToInt(r -> (int) r[0]).toArray();
+      long[] starts = rows.stream().mapToLong(r -> r[1]).toArray();
+      long[] durs = rows.stream().mapToLong(r -> r[2]).toArray();
+      return new Plan(order, starts, durs);
+    }
+
+    /** "A->B" for each consecutive pair, the frozen observation (or START) before the first included. */
+    private Set<String> successorArcs(List<Observation> seq) {
+      Set<String> out = new HashSet<>();
+      String prev = frozen.isEmpty() ? "\u0000START" : frozen.get(frozen.size() - 1).id();
+      for (Observation o : seq) {
+        out.add(prev + "->" + o.id());
+        prev = o.id();
+      }
+      return out;
+    }
+
+    /** The sequencer's plan after the frozen observations, with its status and the whole night's bound. */
+    private Timeline mergedFrom(SequencerResult r, double frozenPriority) {
+      List<Observation> planned = new ArrayList<>();
+      for (SequencerResult.Planned p : r.observations()) {
+        planned.add(new Observation(p.id(), p.start(), p.end(), p.transitionS(), p.value(), Observation.PLANNED));
+      }
+      Set<String> in = new HashSet<>();
+      planned.forEach(o -> in.add(o.id()));
+      List<Observation> obs = new ArrayList<>(frozen);
+      obs.addAll(planned);
+      double bound = Double.isNaN(r.boundPriority()) ? Double.NaN : frozenPriority + r.boundPriority();
+      double priority = frozenPriority + r.totalPriority();
+      return new Timeline(r.status(), priority, slewOf(frozen) + r.totalTransitionS(),
+          Double.isNaN(bound) ? null : Math.max(bound, priority), obs, unscheduled(in, null, r.unscheduled()));
+    }
+
+    /** The frozen observations only (nothing left to plan). */
+    private Timeline merged(List<Observation> planned, PlanStatus status, double frozenPriority) {
+      List<Observation> obs = new ArrayList<>(frozen);
+      obs.addAll(planned);
+      return new Timeline(status, frozenPriority, slewOf(frozen), frozenPriority, obs,
+          unscheduled(Set.of(), null, List.of()));
+    }
+
+    /**
+     * Every request neither frozen nor in {@code planned}, with its reason: the sequencer's when it gives one
+     * ({@code fromSequencer}), else {@code notPlannedReason}, else dropped as failed / no window left.
+     */
+    private List<Unscheduled> unscheduled(Set<String> planned, String notPlannedReason, List<Unscheduled> fromSequencer) {
+      Map<String, String> given = new HashMap<>();
+      fromSequencer.forEach(u -> given.put(u.id(), u.reason()));
+      Set<String> frozenIds = new HashSet<>();
+      frozen.forEach(o -> frozenIds.add(o.id()));
+      List<Unscheduled> out = new ArrayList<>();
+      for (int k = 0; k < full.size(); k++) {
+        Task t = full.task(k);
+        if (frozenIds.contains(t.id()) || planned.contains(t.id())) {
+          continue;
+        }
+        int q = fullToSub[k];
+        String reason;
+        if (q < 0) {
+          reason = FAILED_DROPPED;
+        } else if (!sub.task(q).schedulable()) {
+          reason = t.schedulable() ? NO_TIME_LEFT : t.emptyReason();
+        } else if (notPlannedReason != null) {
+          reason = notPlannedReason;
+        } else {
+          reason = given.getOrDefault(t.id(), Reasons.LOST_TO_CONFLICTS);
+        }
+        out.add(new Unscheduled(t.id(), reason));
+      }
+      return out;
+    }
+  }
+}

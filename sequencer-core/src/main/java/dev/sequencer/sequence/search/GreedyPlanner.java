@@ -1,0 +1,134 @@
+package dev.sequencer.sequence.search;
+
+import dev.sequencer.sequence.problem.Plan;
+import dev.sequencer.sequence.problem.PlanningProblem;
+import dev.sequencer.sequence.problem.Task;
+import dev.sequencer.sequence.timing.ExactTimer;
+import dev.sequencer.slew.Transitions.Path;
+import java.util.ArrayList;
+import java.util.List;
+
+/**
+ * The greedy baseline: from the current time and pointing, take the request with the best priority per
+ * second used, schedule it at its earliest start, repeat until nothing fits. Timing is exact
+ * ({@link ExactTimer}): every plan it returns holds under the slew models' exact legs.
+ *
+ * <p>Seconds used = waiting + transition + duration (at least 1 s). The waiting is counted on purpose:
+ * without it a request visible only hours later would look as cheap as one available now, and the plan
+ * would jump over the whole gap. A candidate is skipped when taking it would make some still-unscheduled
+ * required request impossible to reach directly afterwards (a necessary, not sufficient, look-ahead), and
+ * the must-be-last request is taken only when nothing else fits. Ties go to the lower index, so the
+ * result is deterministic.
+ *
+ * <p>Flexible requests are scored at the exposure option with the best value per second used,
+ * (value at d) / (waiting + transition + d), among the options that fit in the window holding the start:
+ * the point where the value curve meets its tangent from the overhead, so a long wait or slew favours a
+ * longer exposure. Ties go to the shorter exposure.
+ */
+public final class GreedyPlanner {
+  private final PlanningProblem problem;
+  private final ExactTimer timer;
+  private final int[] required;
+
+  public GreedyPlanner(PlanningProblem problem, ExactTimer timer) {
+    this.problem = problem;
+    this.timer = timer;
+    this.required = java.util.stream.IntStream.range(0, problem.size())
+        .filter(k -> problem.task(k).required() && problem.task(k).schedulable()).toArray();
+  }
+
+  /** The greedy plan (maybe missing required requests; the caller's score says so). */
+  public Plan plan() {
+    int n = problem.size();
+    boolean[] done = new boolean[n];
+    List<long[]> chosen = new ArrayList<>(); // {k, start, duration}
+    Path path = timer.start();
+    long t = 0;
+    while (true) {
+      int best = -1;
+      long bestStart = -1;
+      long bestDur = -1;
+      double bestScore = -1;
+      for (int pass = 0; pass < 2 && best < 0; pass++) {
+        for (int j = 0; j < n; j++) {
+          Task tj = problem.task(j);
+          if (done[j] || !tj.schedulable() || (pass == 0) == (j == problem.mustBeLastIndex())) {
+            continue;
+          }
+          long s = timer.earliestStart(path, j, t, t, tj.durationS(), tj.latestStartS());
+          long d = s < 0 ? -1 : exposure(j, s, t);
+          if (s < 0 || !requiredStillReachable(path, j, t, s, s + d, done)) {
+            continue;
+          }
+          double score = problem.task(j).valueFor(d) / Math.max(1, s + d - t);
+          if (score > bestScore) {
+            best = j;
+            bestStart = s;
+            bestDur = d;
+            bestScore = score;
+          }
+        }
+      }
+      if (best < 0) {
+        break;
+      }
+      done[best] = true;
+      chosen.add(new long[] {best, bestStart, bestDur});
+      path = path.then(best, t, bestStart);
+      t = bestStart + bestDur;
+      if (best == problem.mustBeLastIndex()) {
+        break;
+      }
+    }
+    int m = chosen.size();
+    int[] order = new int[m];
+    long[] starts = new long[m];
+    long[] durs = new long[m];
+    for (int q = 0; q < m; q++) {
+      order[q] = (int) chosen.get(q)[0];
+      starts[q] = chosen.get(q)[1];
+      durs[q] = chosen.get(q)[2];
+    }
+    return new Plan(order, starts, durs);
+  }
+
+  /**
+   * The exposure request j gets when it starts at {@code s} with the clock at {@code t}: the option with
+   * the best value per second used that fits in the window holding the start (a fixed request's duration).
+   */
+  private long exposure(int j, long s, long t) {
+    Task task = problem.task(j);
+    long latestEnd = task.latestEndFor(s);
+    long bestD = task.durationS();
+    double best = -1;
+    for (int g = 0; g < task.optionCount() && s + task.durationS(g) <= latestEnd; g++) {
+      double score = task.value(g) / Math.max(1, s + task.durationS(g) - t);
+      if (score > best) {
+        best = score;
+        bestD = task.durationS(g);
+      }
+    }
+    return bestD;
+  }
+
+  /** True when every other unscheduled required request can still start after {@code end} (directly from j). */
+  private boolean requiredStillReachable(Path path, int j, long departS, long s, long end, boolean[] done) {
+    Path after = null;
+    for (int r : required) {
+      Task tr = problem.task(r);
+      if (r == j || done[r]) {
+        continue;
+      }
+      if (end > tr.latestStartS()) {
+        return false;
+      }
+      if (after == null) {
+        after = path.then(j, departS, s);
+      }
+      if (timer.earliestStart(after, r, end, end, tr.durationS(), tr.latestStartS()) < 0) {
+        return false;
+      }
+    }
+    return true;
+  }
+}

@@ -1,0 +1,154 @@
+package dev.sequencer.planner;
+
+import static org.junit.jupiter.api.Assertions.assertEquals;
+import static org.junit.jupiter.api.Assertions.assertTrue;
+import static org.junit.jupiter.api.Assertions.fail;
+
+import dev.sequencer.astro.AstroContext;
+import dev.sequencer.model.Observation;
+import dev.sequencer.model.Request;
+import dev.sequencer.model.Scenario;
+import dev.sequencer.model.Timeline;
+import dev.sequencer.model.Unscheduled;
+import dev.sequencer.sequence.SequencerOptions;
+import dev.sequencer.sequence.SequencerResult;
+import dev.sequencer.sequence.problem.Reasons;
+import dev.sequencer.sequence.replan.ReplanOptions;
+import dev.sequencer.sequence.replan.ReplanResult;
+import dev.sequencer.validate.PlanValidator;
+import java.time.Duration;
+import java.time.Instant;
+import java.util.LinkedHashSet;
+import java.util.List;
+import java.util.Random;
+import java.util.Set;
+import java.util.concurrent.atomic.AtomicReference;
+import net.jqwik.api.Arbitraries;
+import net.jqwik.api.Arbitrary;
+import net.jqwik.api.Combinators;
+import net.jqwik.api.ForAll;
+import net.jqwik.api.Property;
+import net.jqwik.api.Provide;
+
+/**
+ * The planner on scenarios of every kind a user writes ({@link FuzzScenarios}: ground fields on an alt-az
+ * mount or with a fixed overhead, a station tracking TLE objects, a space telescope on a TLE orbit, an
+ * imager on Keplerian elements over Earth points, windows with a slew table), with random required
+ * flags, flexible exposures, time limits of 1–3 s, seeds and worker counts, and a re-plan at a random
+ * instant with random done and failed observations. Each try checks what a user relies on:
+ *
+ * <ul>
+ *   <li>whenever the greedy baseline finds a plan holding every required request, CP-SAT returns a plan
+ *       (which the façade has validated, physics re-check included);</li>
+ *   <li>its priority is at least greedy's and at least every priority the progress listener saw;</li>
+ *   <li>every required request is in it;</li>
+ *   <li>every request it calls "lost to conflicts" fails exact insertion: put at the earliest second its
+ *       exact slew allows between two consecutive observations (others unchanged), the validator rejects
+ *       the timeline;</li>
+ *   <li>no exception escapes, the re-plan included, and a re-plan keeps the done and running observations.</li>
+ * </ul>
+ *
+ * The insertion check uses the slew models' exact legs ({@code Transitions.exactS}) to find the candidate
+ * start: it shares that code with the planner (not an outside check), while the verdict is the
+ * validator's, whose physics re-check is independent of both. The benchmark
+ * {@code PlannerFuzzBenchmark} runs hundreds of tries and records the time-limit overruns.
+ */
+class PlannerFuzzProperties {
+  private static final AstroContext CTX = AstroContext.offline();
+
+  /** One try's settings. */
+  record Try(FuzzScenarios.Kind kind, long seed, double timeLimitS, int workers, int solverSeed) {}
+
+  @Provide
+  Arbitrary<Try> tries() {
+    return Combinators.combine(Arbitraries.of(FuzzScenarios.Kind.class), Arbitraries.longs().between(1, 1_000_000),
+        Arbitraries.integers().between(1, 3), Arbitraries.integers().between(1, 2), Arbitraries.integers().between(1, 9))
+        .as((k, s, t, w, seed) -> new Try(k, s, t, w, seed));
+  }
+
+  @Property(tries = 24, shrinking = net.jqwik.api.ShrinkingMode.OFF)
+  void plansAreNeverWorseThanWhatWasFoundAndReasonsAreTrue(@ForAll("tries") Try t) {
+    check(t);
+  }
+
+  /** Runs every check of the class comment on one try; public for the benchmark's own loop. */
+  static void check(Try t) {
+    Scenario plain = FuzzScenarios.generate(t.kind(), t.seed(), CTX);
+    SequencerOptions base = SequencerOptions.defaults().withTimeLimitS(t.timeLimitS()).withWorkers(t.workers())
+        .withSeed(t.solverSeed());
+    PlanOutcome first = Planner.plan(plain, CTX, base.withSolver(SequencerOptions.Solver.GREEDY)
+        .withRelaxationBound(false));
+    List<String> inFirst = first.timeline().observations().stream().map(Observation::id).toList();
+    Scenario s = FuzzScenarios.withRequired(plain, inFirst, new Random(t.seed() + 17));
+    String what = t + ": " + FuzzScenarios.describe(s) + ", required "
+        + s.requests().stream().filter(Request::required).map(Request::id).toList();
+    PlanOutcome greedy = Planner.plan(s, CTX, base.withSolver(SequencerOptions.Solver.GREEDY)
+        .withRelaxationBound(false));
+    AtomicReference<Double> bestReported = new AtomicReference<>(Double.NEGATIVE_INFINITY);
+    PlanOutcome cp = Planner.plan(s, CTX, base.withListener((n, p, slew, bound, elapsed) ->
+        bestReported.accumulateAndGet(p, Math::max)));
+    SequencerResult r = cp.result();
+    if (greedy.result().hasPlan()) {
+      assertTrue(r.hasPlan(), what + ": greedy holds every required request but CP-SAT returned " + r.status() + " "
+          + r.message());
+      assertTrue(r.totalPriority() >= greedy.result().totalPriority() - 1e-6, what + ": priority "
+          + r.totalPriority() + " below greedy's " + greedy.result().totalPriority());
+    }
+    if (!r.hasPlan()) {
+      return;
+    }
+    assertTrue(r.totalPriority() >= bestReported.get() - 1e-6, what + ": priority " + r.totalPriority()
+        + " below a reported " + bestReported.get());
+    Set<String> planned = new LinkedHashSet<>();
+    r.observations().forEach(o -> planned.add(o.id()));
+    for (Request q : s.requests()) {
+      assertTrue(!q.required() || planned.contains(q.id()), what + ": required " + q.id() + " missing");
+    }
+    PlanValidator validator = Planner.validator(cp.geometry(), CTX);
+    for (Unscheduled u : r.unscheduled()) {
+      if (u.reason().startsWith(Reasons.LOST_TO_CONFLICTS)) {
+        String fits = ExactInsertionCheck.insertionThatFits(s, cp.geometry(), validator, cp.timeline(), u.id());
+        if (fits != null) {
+          fail(what + ": " + u.id() + " is \"" + u.reason() + "\" but " + fits);
+        }
+      }
+    }
+    replan(s, cp.timeline(), base, new Random(t.seed()), what);
+  }
+
+  /** A re-plan at a random instant of the plan with random done and failed observations. */
+  private static void replan(Scenario s, Timeline plan, SequencerOptions base, Random rnd, String what) {
+    List<Observation> obs = plan.observations();
+    if (obs.size() < 2) {
+      return;
+    }
+    long span = Duration.between(obs.get(0).start(), obs.get(obs.size() - 1).end()).getSeconds();
+    Instant now = obs.get(0).start().plusSeconds((long) (rnd.nextDouble() * span));
+    Set<String> done = new LinkedHashSet<>();
+    Set<String> failed = new LinkedHashSet<>();
+    for (Observation o : obs) {
+      if (o.start().isBefore(now)) {
+        if (rnd.nextInt(4) == 0) {
+          failed.add(o.id());
+        } else if (!o.end().isAfter(now) || rnd.nextBoolean()) {
+          done.add(o.id());
+        }
+      }
+    }
+    ReplanOptions o = ReplanOptions.defaults().withSequencer(base).withDropFailed(rnd.nextBoolean());
+    ReplanResult r = Planner.replan(s, CTX, plan, now, done, failed, o).result();
+    if (r.hasPlan()) {
+      for (Observation x : r.timeline().observations()) {
+        if (done.contains(x.id())) {
+          assertEquals(Observation.DONE, x.state(), what + ": re-plan at " + now + " lost done " + x.id());
+        }
+      }
+      for (Observation x : r.timeline().observations()) {
+        if (Observation.PLANNED.equals(x.state())) {
+          assertTrue(!x.start().isBefore(now), what + ": re-plan at " + now + " starts " + x.id() + " before now");
+        }
+      }
+    }
+  }
+
+}
