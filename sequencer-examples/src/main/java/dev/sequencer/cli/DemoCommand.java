@@ -69,7 +69,7 @@ final class DemoCommand implements Callable<Integer> {
     SolverSettings fromFile = r.scenario().solverOrDefaults();
     fromFile = fromFile.withTimeLimitS(Math.min(fromFile.timeLimitS(), DEFAULT_TIME_LIMIT_S));
     Pipeline.Planned planned = PlanCommand.solve(p, solverOptions, fromFile, out);
-    PlanCommand.print(out, planned.result(), planned.timeline());
+    PlanCommand.print(out, planned.result(), planned.timeline(), p.visibility());
 
     Path timelineFile = dir.resolve("timeline.json");
     TimelineFile.write(planned.timeline(), timelineFile);

@@ -9,6 +9,7 @@ import dev.sequencer.sequence.PlanningProblem;
 import dev.sequencer.sequence.ReplanOptions;
 import dev.sequencer.sequence.ReplanResult;
 import dev.sequencer.sequence.Replanner;
+import dev.sequencer.visibility.RequestVisibility;
 import java.io.PrintWriter;
 import java.nio.file.Path;
 import java.time.Instant;
@@ -94,7 +95,7 @@ final class ReplanCommand implements Callable<Integer> {
     } catch (Replanner.BadInput e) {
       throw new InputException("--" + e.getMessage());
     }
-    print(out, result);
+    print(out, result, p.visibility());
     if (output != null) {
       TimelineFile.write(result.timeline(), output);
       out.println("wrote " + output);
@@ -136,7 +137,7 @@ final class ReplanCommand implements Callable<Integer> {
     return out;
   }
 
-  private static void print(PrintWriter out, ReplanResult r) {
+  private static void print(PrintWriter out, ReplanResult r, List<RequestVisibility> visibility) {
     Timeline t = r.timeline();
     out.printf(Locale.ROOT, "%-12s %-8s %-24s %-24s %8s %8s%n", "id", "state", "start", "end", "dur [s]", "slew [s]");
     for (Observation o : t.observations()) {
@@ -144,7 +145,7 @@ final class ReplanCommand implements Callable<Integer> {
           o.durationS(), o.slewSeconds());
     }
     for (Unscheduled u : t.unscheduled()) {
-      out.printf(Locale.ROOT, "%-12s not scheduled: %s%n", u.id(), u.reason());
+      out.printf(Locale.ROOT, "%-12s not scheduled: %s%n", u.id(), Reasons.of(u, visibility));
     }
     out.printf(Locale.ROOT, "status %s, night priority %.2f, new plan %.2f (rest of the previous plan %.2f), "
         + "from %s, kept %d of %d previous requests and %d successor pairs, plan from %s%n", t.status(),
