@@ -163,6 +163,10 @@ final class ScenarioParser {
           "perigee radius %.3f km (semiMajorAxisKm * (1 - eccentricity)) is inside the Earth (radius %.3f km)",
           a * (1 - e), EARTH_RADIUS_KM), Range.num(e));
     }
+    if (epoch != null) {
+      Epochs.check(epoch, horizon, k.path("epoch"), epoch.toString(), p, "elements",
+          "the motion is integrated from it (two-body + J2, no drag), slower and further from the real orbit");
+    }
     return p.count() == before ? new KeplerianElements(epoch, a, e, i, raan, argp, m) : null;
   }
 

@@ -18,19 +18,28 @@ import java.util.List;
 import java.util.Locale;
 import java.util.Map;
 import org.hipparchus.geometry.euclidean.threed.Vector3D;
+import org.hipparchus.ode.nonstiff.DormandPrince853Integrator;
 import org.hipparchus.util.FastMath;
+import org.orekit.attitudes.FrameAlignedProvider;
 import org.orekit.bodies.GeodeticPoint;
+import org.orekit.forces.gravity.HolmesFeatherstoneAttractionModel;
+import org.orekit.forces.gravity.potential.GravityFieldFactory;
+import org.orekit.forces.gravity.potential.TideSystem;
+import org.orekit.forces.gravity.potential.UnnormalizedSphericalHarmonicsProvider;
 import org.orekit.frames.Frame;
 import org.orekit.frames.TopocentricFrame;
 import org.orekit.orbits.KeplerianOrbit;
+import org.orekit.orbits.OrbitType;
 import org.orekit.orbits.PositionAngleType;
 import org.orekit.propagation.Propagator;
-import org.orekit.propagation.analytical.BrouwerLyddanePropagator;
+import org.orekit.propagation.EphemerisGenerator;
+import org.orekit.propagation.SpacecraftState;
+import org.orekit.propagation.ToleranceProvider;
+import org.orekit.propagation.numerical.NumericalPropagator;
 import org.orekit.propagation.analytical.tle.TLE;
 import org.orekit.propagation.analytical.tle.TLEPropagator;
 import org.orekit.time.AbsoluteDate;
 import org.orekit.time.TimeScalarFunction;
-import org.orekit.utils.Constants;
 import org.orekit.utils.IERSConventions;
 
 /**
@@ -255,19 +264,34 @@ public final class PhysicsOracle implements ObservabilityOracle {
     return new Vector3D(FastMath.toRadians(rd.raDeg()), FastMath.toRadians(rd.decDeg()));
   }
 
-  /** TLE: SGP4/SDP4; Keplerian: Brouwer-Lyddane with EIGEN-5C zonal terms (the model the format's docs name). */
+  /**
+   * TLE: SGP4/SDP4. Keplerian: the format's reference motion (A1) set up here on its own: Orekit's numerical
+   * propagator with the Holmes-Featherstone model of a J2-only field (EGM96 mu, R, J2) about the Earth-fixed
+   * axes, Dormand-Prince 8(5,3) at 1 mm, its dense output kept over the horizon and an hour either side.
+   */
   private Propagator propagator(OrbitObserver o) {
     if (o.orbit() instanceof Tle tle) {
       return TLEPropagator.selectExtrapolator(new TLE(tle.line1(), tle.line2(), ctx.utc()),
           ctx.dataContext().getFrames().getTEME());
     }
     KeplerianElements k = (KeplerianElements) o.orbit();
+    double mu = 398600.4418e9;
     KeplerianOrbit orb = new KeplerianOrbit(k.semiMajorAxisKm() * 1000.0, k.eccentricity(),
         FastMath.toRadians(k.inclinationDeg()), FastMath.toRadians(k.argumentOfPerigeeDeg()),
         FastMath.toRadians(k.raanDeg()), FastMath.toRadians(k.meanAnomalyDeg()), PositionAngleType.MEAN,
-        ctx.dataContext().getFrames().getEME2000(), ctx.date(k.epoch()), Constants.EIGEN5C_EARTH_MU);
-    return new BrouwerLyddanePropagator(orb, Constants.EIGEN5C_EARTH_EQUATORIAL_RADIUS, Constants.EIGEN5C_EARTH_MU,
-        Constants.EIGEN5C_EARTH_C20, Constants.EIGEN5C_EARTH_C30, Constants.EIGEN5C_EARTH_C40,
-        Constants.EIGEN5C_EARTH_C50, BrouwerLyddanePropagator.M2);
+        ctx.dataContext().getFrames().getEME2000(), ctx.date(k.epoch()), mu);
+    UnnormalizedSphericalHarmonicsProvider j2Only = GravityFieldFactory.getUnnormalizedProvider(6_378_136.3, mu,
+        TideSystem.UNKNOWN, new double[][] {{0}, {0, 0}, {-1.0826267e-3, 0, 0}}, new double[][] {{0}, {0, 0}, {0, 0, 0}});
+    double[][] tolerances = ToleranceProvider.getDefaultToleranceProvider(1e-3).getTolerances(orb, OrbitType.CARTESIAN);
+    NumericalPropagator numerical = new NumericalPropagator(
+        new DormandPrince853Integrator(1e-3, 300, tolerances[0], tolerances[1]), new FrameAlignedProvider(gcrf));
+    numerical.setOrbitType(OrbitType.CARTESIAN);
+    numerical.addForceModel(new HolmesFeatherstoneAttractionModel(ctx.earthFixed(),
+        GravityFieldFactory.getNormalizedProvider(j2Only)));
+    numerical.setInitialState(new SpacecraftState(orb));
+    EphemerisGenerator ephemeris = numerical.getEphemerisGenerator();
+    numerical.propagate(ctx.date(scenario.horizon().start()).shiftedBy(-3600),
+        ctx.date(scenario.horizon().end()).shiftedBy(3600));
+    return ephemeris.getGeneratedEphemeris();
   }
 }

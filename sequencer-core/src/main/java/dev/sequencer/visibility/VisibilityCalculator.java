@@ -15,7 +15,7 @@ import java.util.Map;
 import java.util.concurrent.ExecutionException;
 import java.util.concurrent.ForkJoinPool;
 import java.util.stream.IntStream;
-import org.orekit.propagation.Propagator;
+import org.orekit.utils.PVCoordinatesProvider;
 import org.orekit.time.AbsoluteDate;
 
 /**
@@ -104,7 +104,8 @@ public final class VisibilityCalculator {
       return out;
     }
     GroundSite site = scenario.observer() instanceof GroundSite g ? g : null;
-    Propagator orbit = scenario.observer() instanceof OrbitObserver o ? Observers.propagator(o, ctx) : null;
+    PVCoordinatesProvider orbit = scenario.observer() instanceof OrbitObserver o
+        ? Observers.motion(o, ctx, origin, origin.shiftedBy(horizonS)) : null;
     List<TargetTrack> tracks = new ArrayList<>(n);
     List<List<ConstraintFunction>> functions = new ArrayList<>(n);
     boolean needTeme = false;

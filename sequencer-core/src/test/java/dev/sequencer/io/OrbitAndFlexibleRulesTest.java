@@ -5,6 +5,7 @@ import static dev.sequencer.io.Docs.base;
 import static dev.sequencer.io.Docs.problems;
 import static dev.sequencer.io.Docs.read;
 import static dev.sequencer.io.Docs.request;
+import static dev.sequencer.io.Docs.requests;
 import static dev.sequencer.io.Docs.tree;
 import static org.junit.jupiter.api.Assertions.assertEquals;
 import static org.junit.jupiter.api.Assertions.assertTrue;
@@ -129,6 +130,23 @@ class OrbitAndFlexibleRulesTest {
         {"epoch": "2031-05-04T00:00:00Z", "semiMajorAxisKm": 7000, "eccentricity": 0.9, "inclinationDeg": 98,
          "raanDeg": 0, "argumentOfPerigeeDeg": 0, "meanAnomalyDeg": 0}"""));
     assertTrue(at(ps, "observer.orbit.keplerian.eccentricity").message().startsWith("perigee radius 700.000 km"));
+  }
+
+  @Test
+  void keplerianEpochFarFromTheHorizon() {
+    // Same distance rules as a TLE's epoch: a warning beyond 30 days, an error beyond 3650.
+    // 2031-03-01 to the horizon start 2031-05-04T18:00Z: 30 + 31 + 3.75 = 64.75 days.
+    ObjectNode doc = keplerDoc("""
+        {"epoch": "2031-03-01T00:00:00Z", "semiMajorAxisKm": 7000, "eccentricity": 0.001, "inclinationDeg": 98,
+         "raanDeg": 0, "argumentOfPerigeeDeg": 0, "meanAnomalyDeg": 0}""");
+    doc.remove("startPointing");
+    requests(doc).remove(2); // SAT7, a TLE target, is not needed here
+    assertEquals(List.of("observer.orbit.keplerian.epoch: epoch 2031-03-01T00:00:00Z is 64.8 days before the horizon "
+        + "start; the motion is integrated from it (two-body + J2, no drag), slower and further from the real orbit"),
+        read(doc).warnings());
+    ((ObjectNode) doc.get("observer").get("orbit").get("keplerian")).put("epoch", "2020-01-01T00:00:00Z");
+    assertEquals("epoch 2020-01-01T00:00:00Z is 4141.8 days before the horizon start; more than 3650 days is"
+        + " surely the wrong elements", at(problems(doc), "observer.orbit.keplerian.epoch").message());
   }
 
   @Test

@@ -191,7 +191,8 @@ class A2ConstraintsReferenceTest {
     // ElevationDetector (spacecraft above 0 deg at the point, always applied to Earth points) and the
     // negated GroundAtNightDetector at the point (Sun at least 10 deg), combined with AND, on a separate
     // propagation of the observer. 24 h, 1 s.
-    OrbitObserver obs = new OrbitObserver(new KeplerianElements(T0, 6_378.137 + 600, 0.001, 97.8, 30, 0, 0));
+    KeplerianElements k = new KeplerianElements(T0, 6_378.137 + 600, 0.001, 97.8, 30, 0, 0);
+    OrbitObserver obs = new OrbitObserver(k);
     EarthPoint ep = new EarthPoint(40.0, 15.0, 0);
     TopocentricFrame point = topo(ep.latitudeDeg(), ep.longitudeDeg(), ep.altitudeM());
     Scenario s = scenario(obs, Constraints.builder().sunElevationMinDeg(10).build(), ep, 24 * 3600);
@@ -199,7 +200,7 @@ class A2ConstraintsReferenceTest {
     EventDetector day = new NegateDetector(new GroundAtNightDetector(point, CTX.sun(), FastMath.toRadians(10), null));
     EventDetector both = BooleanDetector.andCombine(visible, day).withMaxCheck(10.0).withThreshold(1e-4)
         .withHandler(new ContinueOnEvent());
-    assertSameWindows(s, Observers.propagator(obs, CTX), both);
+    assertSameWindows(s, J2Reference.propagator(k, CTX), both);
     assertBinds(new VisibilityCalculator(CTX).compute(s).get(0), ConstraintFunction.DAYLIGHT);
   }
 
@@ -211,7 +212,8 @@ class A2ConstraintsReferenceTest {
     // axis of Orekit's BodyCenterPointing attitude (it points at the body's centre) against the line of sight
     // to the point from Orekit's frames, AND the spacecraft above 0 deg at the point, on a separate
     // propagation. 24 h, 1 s.
-    OrbitObserver obs = new OrbitObserver(new KeplerianElements(T0, 6_378.137 + 600, 0.001, 97.8, 30, 0, 0));
+    KeplerianElements k = new KeplerianElements(T0, 6_378.137 + 600, 0.001, 97.8, 30, 0, 0);
+    OrbitObserver obs = new OrbitObserver(k);
     EarthPoint ep = new EarthPoint(-10.0, 100.0, 0);
     TopocentricFrame point = topo(ep.latitudeDeg(), ep.longitudeDeg(), ep.altitudeM());
     double max = 25;
@@ -224,7 +226,7 @@ class A2ConstraintsReferenceTest {
     });
     EventDetector both = BooleanDetector.andCombine(new ElevationDetector(10.0, 1e-4, point).withConstantElevation(0),
         offNadir).withMaxCheck(10.0).withThreshold(1e-4).withHandler(new ContinueOnEvent());
-    assertSameWindows(s, Observers.propagator(obs, CTX), both);
+    assertSameWindows(s, J2Reference.propagator(k, CTX), both);
     assertBinds(new VisibilityCalculator(CTX).compute(s).get(0), ConstraintFunction.OFF_NADIR);
   }
 

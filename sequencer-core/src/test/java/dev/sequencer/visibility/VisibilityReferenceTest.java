@@ -91,7 +91,7 @@ class VisibilityReferenceTest {
     for (int trial = 0; trial < 3; trial++) {
       EarthPoint ep = new EarthPoint(-70 + 140 * rnd.nextDouble(), -180 + 360 * rnd.nextDouble(), 0);
       Scenario s = scenario(obs, Constraints.builder().elevationMinDeg(5).build(), ep, 24 * 3600);
-      Propagator p = Observers.propagator(obs, CTX);
+      Propagator p = J2Reference.propagator(k, CTX);
       TopocentricFrame topo = topo(ep.latitudeDeg(), ep.longitudeDeg(), ep.altitudeM());
       EventDetector d = new ElevationDetector(10.0, 1e-4, topo).withConstantElevation(Math.toRadians(5))
           .withHandler(new ContinueOnEvent());
@@ -112,7 +112,7 @@ class VisibilityReferenceTest {
       RaDec rd = new RaDec(360 * rnd.nextDouble(), -80 + 160 * rnd.nextDouble());
       Vector3D u = new Vector3D(Math.toRadians(rd.raDeg()), Math.toRadians(rd.decDeg()));
       Scenario s = scenario(obs, c, rd, 24 * 3600);
-      Propagator p = Observers.propagator(obs, CTX);
+      Propagator p = J2Reference.propagator(k, CTX);
       EventDetector d = new FunctionalDetector().withFunction(st -> {
         Vector3D r = st.getPosition(gcrf);
         AbsoluteDate t = st.getDate();
