@@ -10,6 +10,7 @@ import java.time.ZoneOffset;
 /**
  * Checks a two-line element set as written in a file: two 69-character lines numbered 1 and 2, each
  * with a valid checksum (column 69: the sum of the digits in columns 1-68, a '-' counting 1, modulo 10),
+ * every field readable and in range ({@link TleFields}, which also runs Orekit's format check and parser),
  * the same satellite number on both lines, and an epoch near the horizon.
  */
 final class TleCheck {
@@ -27,11 +28,17 @@ final class TleCheck {
     for (int k = 0; k < 2; k++) {
       shaped &= checkLine(lines[k], k + 1, path + "[" + k + "]", p);
     }
+    if (shaped && p.count() == before) {
+      shaped = TleFields.check(lines, path, p);
+    }
     if (shaped) {
       String sat1 = lines[0].substring(2, 7);
       String sat2 = lines[1].substring(2, 7);
       if (!sat1.equals(sat2)) {
         p.add(path + "[1]", "satellite number \"" + sat2 + "\" differs from line 1's \"" + sat1 + "\"", lines[1]);
+      }
+      if (p.count() == before) {
+        TleFields.checkWithOrekit(lines, path, p);
       }
       checkEpoch(lines[0], path + "[0]", p, horizon);
     }
