@@ -113,16 +113,7 @@ record ConstraintFunction(String name, boolean targetIndependent, ToDoubleFuncti
       double floor = Airmass.minElevationDeg(c.airmassMax());
       list.add(new ConstraintFunction(AIRMASS, false, s -> targetElevationDeg(s) - floor, UNKNOWN_RATE));
     }
-    if (c.sunElevationMaxDeg() != null) {
-      double max = c.sunElevationMaxDeg();
-      list.add(new ConstraintFunction(DARKNESS, true, s -> max - bodyElevationDeg(s, s.sun, s.obs),
-          SUN_ELEVATION_RATE_DEG_PER_S));
-    }
-    if (c.sunElevationMinDeg() != null) {
-      double min = c.sunElevationMinDeg();
-      list.add(new ConstraintFunction(DAYLIGHT, true, s -> bodyElevationDeg(s, s.sun, s.obs) - min,
-          SUN_ELEVATION_RATE_DEG_PER_S));
-    }
+    addSunElevation(list, c, false);
     if (c.moonElevationMaxDeg() != null) {
       double max = c.moonElevationMaxDeg();
       list.add(new ConstraintFunction(MOON_ELEVATION, true, s -> max - bodyElevationDeg(s, s.moon, s.obs),
@@ -155,19 +146,29 @@ record ConstraintFunction(String name, boolean targetIndependent, ToDoubleFuncti
       s.tmp2[2] = -s.los[2];
       return elevationDeg(s.tmp2, s.up) - elMin;
     }, UNKNOWN_RATE));
+    addSunElevation(list, c, true);
+    if (c.offNadirMaxDeg() != null) {
+      double max = c.offNadirMaxDeg();
+      list.add(new ConstraintFunction(OFF_NADIR, false, s -> max - offNadirDeg(s), UNKNOWN_RATE));
+    }
+  }
+
+  /**
+   * Darkness (Sun at most so high) and daylight (at least so high): at the ground site, or at the Earth
+   * point itself when {@code atEarthPoint} (then the margin depends on the target).
+   */
+  private static void addSunElevation(List<ConstraintFunction> list, Constraints c, boolean atEarthPoint) {
+    ToDoubleFunction<Scratch> sunElevation = atEarthPoint
+        ? s -> bodyElevationDeg(s, s.sun, s.target) : s -> bodyElevationDeg(s, s.sun, s.obs);
     if (c.sunElevationMaxDeg() != null) {
       double max = c.sunElevationMaxDeg();
-      list.add(new ConstraintFunction(DARKNESS, false, s -> max - bodyElevationDeg(s, s.sun, s.target),
+      list.add(new ConstraintFunction(DARKNESS, !atEarthPoint, s -> max - sunElevation.applyAsDouble(s),
           SUN_ELEVATION_RATE_DEG_PER_S));
     }
     if (c.sunElevationMinDeg() != null) {
       double min = c.sunElevationMinDeg();
-      list.add(new ConstraintFunction(DAYLIGHT, false, s -> bodyElevationDeg(s, s.sun, s.target) - min,
+      list.add(new ConstraintFunction(DAYLIGHT, !atEarthPoint, s -> sunElevation.applyAsDouble(s) - min,
           SUN_ELEVATION_RATE_DEG_PER_S));
-    }
-    if (c.offNadirMaxDeg() != null) {
-      double max = c.offNadirMaxDeg();
-      list.add(new ConstraintFunction(OFF_NADIR, false, s -> max - offNadirDeg(s), UNKNOWN_RATE));
     }
   }
 
