@@ -12,6 +12,7 @@ import dev.sequencer.model.Scenario;
 import dev.sequencer.model.SlewSettings;
 import dev.sequencer.model.TimeWindow;
 import dev.sequencer.model.Tle;
+import dev.sequencer.visibility.J2Reference;
 import dev.sequencer.visibility.OrekitReference;
 import dev.sequencer.visibility.RequestVisibility;
 import dev.sequencer.visibility.VisibilityCalculator;
@@ -28,10 +29,7 @@ import org.hipparchus.util.FastMath;
 import org.orekit.bodies.GeodeticPoint;
 import org.orekit.frames.Frame;
 import org.orekit.frames.TopocentricFrame;
-import org.orekit.orbits.KeplerianOrbit;
-import org.orekit.orbits.PositionAngleType;
 import org.orekit.propagation.Propagator;
-import org.orekit.propagation.analytical.BrouwerLyddanePropagator;
 import org.orekit.propagation.analytical.tle.TLE;
 import org.orekit.propagation.analytical.tle.TLEPropagator;
 import org.orekit.propagation.events.ElevationDetector;
@@ -39,7 +37,6 @@ import org.orekit.propagation.events.EventDetector;
 import org.orekit.propagation.events.FunctionalDetector;
 import org.orekit.propagation.events.handlers.ContinueOnEvent;
 import org.orekit.time.AbsoluteDate;
-import org.orekit.utils.Constants;
 
 /**
  * Visibility speed: (1) 1,000 fixed targets seen from a LEO observer over 24 h with Sun, Moon and
@@ -158,14 +155,9 @@ public final class VisibilityBenchmark {
     return new Figures(name, s.requests().size(), oursS, peakMb, refTime / sampled, sampled, maxDiff, mismatches);
   }
 
+  /** The format's reference motion (two-body + J2, numerical), set up apart from the library. */
   private static Propagator leoPropagator(KeplerianElements k) {
-    KeplerianOrbit orbit = new KeplerianOrbit(k.semiMajorAxisKm() * 1000, k.eccentricity(),
-        FastMath.toRadians(k.inclinationDeg()), FastMath.toRadians(k.argumentOfPerigeeDeg()),
-        FastMath.toRadians(k.raanDeg()), FastMath.toRadians(k.meanAnomalyDeg()), PositionAngleType.MEAN,
-        CTX.dataContext().getFrames().getEME2000(), CTX.date(k.epoch()), Constants.EIGEN5C_EARTH_MU);
-    return new BrouwerLyddanePropagator(orbit, Constants.EIGEN5C_EARTH_EQUATORIAL_RADIUS, Constants.EIGEN5C_EARTH_MU,
-        Constants.EIGEN5C_EARTH_C20, Constants.EIGEN5C_EARTH_C30, Constants.EIGEN5C_EARTH_C40,
-        Constants.EIGEN5C_EARTH_C50, BrouwerLyddanePropagator.M2);
+    return J2Reference.propagator(k, CTX);
   }
 
   private static Vector3D direction(RaDec rd) {

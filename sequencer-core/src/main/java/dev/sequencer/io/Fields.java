@@ -51,6 +51,12 @@ final class Fields {
     return v != null && !v.isNull();
   }
 
+  /** True when the field is written with the JSON value {@code null}. */
+  boolean isNull(String name) {
+    JsonNode v = node.get(name);
+    return v != null && v.isNull();
+  }
+
   /** The raw value, or null when absent; reports a missing required field. */
   JsonNode get(String name, boolean required) {
     if (!has(name)) {

@@ -2,6 +2,8 @@ package dev.sequencer.io;
 
 import com.fasterxml.jackson.databind.JsonNode;
 import com.fasterxml.jackson.databind.node.ArrayNode;
+import dev.sequencer.model.ConstraintOverrides;
+import dev.sequencer.model.Constraints;
 import dev.sequencer.model.EarthPoint;
 import dev.sequencer.model.FlexibleExposure;
 import dev.sequencer.model.OrbitingTarget;
@@ -18,12 +20,13 @@ import java.util.Map;
 
 /**
  * Reads the {@code requests} array: ids, targets (checked against the observer kind), fixed or
- * flexible durations, priorities and allowed windows (clipped to the horizon with a warning).
+ * flexible durations, priorities, allowed windows (clipped to the horizon with a warning) and the
+ * request's own constraints.
  */
 final class RequestParser {
   static final List<String> REQUEST =
       List.of("id", "target", "durationS", "priority", "required", "windows", "minDurationS", "maxDurationS",
-          "durationStepS", "utility");
+          "durationStepS", "utility", "constraints");
   static final List<String> FLEXIBLE = List.of("minDurationS", "maxDurationS", "durationStepS", "utility");
   static final List<String> TLE_TARGET = List.of("tle");
   static final List<String> EARTH_POINT = List.of("latitudeDeg", "longitudeDeg", "altitudeM");
@@ -31,12 +34,17 @@ final class RequestParser {
   private final Problems p;
   private final TimeWindow horizon;
   private final ObserverKind kind;
+  private final Constraints scenarioConstraints;
 
-  /** {@code horizon} is null when it was invalid (then windows are not clipped). */
-  RequestParser(Problems problems, TimeWindow horizon, ObserverKind kind) {
+  /**
+   * {@code horizon} is null when it was invalid (then windows are not clipped); each request's own
+   * constraints are checked over {@code scenarioConstraints}.
+   */
+  RequestParser(Problems problems, TimeWindow horizon, ObserverKind kind, Constraints scenarioConstraints) {
     this.p = problems;
     this.horizon = horizon;
     this.kind = kind;
+    this.scenarioConstraints = scenarioConstraints;
   }
 
   List<Request> parse(ArrayNode nodes, String path) {
@@ -95,10 +103,11 @@ final class RequestParser {
     }
     Boolean required = f.bool("required", false);
     List<TimeWindow> windows = windows(f);
+    ConstraintOverrides constraints = new ConstraintsParser(p).request(f, scenarioConstraints);
     if (id == null) {
       return null;
     }
-    return new Request(id, target, durationS, priority, Boolean.TRUE.equals(required), windows, flex);
+    return new Request(id, target, durationS, priority, Boolean.TRUE.equals(required), windows, flex, constraints);
   }
 
   private Target target(Fields f) {

@@ -32,9 +32,6 @@ final class ScenarioParser {
   static final List<String> KEPLERIAN =
       List.of("epoch", "semiMajorAxisKm", "eccentricity", "inclinationDeg", "raanDeg", "argumentOfPerigeeDeg",
           "meanAnomalyDeg");
-  static final List<String> CONSTRAINTS =
-      List.of("sunSeparationMinDeg", "moonSeparationMinDeg", "earthLimbMinDeg", "elevationMinDeg", "elevationMaxDeg",
-          "sunElevationMaxDeg", "targetSunlitRequired");
   static final List<String> RA_DEC = List.of("raDeg", "decDeg");
   static final List<String> AZ_EL = List.of("azimuthDeg", "elevationDeg");
   static final List<String> SOLVER = List.of("timeLimitS", "workers", "seed");
@@ -58,13 +55,13 @@ final class ScenarioParser {
     TimeWindow horizon = horizon(top);
     ObserverKind[] kind = {ObserverKind.NONE};
     Observer observer = observer(top, horizon, kind);
-    Constraints constraints = constraints(top);
+    Constraints constraints = new ConstraintsParser(p).scenario(top);
     ArrayNode requestNodes = top.array("requests", true);
     int requestCount = requestNodes == null ? -1 : requestNodes.size();
     SlewSettings slew = new SlewParser(p, kind[0], requestCount).parse(top);
     Pointing startPointing = startPointing(top, kind[0], slew);
     List<Request> requests =
-        requestNodes == null ? null : new RequestParser(p, horizon, kind[0]).parse(requestNodes, top.path("requests"));
+        requestNodes == null ? null : new RequestParser(p, horizon, kind[0], constraints).parse(requestNodes, top.path("requests"));
     SolverSettings solver = solver(top);
     if (p.count() > 0) {
       return null;
@@ -166,28 +163,11 @@ final class ScenarioParser {
           "perigee radius %.3f km (semiMajorAxisKm * (1 - eccentricity)) is inside the Earth (radius %.3f km)",
           a * (1 - e), EARTH_RADIUS_KM), Range.num(e));
     }
+    if (epoch != null) {
+      Epochs.check(epoch, horizon, k.path("epoch"), epoch.toString(), p, "elements",
+          "the motion is integrated from it (two-body + J2, no drag), slower and further from the real orbit");
+    }
     return p.count() == before ? new KeplerianElements(epoch, a, e, i, raan, argp, m) : null;
-  }
-
-  private Constraints constraints(Fields top) {
-    Fields c = top.object("constraints", false, CONSTRAINTS);
-    if (c == null) {
-      return Constraints.none();
-    }
-    Double elMin = c.number("elevationMinDeg", false, Range.ELEVATION);
-    Double elMax = c.number("elevationMaxDeg", false, Range.ELEVATION);
-    if (elMin != null && elMax != null && !(elMin < elMax)) {
-      p.add(c.path("elevationMaxDeg"), "must be greater than elevationMinDeg " + Range.num(elMin)
-          + " (was " + Range.num(elMax) + ")", Range.num(elMax));
-    }
-    return new Constraints(
-        c.number("sunSeparationMinDeg", false, Range.SEPARATION),
-        c.number("moonSeparationMinDeg", false, Range.SEPARATION),
-        c.number("earthLimbMinDeg", false, Range.closed(-90, 180)),
-        elMin,
-        elMax,
-        c.number("sunElevationMaxDeg", false, Range.ELEVATION),
-        c.bool("targetSunlitRequired", false));
   }
 
   private Pointing startPointing(Fields top, ObserverKind kind, SlewSettings slew) {

@@ -3,6 +3,8 @@ package dev.sequencer.io;
 import com.fasterxml.jackson.databind.node.ArrayNode;
 import com.fasterxml.jackson.databind.node.ObjectNode;
 import dev.sequencer.model.AzElPointing;
+import dev.sequencer.model.ConstraintField;
+import dev.sequencer.model.ConstraintOverrides;
 import dev.sequencer.model.Constraints;
 import dev.sequencer.model.EarthPoint;
 import dev.sequencer.model.GroundSite;
@@ -25,7 +27,7 @@ import java.util.List;
 /**
  * Writes a scenario as format-1 JSON in the spec's field order, so that {@link ScenarioReader} gives an
  * equal scenario back. Absent parts ({@code null} name, observer, start pointing, solver; no
- * constraints; no windows; {@code required} false) are omitted. It does not validate.
+ * constraints; no windows; {@code required} false; no constraints of a request's own) are omitted. It does not validate.
  */
 public final class ScenarioWriter {
   private ScenarioWriter() {}
@@ -106,21 +108,30 @@ public final class ScenarioWriter {
 
   private static ObjectNode constraints(Constraints c) {
     ObjectNode o = JsonOut.NODES.objectNode();
-    putIfPresent(o, "sunSeparationMinDeg", c.sunSeparationMinDeg());
-    putIfPresent(o, "moonSeparationMinDeg", c.moonSeparationMinDeg());
-    putIfPresent(o, "earthLimbMinDeg", c.earthLimbMinDeg());
-    putIfPresent(o, "elevationMinDeg", c.elevationMinDeg());
-    putIfPresent(o, "elevationMaxDeg", c.elevationMaxDeg());
-    putIfPresent(o, "sunElevationMaxDeg", c.sunElevationMaxDeg());
-    if (c.targetSunlitRequired() != null) {
-      o.put("targetSunlitRequired", c.targetSunlitRequired());
+    for (ConstraintField f : ConstraintField.values()) {
+      put(o, f, f.valueIn(c));
     }
     return o;
   }
 
-  private static void putIfPresent(ObjectNode o, String name, Double v) {
-    if (v != null) {
-      o.set(name, JsonOut.number(v));
+  /** A request's own constraints: the fields it gives, and each field it removes as {@code null}. */
+  private static ObjectNode constraints(ConstraintOverrides own) {
+    ObjectNode o = JsonOut.NODES.objectNode();
+    for (ConstraintField f : ConstraintField.values()) {
+      if (own.removed().contains(f)) {
+        o.putNull(f.key());
+      } else {
+        put(o, f, f.valueIn(own.given()));
+      }
+    }
+    return o;
+  }
+
+  private static void put(ObjectNode o, ConstraintField f, Object v) {
+    if (v instanceof Boolean b) {
+      o.put(f.key(), b);
+    } else if (v instanceof Double d) {
+      o.set(f.key(), JsonOut.number(d));
     }
   }
 
@@ -204,6 +215,9 @@ public final class ScenarioWriter {
     }
     if (!r.windows().isEmpty()) {
       o.set("windows", windows(r.windows()));
+    }
+    if (!r.constraints().isEmpty()) {
+      o.set("constraints", constraints(r.constraints()));
     }
     return o;
   }

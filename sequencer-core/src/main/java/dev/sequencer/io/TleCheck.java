@@ -3,7 +3,6 @@ package dev.sequencer.io;
 import com.fasterxml.jackson.databind.JsonNode;
 import dev.sequencer.model.TimeWindow;
 import dev.sequencer.model.Tle;
-import java.time.Duration;
 import java.time.Instant;
 import java.time.LocalDate;
 import java.time.ZoneOffset;
@@ -11,14 +10,10 @@ import java.time.ZoneOffset;
 /**
  * Checks a two-line element set as written in a file: two 69-character lines numbered 1 and 2, each
  * with a valid checksum (column 69: the sum of the digits in columns 1-68, a '-' counting 1, modulo 10),
+ * every field readable and in range ({@link TleFields}, which also runs Orekit's format check and parser),
  * the same satellite number on both lines, and an epoch near the horizon.
  */
 final class TleCheck {
-  /** Beyond this many days between the epoch and the horizon the TLE is surely the wrong one: error. */
-  static final double MAX_EPOCH_DISTANCE_DAYS = 3650;
-  /** Beyond this many days SGP4 predictions are poor (kilometres of error): warning. */
-  static final double WARN_EPOCH_DISTANCE_DAYS = 30;
-
   private TleCheck() {}
 
   /** The TLE at {@code path}, or null after reporting; {@code horizon} may be null (then no epoch check). */
@@ -33,11 +28,17 @@ final class TleCheck {
     for (int k = 0; k < 2; k++) {
       shaped &= checkLine(lines[k], k + 1, path + "[" + k + "]", p);
     }
+    if (shaped && p.count() == before) {
+      shaped = TleFields.check(lines, path, p);
+    }
     if (shaped) {
       String sat1 = lines[0].substring(2, 7);
       String sat2 = lines[1].substring(2, 7);
       if (!sat1.equals(sat2)) {
         p.add(path + "[1]", "satellite number \"" + sat2 + "\" differs from line 1's \"" + sat1 + "\"", lines[1]);
+      }
+      if (p.count() == before) {
+        TleFields.checkWithOrekit(lines, path, p);
       }
       checkEpoch(lines[0], path + "[0]", p, horizon);
     }
@@ -101,20 +102,6 @@ final class TleCheck {
       p.add(path, "epoch \"" + line1.substring(18, 32) + "\" (columns 19-32) is not a year and day of year", line1);
       return;
     }
-    if (horizon == null) {
-      return;
-    }
-    Duration gap =
-        epoch.isBefore(horizon.start())
-            ? Duration.between(epoch, horizon.start())
-            : epoch.isAfter(horizon.end()) ? Duration.between(horizon.end(), epoch) : Duration.ZERO;
-    double days = gap.toMillis() / 86_400_000.0;
-    String side = epoch.isBefore(horizon.start()) ? "before the horizon start" : "after the horizon end";
-    String text = String.format(java.util.Locale.ROOT, "epoch %s is %.1f days %s", epoch, days, side);
-    if (days > MAX_EPOCH_DISTANCE_DAYS) {
-      p.add(path, text + "; more than " + Range.num(MAX_EPOCH_DISTANCE_DAYS) + " days is surely the wrong TLE", line1);
-    } else if (days > WARN_EPOCH_DISTANCE_DAYS) {
-      p.warn(path, text + "; SGP4 predictions this far from the epoch are poor");
-    }
+    Epochs.check(epoch, horizon, path, line1, p, "TLE", "SGP4 predictions this far from the epoch are poor");
   }
 }

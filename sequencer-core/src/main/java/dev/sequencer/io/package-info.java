@@ -7,6 +7,7 @@
  * <p>Readers check every rule of the format and report all problems at once in a
  * {@link dev.sequencer.io.ScenarioException}, each with a field path such as
  * {@code requests[3] (id "R4").durationS}. Writers are byte-stable (same model, same bytes), write
- * what the readers read back as an equal model, and replace files atomically. Depends on {@code model}.
+ * what the readers read back as an equal model, and replace files atomically. Depends on {@code model}
+ * (and on Orekit's TLE format check and parser, so that a TLE accepted here is one Orekit reads).
  */
 package dev.sequencer.io;

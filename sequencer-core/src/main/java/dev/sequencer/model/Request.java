@@ -9,7 +9,9 @@ import java.util.Objects;
  * <p>A fixed request has {@code durationS} (0 is a pure waypoint) and {@code priority}; a flexible
  * request has {@code flexible} instead and both of those are {@code null}. {@code target} is
  * {@code null} only when the scenario has no observer. {@code windows} is empty when the file gives none
- * (then only the computed visibility limits the request).
+ * (then only the computed visibility limits the request). {@code constraints} holds the request's own
+ * constraint fields, applied over the scenario's by {@link Scenario#constraintsFor}; never null
+ * ({@link ConstraintOverrides#none()} when the file gives none).
  */
 public record Request(
     String id,
@@ -18,27 +20,40 @@ public record Request(
     Double priority,
     boolean required,
     List<TimeWindow> windows,
-    FlexibleExposure flexible) {
+    FlexibleExposure flexible,
+    ConstraintOverrides constraints) {
   public Request {
     Objects.requireNonNull(id, "id");
     Checks.finiteOrNull("durationS", durationS);
     Checks.finiteOrNull("priority", priority);
     windows = List.copyOf(windows);
+    constraints = constraints == null ? ConstraintOverrides.none() : constraints;
+  }
+
+  /** A request with no constraints of its own (it inherits the scenario's). */
+  public Request(String id, Target target, Double durationS, Double priority, boolean required,
+      List<TimeWindow> windows, FlexibleExposure flexible) {
+    this(id, target, durationS, priority, required, windows, flexible, ConstraintOverrides.none());
   }
 
   /** A fixed-duration request with no explicit windows. */
   public static Request of(String id, Target target, double durationS, double priority) {
-    return new Request(id, target, durationS, priority, false, List.of(), null);
+    return new Request(id, target, durationS, priority, false, List.of(), null, ConstraintOverrides.none());
   }
 
   /** A copy with these allowed windows. */
   public Request withWindows(List<TimeWindow> newWindows) {
-    return new Request(id, target, durationS, priority, required, newWindows, flexible);
+    return new Request(id, target, durationS, priority, required, newWindows, flexible, constraints);
   }
 
   /** A copy with the required flag set. */
   public Request withRequired(boolean newRequired) {
-    return new Request(id, target, durationS, priority, newRequired, windows, flexible);
+    return new Request(id, target, durationS, priority, newRequired, windows, flexible, constraints);
+  }
+
+  /** A copy with these constraint fields of its own. */
+  public Request withConstraints(ConstraintOverrides newConstraints) {
+    return new Request(id, target, durationS, priority, required, windows, flexible, newConstraints);
   }
 
   /** True for the flexible-exposure extension. */

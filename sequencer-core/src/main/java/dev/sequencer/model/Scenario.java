@@ -34,6 +34,14 @@ public record Scenario(
     return solver == null ? SolverSettings.defaults() : solver;
   }
 
+  /**
+   * The constraints that apply to {@code r}: the scenario's, with the request's own fields replacing
+   * (or removing) the matching ones.
+   */
+  public Constraints constraintsFor(Request r) {
+    return constraints.overriddenBy(r.constraints());
+  }
+
   /** The request with this id, if any. */
   public Optional<Request> request(String id) {
     return requests.stream().filter(r -> r.id().equals(id)).findFirst();

@@ -69,12 +69,16 @@ final class EigenaxisTransitions implements Transitions {
     });
   }
 
-  /** True unless every line of sight (and the start's) is still: then the legs depend on no time. */
+  /**
+   * True unless every line of sight (and the start's) is still: then the legs depend on no time. A still
+   * track's rate bound is 0 on any interval, a moving one's is positive on every interval, so the bound at
+   * the horizon start is asked (asking over decades made a numerically propagated orbit integrate them).
+   */
   @Override
   public boolean timeDependent() {
-    if (start != null && start.maxAngularRateDegPerS(0, 1e9) != 0) {
+    if (start != null && start.maxAngularRateDegPerS(0, 0) != 0) {
       return true;
     }
-    return tracks.stream().anyMatch(t -> t.maxAngularRateDegPerS(0, 1e9) != 0);
+    return tracks.stream().anyMatch(t -> t.maxAngularRateDegPerS(0, 0) != 0);
   }
 }

@@ -18,25 +18,41 @@ import java.util.List;
 import java.util.Locale;
 import java.util.Map;
 import org.hipparchus.geometry.euclidean.threed.Vector3D;
+import org.hipparchus.ode.nonstiff.DormandPrince853Integrator;
 import org.hipparchus.util.FastMath;
+import org.orekit.attitudes.FrameAlignedProvider;
 import org.orekit.bodies.GeodeticPoint;
+import org.orekit.forces.gravity.HolmesFeatherstoneAttractionModel;
+import org.orekit.forces.gravity.potential.GravityFieldFactory;
+import org.orekit.forces.gravity.potential.TideSystem;
+import org.orekit.forces.gravity.potential.UnnormalizedSphericalHarmonicsProvider;
 import org.orekit.frames.Frame;
 import org.orekit.frames.TopocentricFrame;
 import org.orekit.orbits.KeplerianOrbit;
+import org.orekit.orbits.OrbitType;
 import org.orekit.orbits.PositionAngleType;
 import org.orekit.propagation.Propagator;
-import org.orekit.propagation.analytical.BrouwerLyddanePropagator;
+import org.orekit.propagation.EphemerisGenerator;
+import org.orekit.propagation.SpacecraftState;
+import org.orekit.propagation.ToleranceProvider;
+import org.orekit.propagation.numerical.NumericalPropagator;
 import org.orekit.propagation.analytical.tle.TLE;
 import org.orekit.propagation.analytical.tle.TLEPropagator;
 import org.orekit.time.AbsoluteDate;
-import org.orekit.utils.Constants;
+import org.orekit.time.TimeScalarFunction;
+import org.orekit.utils.IERSConventions;
 
 /**
  * Re-checks every constraint of the scenario from the physics at the observation's own instants: the
  * start, the end and every {@link #STEP_S} seconds between. Written apart from the visibility engine on
  * purpose (no shared code, no grid, no interpolation, no root finding): each instant is a direct Orekit
- * evaluation (topocentric frames, propagators, the context's Sun and Moon), with the scenario format's
- * definitions of each constraint.
+ * evaluation (topocentric frames, propagators, the context's Sun and Moon, Orekit's sidereal time and
+ * true-of-date frame for the hour angle), with the scenario format's definitions of each constraint and
+ * each request's own constraints applied over the scenario's.
+ *
+ * <p>Every margin is in degrees: airmass as degrees of elevation (the airmass shortfall divided by its
+ * slope), hour angle as degrees of hour angle (15° per hour), Moon illumination as degrees of phase
+ * angle beyond the one where the illuminated fraction reaches its limit (when the Moon is up).
  *
  * <p>Tolerance: a margin may be below its limit by {@link #TOLERANCE_DEG} (0.01°) plus 0.1 s times the
  * margin's rate of change (measured between samples): the visibility windows' edges are accurate to about
@@ -56,17 +72,20 @@ public final class PhysicsOracle implements ObservabilityOracle {
 
   private final AstroContext ctx;
   private final Scenario scenario;
-  private final Constraints c;
   private final Frame gcrf;
   private final TopocentricFrame site;
   private final Propagator orbit;
+  /** Greenwich apparent sidereal time, radians (Orekit, IERS 2010; UT1 from the context's EOP, if any). */
+  private final TimeScalarFunction gast;
   private final Map<String, Object> targetCache = new HashMap<>();
 
   public PhysicsOracle(Scenario scenario, AstroContext ctx) {
     this.ctx = ctx;
     this.scenario = scenario;
-    this.c = scenario.constraints();
     this.gcrf = ctx.inertial();
+    this.gast = IERSConventions.IERS_2010.getGASTFunction(
+        ctx.timeScales().getUT1(IERSConventions.IERS_2010, true),
+        ctx.dataContext().getFrames().getEOPHistory(IERSConventions.IERS_2010, true), ctx.timeScales());
     if (scenario.observer() instanceof GroundSite g) {
       site = new TopocentricFrame(ctx.earth(), new GeodeticPoint(FastMath.toRadians(g.latitudeDeg()),
           FastMath.toRadians(g.longitudeDeg()), g.altitudeM()), "site");
@@ -111,6 +130,7 @@ public final class PhysicsOracle implements ObservabilityOracle {
 
   /** Each applicable constraint's margin in degrees (>= 0 when it holds), by name. */
   private Map<String, Double> margins(Request r, AbsoluteDate t) {
+    Constraints c = scenario.constraintsFor(r);
     Map<String, Double> m = new HashMap<>();
     Vector3D obs = site != null ? site.getPosition(t, gcrf) : orbit.getPosition(t, gcrf);
     Vector3D target = targetPosition(r, t); // null for a direction
@@ -124,27 +144,21 @@ public final class PhysicsOracle implements ObservabilityOracle {
       m.put("Moon separation", FastMath.toDegrees(Vector3D.angle(los, moon.subtract(obs))) - c.moonSeparationMinDeg());
     }
     if (site != null) {
-      GroundSite g = (GroundSite) scenario.observer();
-      Vector3D farPoint = obs.add(1e12, los); // a point along the line of sight, far beyond the site
-      double el = FastMath.toDegrees(site.getElevation(farPoint, gcrf, t));
-      double az = FastMath.toDegrees(site.getAzimuth(farPoint, gcrf, t));
-      double floor = g.horizonMask().isEmpty()
-          ? (c.elevationMinDeg() != null ? c.elevationMinDeg() : 0.0)
-          : (c.elevationMinDeg() != null ? Math.max(c.elevationMinDeg(), g.maskElevationDeg(az)) : g.maskElevationDeg(az));
-      m.put("elevation", el - floor);
-      if (c.elevationMaxDeg() != null) {
-        m.put("elevation max", c.elevationMaxDeg() - el);
-      }
-      if (c.sunElevationMaxDeg() != null) {
-        m.put("darkness", c.sunElevationMaxDeg() - FastMath.toDegrees(site.getElevation(sun, gcrf, t)));
-      }
+      siteMargins(m, c, r, t, obs, los, sun, moon);
     } else if (r.target() instanceof EarthPoint ep) {
       TopocentricFrame point = new TopocentricFrame(ctx.earth(), new GeodeticPoint(
           FastMath.toRadians(ep.latitudeDeg()), FastMath.toRadians(ep.longitudeDeg()), ep.altitudeM()), "point");
       double elMin = c.elevationMinDeg() != null ? c.elevationMinDeg() : 0.0;
       m.put("elevation", FastMath.toDegrees(point.getElevation(obs, gcrf, t)) - elMin);
+      double sunEl = FastMath.toDegrees(point.getElevation(sun, gcrf, t));
       if (c.sunElevationMaxDeg() != null) {
-        m.put("darkness", c.sunElevationMaxDeg() - FastMath.toDegrees(point.getElevation(sun, gcrf, t)));
+        m.put("darkness", c.sunElevationMaxDeg() - sunEl);
+      }
+      if (c.sunElevationMinDeg() != null) {
+        m.put("daylight", sunEl - c.sunElevationMinDeg());
+      }
+      if (c.offNadirMaxDeg() != null) {
+        m.put("off-nadir", c.offNadirMaxDeg() - FastMath.toDegrees(Vector3D.angle(los, obs.negate())));
       }
     } else if (c.earthLimbMinDeg() != null) {
       double limb = Vector3D.angle(los, obs.negate()) - FastMath.asin(EARTH_RADIUS_M / obs.getNorm());
@@ -157,6 +171,79 @@ public final class PhysicsOracle implements ObservabilityOracle {
       m.put("target sunlit", FastMath.toDegrees(Vector3D.angle(toEarth, toSun) - umbra));
     }
     return m;
+  }
+
+  /** The margins that apply at a ground site. */
+  private void siteMargins(Map<String, Double> m, Constraints c, Request r, AbsoluteDate t, Vector3D obs,
+      Vector3D los, Vector3D sun, Vector3D moon) {
+    GroundSite g = (GroundSite) scenario.observer();
+    Vector3D farPoint = obs.add(1e12, los); // a point along the line of sight, far beyond the site
+    // The target elevation the elevation limits, the mask and the airmass use (geometric until the
+    // refracted elevation of the format's A1 is available).
+    double el = FastMath.toDegrees(site.getElevation(farPoint, gcrf, t));
+    double az = FastMath.toDegrees(site.getAzimuth(farPoint, gcrf, t));
+    double floor = g.horizonMask().isEmpty()
+        ? (c.elevationMinDeg() != null ? c.elevationMinDeg() : 0.0)
+        : (c.elevationMinDeg() != null ? Math.max(c.elevationMinDeg(), g.maskElevationDeg(az)) : g.maskElevationDeg(az));
+    m.put("elevation", el - floor);
+    if (c.elevationMaxDeg() != null) {
+      m.put("elevation max", c.elevationMaxDeg() - el);
+    }
+    if (c.airmassMax() != null) {
+      m.put("airmass", airmassMarginDeg(el, c.airmassMax()));
+    }
+    double sunEl = FastMath.toDegrees(site.getElevation(sun, gcrf, t));
+    if (c.sunElevationMaxDeg() != null) {
+      m.put("darkness", c.sunElevationMaxDeg() - sunEl);
+    }
+    if (c.sunElevationMinDeg() != null) {
+      m.put("daylight", sunEl - c.sunElevationMinDeg());
+    }
+    double moonEl = FastMath.toDegrees(site.getElevation(moon, gcrf, t));
+    if (c.moonElevationMaxDeg() != null) {
+      m.put("Moon elevation", c.moonElevationMaxDeg() - moonEl);
+    }
+    if (c.moonIlluminationMax() != null) {
+      // Holds when the Moon is down, or when k = (1 + cos i) / 2 <= max, i.e. i >= acos(2 max - 1).
+      double phaseDeg = FastMath.toDegrees(Vector3D.angle(sun.subtract(moon), moon.negate()));
+      double minPhaseDeg = FastMath.toDegrees(FastMath.acos(2 * c.moonIlluminationMax() - 1));
+      m.put("Moon illumination", Math.max(-moonEl, phaseDeg - minPhaseDeg));
+    }
+    if (r.target() instanceof RaDec rd && (c.hourAngleMinH() != null || c.hourAngleMaxH() != null)) {
+      double ha = hourAngleH(rd, t, g.longitudeDeg());
+      double min = c.hourAngleMinH() != null ? c.hourAngleMinH() : -12.0;
+      double max = c.hourAngleMaxH() != null ? c.hourAngleMaxH() : 12.0;
+      m.put("hour angle", 15 * Math.min(ha - min, max - ha)); // degrees of hour angle
+    }
+  }
+
+  /**
+   * The spec's airmass (Kasten and Young 1989) against its limit, as degrees of elevation to first order:
+   * (max - X(h)) / |dX/dh|; at or below the horizon, the elevation itself (the rule h > 0).
+   */
+  static double airmassMarginDeg(double elevationDeg, double airmassMax) {
+    if (elevationDeg <= 0) {
+      return elevationDeg;
+    }
+    double x = kastenYoung(elevationDeg);
+    double slopePerDeg = Math.abs(kastenYoung(elevationDeg + 1e-4) - kastenYoung(elevationDeg - 1e-4)) / 2e-4;
+    return (airmassMax - x) / Math.max(slopePerDeg, 1e-9);
+  }
+
+  private static double kastenYoung(double hDeg) {
+    return 1 / (FastMath.sin(FastMath.toRadians(hDeg)) + 0.50572 * FastMath.pow(hDeg + 6.07995, -1.6364));
+  }
+
+  /**
+   * Local hour angle in hours, wrapped to [-12, 12): GAST + east longitude - right ascension on the true
+   * equator and equinox of date (Orekit's TOD frame).
+   */
+  private double hourAngleH(RaDec rd, AbsoluteDate t, double longitudeDeg) {
+    Vector3D ofDate = gcrf.getStaticTransformTo(ctx.dataContext().getFrames().getTOD(IERSConventions.IERS_2010, true), t)
+        .transformVector(direction(rd));
+    double haDeg = FastMath.toDegrees(gast.value(t)) + longitudeDeg - FastMath.toDegrees(ofDate.getAlpha());
+    double h = haDeg / 15.0;
+    return h - 24.0 * Math.floor((h + 12.0) / 24.0);
   }
 
   private Vector3D targetPosition(Request r, AbsoluteDate t) {
@@ -177,19 +264,34 @@ public final class PhysicsOracle implements ObservabilityOracle {
     return new Vector3D(FastMath.toRadians(rd.raDeg()), FastMath.toRadians(rd.decDeg()));
   }
 
-  /** TLE: SGP4/SDP4; Keplerian: Brouwer-Lyddane with EIGEN-5C zonal terms (the model the format's docs name). */
+  /**
+   * TLE: SGP4/SDP4. Keplerian: the format's reference motion (A1) set up here on its own: Orekit's numerical
+   * propagator with the Holmes-Featherstone model of a J2-only field (EGM96 mu, R, J2) about the Earth-fixed
+   * axes, Dormand-Prince 8(5,3) at 1 mm, its dense output kept over the horizon and an hour either side.
+   */
   private Propagator propagator(OrbitObserver o) {
     if (o.orbit() instanceof Tle tle) {
       return TLEPropagator.selectExtrapolator(new TLE(tle.line1(), tle.line2(), ctx.utc()),
           ctx.dataContext().getFrames().getTEME());
     }
     KeplerianElements k = (KeplerianElements) o.orbit();
+    double mu = 398600.4418e9;
     KeplerianOrbit orb = new KeplerianOrbit(k.semiMajorAxisKm() * 1000.0, k.eccentricity(),
         FastMath.toRadians(k.inclinationDeg()), FastMath.toRadians(k.argumentOfPerigeeDeg()),
         FastMath.toRadians(k.raanDeg()), FastMath.toRadians(k.meanAnomalyDeg()), PositionAngleType.MEAN,
-        ctx.dataContext().getFrames().getEME2000(), ctx.date(k.epoch()), Constants.EIGEN5C_EARTH_MU);
-    return new BrouwerLyddanePropagator(orb, Constants.EIGEN5C_EARTH_EQUATORIAL_RADIUS, Constants.EIGEN5C_EARTH_MU,
-        Constants.EIGEN5C_EARTH_C20, Constants.EIGEN5C_EARTH_C30, Constants.EIGEN5C_EARTH_C40,
-        Constants.EIGEN5C_EARTH_C50, BrouwerLyddanePropagator.M2);
+        ctx.dataContext().getFrames().getEME2000(), ctx.date(k.epoch()), mu);
+    UnnormalizedSphericalHarmonicsProvider j2Only = GravityFieldFactory.getUnnormalizedProvider(6_378_136.3, mu,
+        TideSystem.UNKNOWN, new double[][] {{0}, {0, 0}, {-1.0826267e-3, 0, 0}}, new double[][] {{0}, {0, 0}, {0, 0, 0}});
+    double[][] tolerances = ToleranceProvider.getDefaultToleranceProvider(1e-3).getTolerances(orb, OrbitType.CARTESIAN);
+    NumericalPropagator numerical = new NumericalPropagator(
+        new DormandPrince853Integrator(1e-3, 300, tolerances[0], tolerances[1]), new FrameAlignedProvider(gcrf));
+    numerical.setOrbitType(OrbitType.CARTESIAN);
+    numerical.addForceModel(new HolmesFeatherstoneAttractionModel(ctx.earthFixed(),
+        GravityFieldFactory.getNormalizedProvider(j2Only)));
+    numerical.setInitialState(new SpacecraftState(orb));
+    EphemerisGenerator ephemeris = numerical.getEphemerisGenerator();
+    numerical.propagate(ctx.date(scenario.horizon().start()).shiftedBy(-3600),
+        ctx.date(scenario.horizon().end()).shiftedBy(3600));
+    return ephemeris.getGeneratedEphemeris();
   }
 }

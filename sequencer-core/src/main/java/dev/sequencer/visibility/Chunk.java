@@ -6,7 +6,7 @@ import org.hipparchus.geometry.euclidean.threed.Vector3D;
 import org.orekit.bodies.GeodeticPoint;
 import org.orekit.frames.Frame;
 import org.orekit.frames.StaticTransform;
-import org.orekit.propagation.Propagator;
+import org.orekit.utils.PVCoordinatesProvider;
 import org.orekit.time.AbsoluteDate;
 
 /**
@@ -65,7 +65,7 @@ final class Chunk {
       double t1S,
       double maxStepS,
       GroundSite site,
-      Propagator orbitObserver,
+      PVCoordinatesProvider orbitObserver,
       boolean needTeme) {
     int n = Math.max(2, (int) Math.ceil((t1S - t0S) / maxStepS - 1e-9) + 1);
     double stepS = (t1S - t0S) / (n - 1);

@@ -16,6 +16,7 @@ import org.orekit.propagation.analytical.tle.TLE;
 import org.orekit.propagation.analytical.tle.TLEPropagator;
 import org.orekit.time.AbsoluteDate;
 import org.orekit.utils.Constants;
+import org.orekit.utils.PVCoordinatesProvider;
 
 /**
  * Pointing tracks of moving lines of sight: an orbiting object (TLE) seen from a ground site, and a point
@@ -56,7 +57,7 @@ final class MovingTracks {
   }
 
   /** A point on the Earth seen from an orbit observer (eigenaxis mounts). */
-  static PointingTrack pointFromOrbit(EarthPoint point, Propagator observer, double observerPerigeeRadiusM,
+  static PointingTrack pointFromOrbit(EarthPoint point, PVCoordinatesProvider observer, double observerPerigeeRadiusM,
       double observerPerigeeSpeed, AstroContext ctx, AbsoluteDate origin) {
     Vector3D pointItrf = ctx.earth().transform(new GeodeticPoint(
         Math.toRadians(point.latitudeDeg()), Math.toRadians(point.longitudeDeg()), point.altitudeM()));

@@ -11,7 +11,7 @@ import dev.sequencer.model.OrbitObserver;
 import dev.sequencer.model.OrbitingTarget;
 import dev.sequencer.model.Request;
 import dev.sequencer.model.Target;
-import org.orekit.propagation.Propagator;
+import org.orekit.utils.PVCoordinatesProvider;
 import dev.sequencer.model.Scenario;
 import dev.sequencer.slew.PointingTrack;
 import java.util.ArrayList;
@@ -41,11 +41,11 @@ public final class PointingTracks {
     List<PointingTrack> out = new ArrayList<>();
     AbsoluteDate origin = ctx.date(scenario.horizon().start());
     GroundSite site = scenario.observer() instanceof GroundSite g ? g : null;
-    Propagator orbit = null;
+    PVCoordinatesProvider orbit = null;
     double perigeeRadius = 0;
     double perigeeSpeed = 0;
     if (scenario.observer() instanceof OrbitObserver o) {
-      orbit = Observers.propagator(o, ctx);
+      orbit = Observers.motion(o, ctx, origin, ctx.date(scenario.horizon().end()));
       double[] rv = Observers.perigeeRadiusAndSpeed(o, ctx);
       perigeeRadius = rv[0];
       perigeeSpeed = rv[1];

@@ -15,9 +15,12 @@ import org.hipparchus.analysis.solvers.BracketingNthOrderBrentSolver;
  * <p>Between two samples of the same sign the margin may still cross zero and come back. With a slope
  * bound L (degrees per second), the margin between samples a and b cannot rise above
  * (g(a) + g(b))/2 + L (b - a)/2 nor fall below (g(a) + g(b))/2 - L (b - a)/2; when that tent reaches
- * zero the segment is halved, down to {@link #MIN_SPLIT_S}. L is estimated per chunk from the sampled
- * slopes with a safety factor of 2; it is an estimate, not a proof, which is why the grid step itself
- * already guarantees that no window or gap longer than the step is missed.
+ * zero the segment is halved, down to {@link #MIN_SPLIT_S}. When the constraint comes with a proven rate
+ * bound (the Sun's and the Moon's elevation, the Moon's phase, the hour angle) L is that bound (or the
+ * largest sampled slope if larger), and the test is a proof: no window or gap longer than
+ * {@link #MIN_SPLIT_S} is missed. Otherwise L is estimated per chunk from the sampled slopes with a
+ * safety factor of 2; it is an estimate, not a proof, which is why the grid step itself already
+ * guarantees that no window or gap longer than the step is missed.
  */
 final class RootScan {
   /** Absolute accuracy of a refined edge, seconds. */
@@ -36,19 +39,21 @@ final class RootScan {
    * @param times sample times, increasing
    * @param values margin at the samples
    * @param g the margin at any time of the chunk (interpolated state)
+   * @param maxRate a proven bound on |dg/dt| (per second), or NaN when none is known
    */
-  List<double[]> positive(double[] times, double[] values, DoubleUnaryOperator g) {
+  List<double[]> positive(double[] times, double[] values, DoubleUnaryOperator g, double maxRate) {
     int n = times.length;
-    double slope = MIN_SLOPE_DEG_PER_S;
+    double sampled = MIN_SLOPE_DEG_PER_S;
     for (int k = 0; k + 1 < n; k++) {
       double s = Math.abs(values[k + 1] - values[k]) / (times[k + 1] - times[k]);
-      if (s > slope && Double.isFinite(s)) {
-        slope = s;
+      if (s > sampled && Double.isFinite(s)) {
+        sampled = s;
       }
     }
+    double slope = Double.isNaN(maxRate) ? 2.0 * sampled : Math.max(maxRate, sampled);
     Collector out = new Collector(values[0] >= 0, times[0]);
     for (int k = 0; k + 1 < n; k++) {
-      segment(times[k], values[k], times[k + 1], values[k + 1], 2.0 * slope, g, out);
+      segment(times[k], values[k], times[k + 1], values[k + 1], slope, g, out);
     }
     if (out.inside) {
       out.list.add(new double[] {out.start, times[n - 1]});

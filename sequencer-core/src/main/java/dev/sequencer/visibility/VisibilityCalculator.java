@@ -15,7 +15,7 @@ import java.util.Map;
 import java.util.concurrent.ExecutionException;
 import java.util.concurrent.ForkJoinPool;
 import java.util.stream.IntStream;
-import org.orekit.propagation.Propagator;
+import org.orekit.utils.PVCoordinatesProvider;
 import org.orekit.time.AbsoluteDate;
 
 /**
@@ -28,7 +28,8 @@ import org.orekit.time.AbsoluteDate;
  *
  * <p>Step: a window or gap longer than the grid step always contains a sample, so with the default
  * 30 s step no window or gap of 30 s or more can be missed, whatever the angular rates; shorter ones
- * are caught by the slope check of {@link RootScan} when the estimated slope allows. Interpolation of
+ * are caught by the slope check of {@link RootScan} when the estimated slope allows, and always (down to
+ * 1 s) for the constraints with a proven rate bound (Sun and Moon elevation, Moon phase, hour angle). Interpolation of
  * the sampled state is cubic (see {@link SampledVectors}): at 30 s its error is below a metre for a LEO
  * orbit, far below the 0.1 s edge accuracy.
  *
@@ -103,7 +104,8 @@ public final class VisibilityCalculator {
       return out;
     }
     GroundSite site = scenario.observer() instanceof GroundSite g ? g : null;
-    Propagator orbit = scenario.observer() instanceof OrbitObserver o ? Observers.propagator(o, ctx) : null;
+    PVCoordinatesProvider orbit = scenario.observer() instanceof OrbitObserver o
+        ? Observers.motion(o, ctx, origin, origin.shiftedBy(horizonS)) : null;
     List<TargetTrack> tracks = new ArrayList<>(n);
     List<List<ConstraintFunction>> functions = new ArrayList<>(n);
     boolean needTeme = false;
@@ -111,7 +113,7 @@ public final class VisibilityCalculator {
       TargetTrack t = TargetTrack.of(r.target(), ctx);
       tracks.add(t);
       needTeme |= t.needsTeme();
-      functions.add(ConstraintFunction.forTarget(scenario.constraints(), site, r.target()));
+      functions.add(ConstraintFunction.forTarget(scenario.constraintsFor(r), site, r.target()));
     }
     double[] siteEnu = site == null ? null : SiteFrame.enuItrf(site);
     List<List<double[]>> windows = new ArrayList<>(n);
@@ -193,7 +195,7 @@ public final class VisibilityCalculator {
       List<double[]> ok = scan.positive(times, values[c], t -> {
         load(chunk, -1, t, teme, track, siteEnu, s);
         return f.margin().applyAsDouble(s);
-      });
+      }, f.maxRateDegPerS());
       satisfied.merge(f.name(), Intervals.total(ok), Double::sum);
       result = Intervals.intersect(result, ok);
     }

@@ -5,6 +5,7 @@ import static dev.sequencer.io.Docs.base;
 import static dev.sequencer.io.Docs.problems;
 import static dev.sequencer.io.Docs.read;
 import static dev.sequencer.io.Docs.request;
+import static dev.sequencer.io.Docs.requests;
 import static dev.sequencer.io.Docs.tree;
 import static org.junit.jupiter.api.Assertions.assertEquals;
 import static org.junit.jupiter.api.Assertions.assertTrue;
@@ -61,6 +62,66 @@ class OrbitAndFlexibleRulesTest {
     String other = TestTles.tle(90008, Docs.HORIZON_START).get(1);
     sat7Lines(doc).set(1, other);
     assertEquals("satellite number \"90008\" differs from line 1's \"90007\"", at(problems(doc), SAT7 + "[1]").message());
+  }
+
+  @Test
+  void aLetterOTypedForAZeroNamesTheFieldAtInputTime() {
+    // Issue 15: "2O0.1234" for "200.1234" keeps the checksum ('O' counts 0 like '0') and used to fail
+    // later inside Orekit (NumberFormatException, exit 3).
+    ObjectNode doc = base();
+    String line = sat7Lines(doc).get(1).textValue();
+    assertEquals("200.1234", line.substring(43, 51)); // TestTles: mean anomaly 200.1234, columns 44-51
+    String typo = line.substring(0, 44) + "O" + line.substring(45);
+    assertEquals(TleCheck.checksum(line), TleCheck.checksum(typo));
+    sat7Lines(doc).set(1, typo);
+    assertEquals("mean anomaly (columns 44-51) must look like \"200.1234\" (was \"2O0.1234\"); is the letter O "
+        + "written for the digit 0?", at(problems(doc), SAT7 + "[1]").message());
+  }
+
+  @Test
+  void outOfRangeOrbitalElementsOfATleAreRefused() {
+    assertEquals("inclination (columns 9-16) must be in [0, 180] (was 197.5000)",
+        tleProblem(197.5, 123.4567, 12345, 14.12345678));
+    assertEquals("right ascension of the ascending node (columns 18-25) must be in [0, 360) (was 400.0000)",
+        tleProblem(98.0, 400.0, 12345, 14.12345678));
+    assertEquals("mean motion (revolutions per day) (columns 53-63) must be > 0 (was 0.00000000)",
+        tleProblem(98.0, 123.4567, 12345, 0.0));
+    // 17.5 rev/day: a = (398600.8 / n^2)^(1/3) = 6267.2 km (Kepler's third law, SGP4's WGS-72 mu), perigee
+    // a (1 - e) = 6259.5 km, below the surface.
+    assertTrue(tleProblem(98.0, 123.4567, 12345, 17.5).startsWith("mean motion 17.50000000 rev/day and eccentricity "
+        + "0.0012345 put the perigee at 6259 km from the Earth's centre, inside the Earth"));
+  }
+
+  @Test
+  void aSeparatorColumnMustBeASpace() {
+    ObjectNode doc = base();
+    String line = sat7Lines(doc).get(1).textValue();
+    sat7Lines(doc).set(1, line.substring(0, 16) + "0" + line.substring(17, 68)
+        + TleCheck.checksum(line.substring(0, 16) + "0" + line.substring(17)));
+    assertEquals("column 17 must be a space (was '0')", at(problems(doc), SAT7 + "[1]").message());
+  }
+
+  @Test
+  void tlesWrittenByOrekitPassTheFieldChecks() {
+    // Orekit's own writer (TLE.getLine1/2) is the reference layout: its lines must pass every check.
+    org.orekit.time.TimeScale utc = dev.sequencer.astro.AstroContext.offline().utc();
+    for (double inc : new double[] {0, 51.6, 98.7, 180}) {
+      org.orekit.propagation.analytical.tle.TLE t = new org.orekit.propagation.analytical.tle.TLE(90100, 'U', 2031,
+          5, "B", 0, 42, new org.orekit.time.AbsoluteDate(2031, 5, 4, 6, 0, 0.0, utc), 15.5 * 2 * Math.PI / 86400,
+          1e-12, 0, 0.0007, Math.toRadians(inc), Math.toRadians(359.9), Math.toRadians(12), Math.toRadians(0.5), 7,
+          3.1e-5, utc);
+      ObjectNode doc = base();
+      request(doc, 2).set("target", tree("{\"tle\": [\"" + t.getLine1() + "\", \"" + t.getLine2() + "\"]}"));
+      read(doc);
+    }
+  }
+
+  private static String tleProblem(double incl, double raan, int ecc7, double meanMotion) {
+    ObjectNode doc = base();
+    List<String> t = TestTles.tle(90007, Docs.HORIZON_START.minusSeconds(86_400), incl, raan, ecc7, 45.6789, 200.1234,
+        meanMotion);
+    request(doc, 2).set("target", tree("{\"tle\": [\"" + t.get(0) + "\", \"" + t.get(1) + "\"]}"));
+    return at(problems(doc), SAT7 + "[1]").message();
   }
 
   @Test
@@ -129,6 +190,23 @@ class OrbitAndFlexibleRulesTest {
         {"epoch": "2031-05-04T00:00:00Z", "semiMajorAxisKm": 7000, "eccentricity": 0.9, "inclinationDeg": 98,
          "raanDeg": 0, "argumentOfPerigeeDeg": 0, "meanAnomalyDeg": 0}"""));
     assertTrue(at(ps, "observer.orbit.keplerian.eccentricity").message().startsWith("perigee radius 700.000 km"));
+  }
+
+  @Test
+  void keplerianEpochFarFromTheHorizon() {
+    // Same distance rules as a TLE's epoch: a warning beyond 30 days, an error beyond 3650.
+    // 2031-03-01 to the horizon start 2031-05-04T18:00Z: 30 + 31 + 3.75 = 64.75 days.
+    ObjectNode doc = keplerDoc("""
+        {"epoch": "2031-03-01T00:00:00Z", "semiMajorAxisKm": 7000, "eccentricity": 0.001, "inclinationDeg": 98,
+         "raanDeg": 0, "argumentOfPerigeeDeg": 0, "meanAnomalyDeg": 0}""");
+    doc.remove("startPointing");
+    requests(doc).remove(2); // SAT7, a TLE target, is not needed here
+    assertEquals(List.of("observer.orbit.keplerian.epoch: epoch 2031-03-01T00:00:00Z is 64.8 days before the horizon "
+        + "start; the motion is integrated from it (two-body + J2, no drag), slower and further from the real orbit"),
+        read(doc).warnings());
+    ((ObjectNode) doc.get("observer").get("orbit").get("keplerian")).put("epoch", "2020-01-01T00:00:00Z");
+    assertEquals("epoch 2020-01-01T00:00:00Z is 4141.8 days before the horizon start; more than 3650 days is"
+        + " surely the wrong elements", at(problems(doc), "observer.orbit.keplerian.epoch").message());
   }
 
   @Test

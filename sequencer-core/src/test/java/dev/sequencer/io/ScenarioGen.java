@@ -2,6 +2,8 @@ package dev.sequencer.io;
 
 import dev.sequencer.model.AzEl;
 import dev.sequencer.model.AzElPointing;
+import dev.sequencer.model.ConstraintField;
+import dev.sequencer.model.ConstraintOverrides;
 import dev.sequencer.model.Constraints;
 import dev.sequencer.model.EarthPoint;
 import dev.sequencer.model.FlexibleExposure;
@@ -22,8 +24,10 @@ import dev.sequencer.model.Tle;
 import dev.sequencer.model.UtilityPoint;
 import java.time.Instant;
 import java.util.ArrayList;
+import java.util.EnumSet;
 import java.util.List;
 import java.util.Random;
+import java.util.Set;
 import java.util.TreeSet;
 
 /**
@@ -110,7 +114,64 @@ final class ScenarioGen {
     if (r.nextBoolean()) {
       b.targetSunlitRequired(r.nextBoolean());
     }
+    addA2(b);
     return b.build();
+  }
+
+  /** The A2 fields, each present half of the time; the hour-angle pair ordered when both are given. */
+  private void addA2(Constraints.Builder b) {
+    if (r.nextBoolean()) {
+      b.airmassMax(r.nextInt(4) == 0 ? 1.0 : 1 + 4 * r.nextDouble());
+    }
+    if (r.nextBoolean()) {
+      double lo = closed(-12, 12);
+      b.hourAngleMinH(lo).hourAngleMaxH(lo + (12 - lo) * r.nextDouble());
+    } else if (r.nextBoolean()) {
+      b.hourAngleMaxH(closed(-12, 12));
+    }
+    if (r.nextBoolean()) {
+      b.moonElevationMaxDeg(closed(-90, 90));
+    }
+    if (r.nextBoolean()) {
+      b.moonIlluminationMax(closed(0, 1));
+    }
+    if (r.nextBoolean()) {
+      b.sunElevationMinDeg(closed(-90, 90));
+    }
+    if (r.nextBoolean()) {
+      b.offNadirMaxDeg(closed(0, 180));
+    }
+  }
+
+  /**
+   * A request's own constraints (a third of the requests): some fields replaced, some removed. The ordered
+   * pairs are only removed or given together, so any scenario level keeps them ordered.
+   */
+  private ConstraintOverrides ownConstraints() {
+    if (r.nextInt(3) != 0) {
+      return ConstraintOverrides.none();
+    }
+    Constraints.Builder b = Constraints.builder();
+    if (r.nextBoolean()) {
+      b.sunSeparationMinDeg(closed(0, 180));
+    }
+    if (r.nextBoolean()) {
+      b.targetSunlitRequired(r.nextBoolean());
+    }
+    addA2(b);
+    Constraints given = b.build();
+    Set<ConstraintField> removed = EnumSet.noneOf(ConstraintField.class);
+    for (ConstraintField f : ConstraintField.values()) {
+      if (f.valueIn(given) == null && r.nextInt(6) == 0) {
+        removed.add(f);
+      }
+    }
+    if (given.hourAngleMinH() == null || given.hourAngleMaxH() == null) {
+      // Give the pair together or not at all: a lone bound could cross the scenario's other bound.
+      given = given.overriddenBy(new ConstraintOverrides(Constraints.none(),
+          EnumSet.of(ConstraintField.HOUR_ANGLE_MIN_H, ConstraintField.HOUR_ANGLE_MAX_H)));
+    }
+    return new ConstraintOverrides(given, removed);
   }
 
   private SlewSettings slew(Kind kind, int n) {
@@ -180,10 +241,12 @@ final class ScenarioGen {
     };
     List<TimeWindow> windows = kind == Kind.NONE || r.nextBoolean() ? windows(horizon) : List.of();
     boolean required = r.nextInt(4) == 0;
+    ConstraintOverrides own = kind == Kind.NONE ? ConstraintOverrides.none() : ownConstraints();
     if (r.nextInt(3) == 0) {
-      return new Request(id, target, null, null, required, windows, flexible());
+      return new Request(id, target, null, null, required, windows, flexible(), own);
     }
-    return new Request(id, target, r.nextInt(5) == 0 ? 0.0 : nonNegative(), positive(), required, windows, null);
+    return new Request(id, target, r.nextInt(5) == 0 ? 0.0 : nonNegative(), positive(), required, windows, null,
+        own);
   }
 
   private RaDec raDec() {

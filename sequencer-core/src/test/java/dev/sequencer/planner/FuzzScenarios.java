@@ -144,8 +144,9 @@ public final class FuzzScenarios {
     Instant t0 = EARLIEST.plusSeconds(3600L * rnd.nextInt(24 * 365 * 5));
     TimeWindow horizon = new TimeWindow(t0, t0.plusSeconds(12 * 3600));
     double inclination = 45 + 53 * rnd.nextDouble();
-    KeplerianElements k = new KeplerianElements(t0, 6878.137 + 300 * rnd.nextDouble(), 0.001, round(inclination),
-        round(360 * rnd.nextDouble()), 0, 0);
+    // Ordinary osculating elements as users write them (near-circular, any angles).
+    KeplerianElements k = new KeplerianElements(t0, 6878.137 + 300 * rnd.nextDouble(), 0.002 * rnd.nextDouble(),
+        round(inclination), round(360 * rnd.nextDouble()), round(360 * rnd.nextDouble()), round(360 * rnd.nextDouble()));
     Constraints c = Constraints.builder().elevationMinDeg(30 + 20 * rnd.nextDouble()).build();
     SlewSettings slew = new SlewSettings.Eigenaxis(0.5 + 2 * rnd.nextDouble(), 0.05 + 0.2 * rnd.nextDouble(),
         5 + rnd.nextInt(20));

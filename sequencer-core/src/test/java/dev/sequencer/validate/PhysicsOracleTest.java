@@ -6,7 +6,10 @@ import static org.junit.jupiter.api.Assertions.assertTrue;
 
 import dev.sequencer.astro.AstroContext;
 import dev.sequencer.model.AzEl;
+import dev.sequencer.model.ConstraintField;
+import dev.sequencer.model.ConstraintOverrides;
 import dev.sequencer.model.Constraints;
+import dev.sequencer.model.EarthPoint;
 import dev.sequencer.model.GroundSite;
 import dev.sequencer.model.KeplerianElements;
 import dev.sequencer.model.Observer;
@@ -15,13 +18,16 @@ import dev.sequencer.model.RaDec;
 import dev.sequencer.model.Request;
 import dev.sequencer.model.Scenario;
 import dev.sequencer.model.SlewSettings;
+import dev.sequencer.model.Target;
 import dev.sequencer.model.TimeWindow;
 import dev.sequencer.visibility.RequestVisibility;
 import dev.sequencer.visibility.VisibilityCalculator;
 import java.time.Instant;
 import java.util.ArrayList;
+import java.util.EnumSet;
 import java.util.List;
 import java.util.Random;
+import java.util.function.Function;
 import org.junit.jupiter.api.Test;
 
 /**
@@ -50,11 +56,66 @@ class PhysicsOracleTest {
     check(new OrbitObserver(k), c, 6 * 3600);
   }
 
+  @Test
+  void groundA2WindowsAgreeWithTheOracle() {
+    // Airmass, hour angle, Moon elevation and illumination; every third request with its own constraints
+    // (the hour angle replaced, the airmass removed).
+    GroundSite site = new GroundSite(-29.3, -70.7, 2400, List.of());
+    Constraints c = Constraints.builder().airmassMax(2.0).hourAngleMinH(-3).hourAngleMaxH(4).moonElevationMaxDeg(30)
+        .moonIlluminationMax(0.6).build();
+    ConstraintOverrides own = new ConstraintOverrides(Constraints.builder().hourAngleMinH(-1).hourAngleMaxH(1).build(),
+        EnumSet.of(ConstraintField.AIRMASS_MAX));
+    check(site, c, 86400, PhysicsOracleTest::star, 300, own);
+  }
+
+  @Test
+  void groundDaylightWindowsAgreeWithTheOracle() {
+    GroundSite site = new GroundSite(47.0, 8.0, 500, List.of());
+    check(site, Constraints.builder().sunElevationMinDeg(-6).elevationMinDeg(15).build(), 2 * 86400,
+        PhysicsOracleTest::star, 300, null);
+  }
+
+  @Test
+  void earthPointDaylightAndOffNadirWindowsAgreeWithTheOracle() {
+    KeplerianElements k = new KeplerianElements(T0, 6_378.137 + 550, 0.0012, 97.5, 100, 0, 10);
+    Constraints c = Constraints.builder().sunElevationMinDeg(10).offNadirMaxDeg(55).build();
+    check(new OrbitObserver(k), c, 3 * 86400,
+        rnd -> new EarthPoint(-60 + 120 * rnd.nextDouble(), -180 + 360 * rnd.nextDouble(), 0), 30, null);
+  }
+
+  @Test
+  void theOracleNamesTheNewConstraintThatFails() {
+    // A star that rises at 0 deg long before it reaches airmass 2 (about 30 deg): two minutes before the
+    // window opens only the airmass fails.
+    GroundSite site = new GroundSite(31.0, 20.0, 1200, List.of());
+    Request r = Request.of("A", new RaDec(100, 10), 60, 1);
+    Scenario s = new Scenario(1, "t", new TimeWindow(T0, T0.plusSeconds(86400)), site,
+        Constraints.builder().airmassMax(2.0).build(), new SlewSettings.Fixed(0), null, List.of(r), null);
+    TimeWindow w = new VisibilityCalculator(CTX).compute(s).get(0).intervals().get(0);
+    List<String> v = new PhysicsOracle(s, CTX).violations(r, w.start().minusSeconds(120), w.start().minusSeconds(60));
+    assertEquals(1, v.size());
+    assertTrue(v.get(0).contains("airmass violated by"), v.get(0));
+  }
+
+  private static RaDec star(Random rnd) {
+    return new RaDec(360 * rnd.nextDouble(), -60 + 150 * rnd.nextDouble());
+  }
+
   private static void check(Observer observer, Constraints c, long lengthS) {
+    check(observer, c, lengthS, PhysicsOracleTest::star, 300, null);
+  }
+
+  /**
+   * 25 requests on random targets, observations of {@code obsS}; every third one carries {@code own}
+   * constraints when it is not null.
+   */
+  private static void check(Observer observer, Constraints c, long lengthS, Function<Random, Target> targets,
+      double obsS, ConstraintOverrides own) {
     Random rnd = new Random(3);
     List<Request> reqs = new ArrayList<>();
     for (int i = 0; i < 25; i++) {
-      reqs.add(Request.of("S" + i, new RaDec(360 * rnd.nextDouble(), -60 + 150 * rnd.nextDouble()), 300, 1));
+      Request r = Request.of("S" + i, targets.apply(rnd), obsS, 1);
+      reqs.add(own != null && i % 3 == 0 ? r.withConstraints(own) : r);
     }
     Scenario s = new Scenario(1, "t", new TimeWindow(T0, T0.plusSeconds(lengthS)), observer, c,
         new SlewSettings.Fixed(0), null, reqs, null);
@@ -64,11 +125,11 @@ class PhysicsOracleTest {
     int outside = 0;
     for (int i = 0; i < reqs.size(); i++) {
       for (TimeWindow w : vis.get(i).intervals()) {
-        if (w.durationS() >= 300) {
-          // The whole window edge to edge (inward-rounded edges) and a 300 s observation in its middle.
+        if (w.durationS() >= obsS) {
+          // The whole window edge to edge (inward-rounded edges) and an observation in its middle.
           assertEquals(List.of(), oracle.violations(reqs.get(i), w.start(), w.end()), reqs.get(i).id() + " " + w);
-          Instant mid = w.start().plusSeconds((long) (w.durationS() / 2) - 150);
-          assertEquals(List.of(), oracle.violations(reqs.get(i), mid, mid.plusSeconds(300)));
+          Instant mid = w.start().plusMillis((long) (500 * (w.durationS() - obsS)));
+          assertEquals(List.of(), oracle.violations(reqs.get(i), mid, mid.plusMillis((long) (1000 * obsS))));
           inside++;
         }
         Instant early = w.start().minusSeconds(120);

@@ -69,7 +69,7 @@ final class DemoCommand implements Callable<Integer> {
     out.println("windows: " + visible + " of " + p.windows().size() + " requests visible");
     Path windowsFile = dir.resolve("windows.json");
     WindowsFile.write(p.windows(), windowsFile);
-    PlanCommand.print(out, planned.result(), planned.timeline());
+    PlanCommand.print(out, planned.result(), planned.timeline(), p.visibility());
 
     Path timelineFile = dir.resolve("timeline.json");
     TimelineFile.write(planned.timeline(), timelineFile);

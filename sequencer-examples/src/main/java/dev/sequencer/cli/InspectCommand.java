@@ -43,6 +43,7 @@ final class InspectCommand implements Callable<Integer> {
           + ", the last date the bundled leap-second table is known to be complete for");
     }
     r.warnings().forEach(w -> out.println("warning     " + w));
+    ScenarioSummary.unusedConstraints(r.scenario()).forEach(w -> out.println("note        " + w));
     out.println("valid");
     return 0;
   }

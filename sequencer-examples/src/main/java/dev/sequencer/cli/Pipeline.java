@@ -7,6 +7,7 @@ import dev.sequencer.model.Timeline;
 import dev.sequencer.planner.Geometry;
 import dev.sequencer.planner.Planner;
 import dev.sequencer.validate.PlanValidator;
+import dev.sequencer.visibility.RequestVisibility;
 import java.time.Instant;
 import java.util.List;
 
@@ -24,6 +25,11 @@ record Pipeline(Geometry geometry, AstroContext astro) {
 
   List<RequestWindows> windows() {
     return geometry.windows();
+  }
+
+  /** Each request's visibility with what removes the most time (for the explained reasons). */
+  List<RequestVisibility> visibility() {
+    return geometry.visibility();
   }
 
   /** What the full validator finds wrong with {@code timeline}, for a re-plan made at {@code now} when not null. */

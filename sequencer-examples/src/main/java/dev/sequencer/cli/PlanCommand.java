@@ -14,9 +14,11 @@ import dev.sequencer.planner.Planner;
 import dev.sequencer.sequence.Note;
 import dev.sequencer.sequence.SequencerOptions;
 import dev.sequencer.sequence.SequencerResult;
+import dev.sequencer.visibility.RequestVisibility;
 import java.io.PrintWriter;
 import java.nio.file.Path;
 import java.time.Duration;
+import java.util.List;
 import java.util.Locale;
 import java.util.concurrent.Callable;
 import picocli.CommandLine.Command;
@@ -67,7 +69,7 @@ final class PlanCommand implements Callable<Integer> {
     Outputs.checkFolder("--output", output);
     PlanOutcome planned = solve(r.scenario(), common.astro(), solverOptions, r.scenario().solverOrDefaults(), out);
     Pipeline p = new Pipeline(planned.geometry(), common.astro());
-    print(out, planned.result(), planned.timeline());
+    print(out, planned.result(), planned.timeline(), p.visibility());
     if (output != null) {
       TimelineFile.write(planned.timeline(), output);
       out.println("wrote " + output);
@@ -94,14 +96,18 @@ final class PlanCommand implements Callable<Integer> {
     }
   }
 
-  static void print(PrintWriter out, SequencerResult result, Timeline t) {
+  /**
+   * Prints the plan; each unscheduled request's reason names the constraint that removes the most time
+   * when {@code visibility} (in request order, or null) says.
+   */
+  static void print(PrintWriter out, SequencerResult result, Timeline t, List<RequestVisibility> visibility) {
     out.printf(Locale.ROOT, "%-12s %-24s %-24s %8s %8s%n", "id", "start", "end", "dur [s]", "slew [s]");
     for (Observation o : t.observations()) {
       out.printf(Locale.ROOT, "%-12s %-24s %-24s %8.0f %8.1f%n", o.id(), o.start(), o.end(), o.durationS(),
           o.slewSeconds());
     }
     for (Unscheduled u : t.unscheduled()) {
-      out.printf(Locale.ROOT, "%-12s not scheduled: %s%n", u.id(), u.reason());
+      out.printf(Locale.ROOT, "%-12s not scheduled: %s%n", u.id(), Explained.of(u, visibility));
     }
     double busy = t.observations().stream().mapToDouble(o -> o.durationS() + o.slewSeconds()).sum();
     double span = t.observations().isEmpty() ? 0

@@ -8,9 +8,11 @@ import dev.sequencer.model.Timeline;
 import dev.sequencer.model.Unscheduled;
 import dev.sequencer.planner.InputRules;
 import dev.sequencer.planner.Planner;
+import dev.sequencer.planner.ReplanOutcome;
 import dev.sequencer.sequence.replan.ReplanOptions;
 import dev.sequencer.sequence.replan.ReplanResult;
 import dev.sequencer.sequence.replan.Replanner;
+import dev.sequencer.visibility.RequestVisibility;
 import java.io.PrintWriter;
 import java.nio.file.Path;
 import java.time.Instant;
@@ -86,18 +88,19 @@ final class ReplanCommand implements Callable<Integer> {
       options = options.withStabilityWeight(weight());
     }
     Outputs.checkFolder("--output", output);
-    ReplanResult result;
+    ReplanOutcome outcome;
     try (Progress progress = Progress.to(out, Progress.consoleAttached())) {
       options = options.withSequencer(solverOptions.options(r.scenario().solverOrDefaults(), progress));
       progress.start();
-      result = Planner.replan(r.scenario(), common.astro(), prev, at, ids(done), ids(failed), options).result();
+      outcome = Planner.replan(r.scenario(), common.astro(), prev, at, ids(done), ids(failed), options);
     } catch (ScenarioException e) {
       if (!Replanner.INPUT.equals(e.source())) {
         throw e;
       }
       throw new InputException("--" + e.problems().get(0));
     }
-    print(out, result);
+    ReplanResult result = outcome.result();
+    print(out, result, outcome.geometry().visibility());
     if (output != null) {
       TimelineFile.write(result.timeline(), output);
       out.println("wrote " + output);
@@ -139,7 +142,7 @@ final class ReplanCommand implements Callable<Integer> {
     return out;
   }
 
-  private static void print(PrintWriter out, ReplanResult r) {
+  private static void print(PrintWriter out, ReplanResult r, List<RequestVisibility> visibility) {
     Timeline t = r.timeline();
     out.printf(Locale.ROOT, "%-12s %-8s %-24s %-24s %8s %8s%n", "id", "state", "start", "end", "dur [s]", "slew [s]");
     for (Observation o : t.observations()) {
@@ -147,7 +150,7 @@ final class ReplanCommand implements Callable<Integer> {
           o.durationS(), o.slewSeconds());
     }
     for (Unscheduled u : t.unscheduled()) {
-      out.printf(Locale.ROOT, "%-12s not scheduled: %s%n", u.id(), u.reason());
+      out.printf(Locale.ROOT, "%-12s not scheduled: %s%n", u.id(), Explained.of(u, visibility));
     }
     out.printf(Locale.ROOT, "status %s, night priority %.2f, new plan %.2f (rest of the previous plan %.2f), "
         + "from %s, kept %d of %d previous requests and %d successor pairs, plan from %s%n", t.status(),

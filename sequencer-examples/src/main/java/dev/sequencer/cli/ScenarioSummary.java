@@ -1,5 +1,7 @@
 package dev.sequencer.cli;
 
+import dev.sequencer.model.ConstraintField;
+import dev.sequencer.model.ConstraintOverrides;
 import dev.sequencer.model.Constraints;
 import dev.sequencer.model.EarthPoint;
 import dev.sequencer.model.GroundSite;
@@ -31,6 +33,7 @@ final class ScenarioSummary {
         horizonS / 3600));
     out.add("observer    " + observer(s));
     out.add("constraints " + constraints(s.constraints()));
+    out.addAll(ownConstraints(s, 10));
     out.add("slew        " + slew(s.slew()));
     Map<String, Integer> kinds = new LinkedHashMap<>();
     double requested = 0;
@@ -133,21 +136,99 @@ final class ScenarioSummary {
 
   static String constraints(Constraints c) {
     List<String> parts = new ArrayList<>();
-    add(parts, "Sun >= ", c.sunSeparationMinDeg());
-    add(parts, "Moon >= ", c.moonSeparationMinDeg());
-    add(parts, "limb >= ", c.earthLimbMinDeg());
-    add(parts, "elevation >= ", c.elevationMinDeg());
-    add(parts, "elevation <= ", c.elevationMaxDeg());
-    add(parts, "Sun elevation <= ", c.sunElevationMaxDeg());
-    if (c.sunlitRequired()) {
-      parts.add("target sunlit");
+    for (ConstraintField f : ConstraintField.values()) {
+      Object v = f.valueIn(c);
+      if (v != null && !Boolean.FALSE.equals(v)) {
+        parts.add(describe(f, v));
+      }
     }
     return parts.isEmpty() ? "none" : String.join(", ", parts);
   }
 
-  private static void add(List<String> parts, String label, Double v) {
-    if (v != null) {
-      parts.add(String.format(Locale.ROOT, "%s%.1f deg", label, v));
+  /** A request's own constraints: each field it gives, and each one it removes. */
+  static String constraints(ConstraintOverrides own) {
+    List<String> parts = new ArrayList<>();
+    for (ConstraintField f : ConstraintField.values()) {
+      Object v = f.valueIn(own.given());
+      if (v != null) {
+        parts.add(describe(f, v));
+      } else if (own.removed().contains(f)) {
+        parts.add(f.key() + " removed");
+      }
     }
+    return String.join(", ", parts);
+  }
+
+  /** One constraint in words, e.g. "airmass <= 1.50". */
+  static String describe(ConstraintField f, Object v) {
+    if (v instanceof Boolean b) {
+      return b ? "target sunlit" : "target sunlit not required";
+    }
+    double x = (Double) v;
+    return switch (f) {
+      case SUN_SEPARATION_MIN_DEG -> deg("Sun >= ", x);
+      case MOON_SEPARATION_MIN_DEG -> deg("Moon >= ", x);
+      case EARTH_LIMB_MIN_DEG -> deg("limb >= ", x);
+      case ELEVATION_MIN_DEG -> deg("elevation >= ", x);
+      case ELEVATION_MAX_DEG -> deg("elevation <= ", x);
+      case SUN_ELEVATION_MAX_DEG -> deg("Sun elevation <= ", x);
+      case AIRMASS_MAX -> String.format(Locale.ROOT, "airmass <= %.2f", x);
+      case HOUR_ANGLE_MIN_H -> String.format(Locale.ROOT, "hour angle >= %.2f h", x);
+      case HOUR_ANGLE_MAX_H -> String.format(Locale.ROOT, "hour angle <= %.2f h", x);
+      case MOON_ELEVATION_MAX_DEG -> deg("Moon elevation <= ", x);
+      case MOON_ILLUMINATION_MAX -> String.format(Locale.ROOT, "Moon illumination <= %.2f or Moon down", x);
+      case SUN_ELEVATION_MIN_DEG -> deg("Sun elevation >= ", x);
+      case OFF_NADIR_MAX_DEG -> deg("off-nadir <= ", x);
+      case TARGET_SUNLIT_REQUIRED -> throw new IllegalStateException("boolean field " + f);
+    };
+  }
+
+  private static String deg(String label, double v) {
+    return String.format(Locale.ROOT, "%s%.1f deg", label, v);
+  }
+
+  /** One line per request with constraints of its own (at most {@code max}, then a count of the rest). */
+  static List<String> ownConstraints(Scenario s, int max) {
+    List<Request> own = s.requests().stream().filter(r -> !r.constraints().isEmpty()).toList();
+    List<String> out = new ArrayList<>();
+    for (int i = 0; i < Math.min(max, own.size()); i++) {
+      out.add((i == 0 ? "own rules   " : "            ") + own.get(i).id() + ": " + constraints(own.get(i).constraints()));
+    }
+    if (own.size() > max) {
+      out.add("            ... and " + (own.size() - max) + " more requests with constraints of their own");
+    }
+    return out;
+  }
+
+  /**
+   * Constraint fields of the A2 addition that no request of this scenario can use (the format says what
+   * each applies to), one line each: they are accepted but change nothing.
+   */
+  static List<String> unusedConstraints(Scenario s) {
+    boolean ground = s.observer() instanceof GroundSite;
+    boolean orbit = s.observer() instanceof OrbitObserver;
+    boolean earthPoints = s.requests().stream().anyMatch(r -> r.target() instanceof EarthPoint);
+    boolean stars = s.requests().stream().anyMatch(r -> r.target() instanceof RaDec);
+    List<String> out = new ArrayList<>();
+    for (ConstraintField f : List.of(ConstraintField.AIRMASS_MAX, ConstraintField.HOUR_ANGLE_MIN_H,
+        ConstraintField.HOUR_ANGLE_MAX_H, ConstraintField.MOON_ELEVATION_MAX_DEG, ConstraintField.MOON_ILLUMINATION_MAX,
+        ConstraintField.SUN_ELEVATION_MIN_DEG, ConstraintField.OFF_NADIR_MAX_DEG)) {
+      boolean given = f.valueIn(s.constraints()) != null
+          || s.requests().stream().anyMatch(r -> f.valueIn(r.constraints().given()) != null);
+      if (!given) {
+        continue;
+      }
+      String appliesTo = switch (f) {
+        case HOUR_ANGLE_MIN_H, HOUR_ANGLE_MAX_H -> ground && stars ? null : "ground observers, fixed RA/Dec targets";
+        case SUN_ELEVATION_MIN_DEG -> ground || (orbit && earthPoints) ? null
+            : "ground observers and Earth points seen from orbit";
+        case OFF_NADIR_MAX_DEG -> orbit && earthPoints ? null : "Earth points seen from orbit";
+        default -> ground ? null : "ground observers";
+      };
+      if (appliesTo != null) {
+        out.add(f.key() + " applies to " + appliesTo + " only; it changes nothing in this scenario");
+      }
+    }
+    return out;
   }
 }

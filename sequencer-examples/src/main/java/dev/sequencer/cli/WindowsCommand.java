@@ -50,7 +50,7 @@ final class WindowsCommand implements Callable<Integer> {
     for (RequestVisibility v : vis) {
       String first;
       if (v.intervals().isEmpty()) {
-        first = "never visible" + (v.limitingConstraint() == null ? "" : " (" + v.limitingConstraint() + " removes the most time)");
+        first = "never visible" + Explained.limiting(v);
       } else {
         TimeWindow w = v.intervals().get(0);
         first = w.start() + " .. " + w.end();

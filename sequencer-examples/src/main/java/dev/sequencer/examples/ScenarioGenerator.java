@@ -4,6 +4,8 @@ import dev.sequencer.astro.AstroContext;
 import dev.sequencer.io.ScenarioWriter;
 import dev.sequencer.model.AzEl;
 import dev.sequencer.model.AzElPointing;
+import dev.sequencer.model.ConstraintField;
+import dev.sequencer.model.ConstraintOverrides;
 import dev.sequencer.model.Constraints;
 import dev.sequencer.model.GroundSite;
 import dev.sequencer.model.KeplerianElements;
@@ -19,6 +21,7 @@ import dev.sequencer.model.Tle;
 import java.nio.file.Path;
 import java.time.Instant;
 import java.util.ArrayList;
+import java.util.EnumSet;
 import java.util.List;
 import java.util.Locale;
 import java.util.Random;
@@ -44,13 +47,20 @@ public final class ScenarioGenerator {
     System.out.println("wrote 3 scenarios to " + dir);
   }
 
-  /** (a) An invented ground telescope's night queue: 150 fields, alt-az mount with cable wrap, dark time, Moon. */
+  /**
+   * (a) An invented ground telescope's night queue: 150 fields, alt-az mount with cable wrap, dark time, Moon,
+   * airmass at most 2 within 4 h of the meridian; every 25th field asks for airmass 1.3 (a demanding
+   * programme) and every 30th drops the hour-angle limit (a monitoring field taken whenever it is up).
+   */
   static Scenario groundNight() {
     Random rnd = new Random(20310320L);
     GroundSite site = new GroundSite(27.41, -109.13, 1450, List.of(
         new AzEl(0, 14), new AzEl(60, 20), new AzEl(120, 12), new AzEl(200, 8), new AzEl(280, 16)));
     Constraints c = Constraints.builder().sunElevationMaxDeg(-12).moonSeparationMinDeg(30).elevationMinDeg(25)
-        .elevationMaxDeg(87).build();
+        .elevationMaxDeg(87).airmassMax(2.0).hourAngleMinH(-4).hourAngleMaxH(4).build();
+    ConstraintOverrides demanding = ConstraintOverrides.setting(Constraints.builder().airmassMax(1.3).build());
+    ConstraintOverrides anyHourAngle = new ConstraintOverrides(Constraints.none(),
+        EnumSet.of(ConstraintField.HOUR_ANGLE_MIN_H, ConstraintField.HOUR_ANGLE_MAX_H));
     SlewSettings slew = new SlewSettings.AltAz(2.5, 1.5, 0.8, 0.8, 12, List.of(-270.0, 270.0));
     List<Request> requests = new ArrayList<>();
     for (int k = 1; k <= 150; k++) {
@@ -59,8 +69,9 @@ public final class ScenarioGenerator {
       double dec = Math.toDegrees(Math.asin(-0.6 + 1.5 * rnd.nextDouble())); // -37 to +64 deg, uniform on the sphere
       double durationS = 60 * (5 + rnd.nextInt(26)); // 5 to 30 min
       double priority = 1 + rnd.nextInt(10);
-      requests.add(Request.of(String.format(Locale.ROOT, "F%03d", k), new RaDec(round(ra, 3), round(dec, 3)),
-          durationS, priority));
+      Request r = Request.of(String.format(Locale.ROOT, "F%03d", k), new RaDec(round(ra, 3), round(dec, 3)),
+          durationS, priority);
+      requests.add(k % 25 == 0 ? r.withConstraints(demanding) : k % 30 == 0 ? r.withConstraints(anyHourAngle) : r);
     }
     return new Scenario(Scenario.FORMAT, "ground night queue: invented site, 150 invented fields",
         new TimeWindow(Instant.parse("2031-03-20T00:00:00Z"), Instant.parse("2031-03-20T14:00:00Z")), site, c, slew,
