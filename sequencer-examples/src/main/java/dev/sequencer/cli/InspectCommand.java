@@ -6,6 +6,7 @@ import java.io.PrintWriter;
 import java.nio.file.Path;
 import java.util.concurrent.Callable;
 import picocli.CommandLine.Command;
+import picocli.CommandLine.Mixin;
 import picocli.CommandLine.Parameters;
 import picocli.CommandLine.Spec;
 import picocli.CommandLine.Model.CommandSpec;
@@ -21,6 +22,8 @@ final class InspectCommand implements Callable<Integer> {
   @Parameters(index = "0", paramLabel = "SCENARIO.json", description = "The scenario file.")
   Path scenario;
 
+  @Mixin CommonOptionsMixin common;
+
   @Spec CommandSpec spec;
 
   @Override
@@ -28,10 +31,10 @@ final class InspectCommand implements Callable<Integer> {
     ScenarioReader.Result r = ScenarioReader.read(scenario);
     PrintWriter out = spec.commandLine().getOut();
     ScenarioSummary.lines(r.scenario()).forEach(out::println);
-    AstroContext offline = AstroContext.offline();
-    if (offline.beyondLeapSecondValidity(r.scenario().horizon().end())) {
-      out.println("warning     the horizon ends after " + offline.leapSecondsValidUntil()
-          + ", the last date the bundled leap-second table is known to be complete for");
+    AstroContext astro = common.astro();
+    if (astro.beyondLeapSecondValidity(r.scenario().horizon().end())) {
+      out.println("warning     the horizon ends after " + astro.leapSecondsValidUntil()
+          + ", the last date the leap-second table is known to be complete for");
     }
     r.warnings().forEach(w -> out.println("warning     " + w));
     out.println("valid");
