@@ -13,7 +13,7 @@ import org.orekit.utils.IERSConventions;
 
 /**
  * The offline astronomy against an outside reference: SOFA (jsofa 20210512, test scope) on 1,200 random
- * dates of 2020-2060 per quantity. SOFA calls get UT1 = UTC and no polar motion, as the offline context
+ * dates of 2020-2060 per quantity ({@link Sofa#randomDates}). SOFA calls get UT1 = UTC and no polar motion, as the offline context
  * assumes (no EOP offline; see {@link Sofa}).
  *
  * <p>What each comparison proves:
@@ -31,7 +31,6 @@ import org.orekit.utils.IERSConventions;
  */
 class SofaReferenceTest {
   private static final AstroContext CTX = AstroContext.offline();
-  private static final int DATES = 1200;
 
   @Test
   void sunDirectionAndDistanceAgainstSofaEpv00() {
@@ -39,8 +38,7 @@ class SofaReferenceTest {
     Random random = new Random(20260101);
     double maxArcsec = 0;
     double maxKm = 0;
-    for (int i = 0; i < DATES; i++) {
-      AbsoluteDate date = Sofa.randomDate(CTX, random);
+    for (AbsoluteDate date : Sofa.randomDates(CTX, random)) {
       double[] tt = Sofa.tt(CTX, date);
       double[][] pvh = new double[2][3];
       double[][] pvb = new double[2][3];
@@ -65,8 +63,7 @@ class SofaReferenceTest {
   void sunApparentPlaceAgainstSofa() {
     Random random = new Random(20260102);
     double maxArcsec = 0;
-    for (int i = 0; i < DATES; i++) {
-      AbsoluteDate date = Sofa.randomDate(CTX, random);
+    for (AbsoluteDate date : Sofa.randomDates(CTX, random)) {
       double[] tt = Sofa.tt(CTX, date);
       double[][] pvh = new double[2][3];
       double[][] pvb = new double[2][3];
@@ -97,13 +94,43 @@ class SofaReferenceTest {
   }
 
   @Test
+  void annualAberrationAgainstSofaAb() {
+    // Aberration.apparent (relativistic formula, heliocentric velocity from the series Sun) against
+    // SOFA's jauAb with the barycentric velocity of epv00: different formula code and a different velocity
+    // source, the same physics. Expected differences: the Sun's barycentric velocity (<= 15 m/s = 0.011"),
+    // jauAb's solar-potential term (2e-8 rad x ... <= 0.004"), the series' velocity error (< 0.001").
+    // Tolerance 0.02". Directions: uniform on the sphere.
+    Random random = new Random(20260106);
+    double maxArcsec = 0;
+    double maxShiftArcsec = 0;
+    for (AbsoluteDate date : Sofa.randomDates(CTX, random)) {
+      double[] tt = Sofa.tt(CTX, date);
+      double[][] pvh = new double[2][3];
+      double[][] pvb = new double[2][3];
+      JSOFA.jauEpv00(tt[0], tt[1], pvh, pvb);
+      Vector3D u = new Vector3D(2 * Math.PI * random.nextDouble(), Math.asin(2 * random.nextDouble() - 1));
+      double[] v = Sofa.vector(pvb[1]).scalarMultiply(1.0 / Sofa.C_AU_PER_DAY).toArray();
+      double bm1 = Math.sqrt(1 - (v[0] * v[0] + v[1] * v[1] + v[2] * v[2]));
+      Vector3D sofa = Sofa.vector(JSOFA.jauAb(u.toArray(), v, Sofa.vector(pvh[0]).getNorm(), bm1));
+      Vector3D ours = Aberration.apparent(u, Aberration.earthVelocityMps(CTX, date));
+      maxArcsec = Math.max(maxArcsec, Sofa.arcsec(ours, sofa));
+      maxShiftArcsec = Math.max(maxShiftArcsec, Sofa.arcsec(ours, u));
+    }
+    System.out.printf("annual aberration vs SOFA ab: max %.4f\" (largest shift %.2f\")%n", maxArcsec, maxShiftArcsec);
+    assertTrue(maxArcsec < 0.02, "aberration off by " + maxArcsec + " arcsec");
+    // The shift itself never exceeds the bound the slew models use for fixed targets (the anchor radius).
+    assertTrue(maxShiftArcsec <= Aberration.maxDisplacementDeg(Aberration.EARTH_SPEED_MAX_MPS) * 3600.0,
+        "aberration " + maxShiftArcsec + "\" beyond the documented maximum");
+    assertTrue(maxShiftArcsec > 20.0, "a uniform sample should come within 0.5\" of the 20.5\" maximum");
+  }
+
+  @Test
   void moonAgainstSofaMoon98() {
     Frame gcrf = CTX.inertial();
     Random random = new Random(20260103);
     double maxArcsec = 0;
     double maxKm = 0;
-    for (int i = 0; i < DATES; i++) {
-      AbsoluteDate date = Sofa.randomDate(CTX, random);
+    for (AbsoluteDate date : Sofa.randomDates(CTX, random)) {
       double[] tt = Sofa.tt(CTX, date);
       Vector3D sofaMoon = Sofa.vector(JSOFA.jauMoon98(tt[0], tt[1])[0]).scalarMultiply(Sofa.AU_M);
       Vector3D ours = CTX.moon().getPosition(date, gcrf);
@@ -133,8 +160,7 @@ class SofaReferenceTest {
     double maxEra = 0;
     double maxGmst = 0;
     double maxGast = 0;
-    for (int i = 0; i < DATES; i++) {
-      AbsoluteDate date = Sofa.randomDate(CTX, random);
+    for (AbsoluteDate date : Sofa.randomDates(CTX, random)) {
       double[] tt = Sofa.tt(CTX, date);
       double[] u = Sofa.utc(CTX, date); // UT1 = UTC: no EOP offline
       maxEra = Math.max(maxEra, Sofa.angleDiffArcsec(era.value(date), JSOFA.jauEra00(u[0], u[1])));
@@ -157,8 +183,7 @@ class SofaReferenceTest {
     Random random = new Random(20260105);
     double maxPn = 0;
     double maxC2t = 0;
-    for (int i = 0; i < DATES; i++) {
-      AbsoluteDate date = Sofa.randomDate(CTX, random);
+    for (AbsoluteDate date : Sofa.randomDates(CTX, random)) {
       double[] tt = Sofa.tt(CTX, date);
       double[] u = Sofa.utc(CTX, date);
       var toTod = gcrf.getStaticTransformTo(tod, date);
