@@ -130,7 +130,7 @@ public final class PhysicsOracle implements ObservabilityOracle {
     if (site != null) {
       GroundSite g = (GroundSite) scenario.observer();
       Vector3D farPoint = obs.add(1e12, los); // a point along the line of sight, far beyond the site
-      double el = FastMath.toDegrees(site.getElevation(farPoint, gcrf, t));
+      double el = g.observedElevationDeg(FastMath.toDegrees(site.getElevation(farPoint, gcrf, t))); // A1 refraction
       double az = FastMath.toDegrees(site.getAzimuth(farPoint, gcrf, t));
       double floor = g.horizonMask().isEmpty()
           ? (c.elevationMinDeg() != null ? c.elevationMinDeg() : 0.0)

@@ -60,7 +60,7 @@ record ConstraintFunction(String name, boolean targetIndependent, ToDoubleFuncti
     Double elMin = c.elevationMinDeg();
     boolean noMask = site.horizonMask().isEmpty();
     list.add(new ConstraintFunction(ELEVATION, false, s -> {
-      double el = elevationDeg(s.los, s.up);
+      double el = site.observedElevationDeg(elevationDeg(s.los, s.up)); // refracted when the site says so (A1)
       double floor;
       if (noMask) {
         floor = elMin != null ? elMin : 0.0;
@@ -72,7 +72,7 @@ record ConstraintFunction(String name, boolean targetIndependent, ToDoubleFuncti
     }));
     if (c.elevationMaxDeg() != null) {
       double max = c.elevationMaxDeg();
-      list.add(new ConstraintFunction(ELEVATION_MAX, false, s -> max - elevationDeg(s.los, s.up)));
+      list.add(new ConstraintFunction(ELEVATION_MAX, false, s -> max - site.observedElevationDeg(elevationDeg(s.los, s.up))));
     }
     if (c.sunElevationMaxDeg() != null) {
       double max = c.sunElevationMaxDeg();
