@@ -12,6 +12,7 @@ import dev.sequencer.model.KeplerianElements;
 import dev.sequencer.model.Observer;
 import dev.sequencer.model.OrbitObserver;
 import dev.sequencer.model.RaDec;
+import dev.sequencer.model.Refraction;
 import dev.sequencer.model.Request;
 import dev.sequencer.model.Scenario;
 import dev.sequencer.model.SlewSettings;
@@ -44,13 +45,25 @@ class PhysicsOracleTest {
   }
 
   @Test
+  void bindingMaskAndRefractionAgreeWithTheOracle() {
+    // A mask above elevationMinDeg (25 deg) over a third of the sky, across the 0/360 seam, and refraction
+    // (format A1): the oracle applies both with its own Orekit topocentric frame, the engine with its grid.
+    GroundSite site = new GroundSite(24.62, 33.91, 820, List.of(new AzEl(0, 40), new AzEl(60, 12),
+        new AzEl(150, 35), new AzEl(200, 10), new AzEl(300, 12), new AzEl(330, 38)), new Refraction(920, 12));
+    Constraints c = Constraints.builder().elevationMinDeg(25).elevationMaxDeg(87).sunElevationMaxDeg(-12).build();
+    int maskRejections = check(site, c, 14 * 3600);
+    assertTrue(maskRejections >= 5, "only " + maskRejections + " early observations rejected by the elevation");
+  }
+
+  @Test
   void leoWindowsAgreeWithTheOracle() {
     KeplerianElements k = new KeplerianElements(T0, 6_378.137 + 550, 0.0005, 97.5, 100, 0, 0);
     Constraints c = Constraints.builder().earthLimbMinDeg(15).sunSeparationMinDeg(45).moonSeparationMinDeg(10).build();
     check(new OrbitObserver(k), c, 6 * 3600);
   }
 
-  private static void check(Observer observer, Constraints c, long lengthS) {
+  /** Runs the comparison; returns how many early observations the oracle rejected for elevation. */
+  private static int check(Observer observer, Constraints c, long lengthS) {
     Random rnd = new Random(3);
     List<Request> reqs = new ArrayList<>();
     for (int i = 0; i < 25; i++) {
@@ -62,6 +75,7 @@ class PhysicsOracleTest {
     PhysicsOracle oracle = new PhysicsOracle(s, CTX);
     int inside = 0;
     int outside = 0;
+    int byElevation = 0;
     for (int i = 0; i < reqs.size(); i++) {
       for (TimeWindow w : vis.get(i).intervals()) {
         if (w.durationS() >= 300) {
@@ -77,10 +91,12 @@ class PhysicsOracleTest {
           assertFalse(v.isEmpty(), reqs.get(i).id() + " two minutes before " + w);
           assertTrue(v.get(0).contains("violated by"), v.get(0));
           outside++;
+          byElevation += v.get(0).contains(": elevation violated") ? 1 : 0;
         }
       }
     }
     assertTrue(inside >= 10 && outside >= 10, "inside " + inside + ", outside " + outside);
+    return byElevation;
   }
 
   private static boolean overlapsEarlierWindow(List<TimeWindow> all, TimeWindow w, Instant t) {
