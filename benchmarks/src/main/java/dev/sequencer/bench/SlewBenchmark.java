@@ -1,6 +1,14 @@
 package dev.sequencer.bench;
 
+import dev.sequencer.astro.AstroContext;
 import dev.sequencer.model.AzEl;
+import dev.sequencer.model.Constraints;
+import dev.sequencer.model.GroundSite;
+import dev.sequencer.model.Request;
+import dev.sequencer.model.Scenario;
+import dev.sequencer.model.TimeWindow;
+import dev.sequencer.visibility.PointingTracks;
+import java.time.Instant;
 import dev.sequencer.model.RaDec;
 import dev.sequencer.model.SlewSettings;
 import dev.sequencer.slew.PointingTrack;
@@ -38,6 +46,8 @@ public class SlewBenchmark {
   private Transitions[] eigenaxis;
   private Transitions[] eigenaxisMoving;
   private Transitions[] altaz;
+  private Transitions[] eigenaxisApparent;
+  private Transitions[] altazApparent;
   private int i;
   private int j = 1;
   private double departureS;
@@ -48,11 +58,13 @@ public class SlewBenchmark {
     List<PointingTrack> fixedTracks = new ArrayList<>();
     List<PointingTrack> movingTracks = new ArrayList<>();
     List<PointingTrack> stars = new ArrayList<>();
+    List<Request> fields = new ArrayList<>();
     double[][] table = new double[N][N];
     for (int k = 0; k < N; k++) {
       double ra = random.nextDouble(0, 360);
       double dec = Math.toDegrees(Math.asin(random.nextDouble(-1, 1)));
       fixedTracks.add(PointingTrack.fixed(new RaDec(ra, dec)));
+      fields.add(Request.of("F" + k, new RaDec(ra, dec), 600, 1));
       movingTracks.add(drifting(ra, dec, 0.01));
       stars.add(star(40, random.nextDouble(-20, 80), random.nextDouble(-60, 60)));
       for (int m = 0; m < N; m++) {
@@ -66,6 +78,15 @@ public class SlewBenchmark {
     eigenaxis = new Transitions[N];
     eigenaxisMoving = new Transitions[N];
     altaz = new Transitions[N];
+    eigenaxisApparent = new Transitions[N];
+    altazApparent = new Transitions[N];
+    // The production tracks: the same fields seen from an invented site at 40 deg N, at their apparent
+    // direction (annual aberration; ApparentStar in the visibility package).
+    Instant t0 = Instant.parse("2031-10-14T15:00:00Z");
+    Scenario night = new Scenario(1, "bench", new TimeWindow(t0, t0.plusSeconds(14 * 3600)),
+        new GroundSite(40, 10, 0, List.of()), Constraints.none(), new SlewSettings.Eigenaxis(1.0, 0.05, 20), null,
+        fields, null);
+    List<PointingTrack> apparent = PointingTracks.of(night, AstroContext.offline());
     List<PointingTrack> none = Arrays.asList(new PointingTrack[N]);
     for (int k = 0; k < N; k++) { // transitions[k] starts at request k, so START -> j is the leg k -> j
       fixed[k] = SlewModel.fixed(60).transitions(none, null);
@@ -73,6 +94,8 @@ public class SlewBenchmark {
       eigenaxis[k] = eigen.transitions(fixedTracks, fixedTracks.get(k));
       eigenaxisMoving[k] = eigen.transitions(movingTracks, movingTracks.get(k));
       altaz[k] = mount.transitions(stars, stars.get(k));
+      eigenaxisApparent[k] = eigen.transitions(apparent, apparent.get(k));
+      altazApparent[k] = mount.transitions(apparent, apparent.get(k));
     }
   }
 
@@ -136,6 +159,26 @@ public class SlewBenchmark {
   @Benchmark
   public double altazBound() {
     return bound(altaz);
+  }
+
+  @Benchmark
+  public double eigenaxisApparentExact() {
+    return exact(eigenaxisApparent);
+  }
+
+  @Benchmark
+  public double eigenaxisApparentBound() {
+    return bound(eigenaxisApparent);
+  }
+
+  @Benchmark
+  public double altazApparentExact() {
+    return exact(altazApparent);
+  }
+
+  @Benchmark
+  public double altazApparentBound() {
+    return bound(altazApparent);
   }
 
   /** A direction drifting along a great circle at {@code rateDegPerS}. */

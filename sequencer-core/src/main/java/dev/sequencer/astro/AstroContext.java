@@ -66,12 +66,20 @@ public final class AstroContext {
     return Holder.OFFLINE;
   }
 
-  private static final class Holder {
-    static final AstroContext OFFLINE = buildOffline();
+  /**
+   * The built-in context with another leap-second table, e.g. one read by {@link LeapSecondTable#read} from
+   * a newer IERS file than the bundled one.
+   */
+  public static AstroContext offline(LeapSecondTable table) {
+    Objects.requireNonNull(table, "table");
+    return buildOffline(table);
   }
 
-  private static AstroContext buildOffline() {
-    LeapSecondTable table = LeapSecondTable.bundled();
+  private static final class Holder {
+    static final AstroContext OFFLINE = buildOffline(LeapSecondTable.bundled());
+  }
+
+  private static AstroContext buildOffline(LeapSecondTable table) {
     TimeScales timeScales = TimeScales.of(table.offsetModels(), (conventions, scales) -> List.of());
     Frames frames = Frames.of(timeScales, () -> {
       throw new UnsupportedOperationException(
@@ -83,7 +91,8 @@ public final class AstroContext {
         new SunSeries(timeScales, frames),
         new MoonSeries(timeScales, frames),
         table.validUntil(),
-        "offline (bundled leap seconds to " + table.validUntil() + ", no EOP, series Sun and Moon)");
+        "offline (leap seconds from " + table.source() + " to " + table.validUntil()
+            + ", no EOP, series Sun and Moon)");
   }
 
   /**

@@ -16,8 +16,10 @@ import org.orekit.utils.IERSConventions;
 
 /**
  * The Sun's geometric geocentric position from the truncated VSOP87 Earth series (Meeus, Astronomical
- * Algorithms, 2nd ed., ch. 25 "higher accuracy" method, ch. 32 and Appendix III), about 1 arcsec in
- * direction and 1e-7 AU in distance near the present epoch.
+ * Algorithms, 2nd ed., ch. 25 "higher accuracy" method, ch. 32 and Appendix III): at most 0.65 arcsec in
+ * direction and 400 km (2.7e-6 AU) in distance over 2020-2060, measured against SOFA's epv00
+ * ({@code SofaReferenceTest}); the distance error is the truncation of the series (no single term
+ * dominates it).
  *
  * <p>The geocentric Sun is the Earth's heliocentric (L, B, R) reversed, corrected to the FK5 system
  * (Meeus eq. 32.3, -0.09 arcsec), and placed in Orekit's mean ecliptic and equinox of date frame

@@ -12,6 +12,7 @@ import dev.sequencer.model.OrbitObserver;
 import dev.sequencer.model.OrbitSpec;
 import dev.sequencer.model.Pointing;
 import dev.sequencer.model.RaDec;
+import dev.sequencer.model.Refraction;
 import dev.sequencer.model.Request;
 import dev.sequencer.model.Scenario;
 import dev.sequencer.model.SlewSettings;
@@ -27,7 +28,8 @@ final class ScenarioParser {
       List.of("format", "name", "horizon", "observer", "constraints", "slew", "startPointing", "requests", "solver");
   static final List<String> HORIZON = List.of("start", "end");
   static final List<String> OBSERVER = List.of("ground", "orbit");
-  static final List<String> GROUND = List.of("latitudeDeg", "longitudeDeg", "altitudeM", "horizonMask");
+  static final List<String> GROUND = List.of("latitudeDeg", "longitudeDeg", "altitudeM", "horizonMask", "refraction");
+  static final List<String> REFRACTION = List.of("pressureHPa", "temperatureC");
   static final List<String> ORBIT = List.of("tle", "keplerian");
   static final List<String> KEPLERIAN =
       List.of("epoch", "semiMajorAxisKm", "eccentricity", "inclinationDeg", "raanDeg", "argumentOfPerigeeDeg",
@@ -135,7 +137,14 @@ final class ScenarioParser {
         }
       }
     }
-    return lat == null || lon == null || alt == null ? null : new GroundSite(lat, lon, alt, mask);
+    Refraction refraction = null;
+    Fields r = g.object("refraction", false, REFRACTION);
+    if (r != null) {
+      Double pressure = r.number("pressureHPa", true, Range.closed(0, 1200));
+      Double temperature = r.number("temperatureC", true, Range.closed(-90, 60));
+      refraction = pressure == null || temperature == null ? null : new Refraction(pressure, temperature);
+    }
+    return lat == null || lon == null || alt == null ? null : new GroundSite(lat, lon, alt, mask, refraction);
   }
 
   private OrbitSpec orbit(Fields orbit, TimeWindow horizon) {

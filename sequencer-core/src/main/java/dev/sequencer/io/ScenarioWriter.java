@@ -81,6 +81,11 @@ public final class ScenarioWriter {
         ArrayNode mask = gn.putArray("horizonMask");
         g.horizonMask().forEach(p -> mask.add(JsonOut.numbers(List.of(p.azimuthDeg(), p.elevationDeg()))));
       }
+      if (g.refraction() != null) {
+        ObjectNode rn = gn.putObject("refraction");
+        rn.set("pressureHPa", JsonOut.number(g.refraction().pressureHPa()));
+        rn.set("temperatureC", JsonOut.number(g.refraction().temperatureC()));
+      }
     } else if (observer instanceof OrbitObserver orbit) {
       ObjectNode on = o.putObject("orbit");
       if (orbit.orbit() instanceof Tle tle) {

@@ -40,8 +40,33 @@ public interface PointingTrack {
   }
 
   /**
-   * A fixed ICRS direction seen from a spacecraft (GCRF and ICRS axes agree to milliarcseconds; parallax
-   * is ignored, as the scenario format says).
+   * A cone that holds {@link #inertialDirection} at every instant, whatever the time, or {@code null} when
+   * the track has none (a moving target). A fixed RA/Dec target pointed at its apparent direction has one:
+   * its catalogue direction, with the largest annual aberration as radius. Slew models whose tracks all
+   * have one treat their transitions as time-independent (see {@link Transitions#timeDependent}).
+   */
+  default Anchor anchor() {
+    return null;
+  }
+
+  /**
+   * The line of sight is never farther than {@code radiusDeg} from {@code direction} (GCRF unit vector).
+   * Two tracks with the same anchor direction follow the same catalogue target: the mount keeps tracking
+   * it, so going from one to the other is no slew.
+   */
+  record Anchor(Vector3D direction, double radiusDeg) {
+    public Anchor {
+      if (!(radiusDeg >= 0 && radiusDeg <= 180)) {
+        throw new IllegalArgumentException("anchor radius must be in [0, 180] deg (was " + radiusDeg + ")");
+      }
+    }
+  }
+
+  /**
+   * A fixed ICRS direction taken as still (GCRF and ICRS axes agree to milliarcseconds; parallax is ignored,
+   * as the scenario format says). The scenario's tracks point fixed targets at their apparent direction
+   * instead (annual aberration, see {@code dev.sequencer.visibility.PointingTracks}); this one is for
+   * tests and for callers that bring their own directions.
    */
   static PointingTrack fixed(RaDec direction) {
     double ra = Math.toRadians(direction.raDeg());
@@ -56,6 +81,11 @@ public interface PointingTrack {
       @Override
       public double maxAngularRateDegPerS(double t0S, double t1S) {
         return 0;
+      }
+
+      @Override
+      public Anchor anchor() {
+        return new Anchor(u, 0);
       }
     };
   }

@@ -51,7 +51,11 @@ public interface Transitions {
     return false;
   }
 
-  /** True when transition times depend on when they happen (moving pointings, alt-az mounts). */
+  /**
+   * True when transition times depend on when they happen (moving pointings, alt-az mounts). Fixed targets
+   * pointed at their apparent direction move by at most the annual aberration; models whose tracks all have
+   * a {@link PointingTrack#anchor()} fold that into their bounds and stay time-independent.
+   */
   boolean timeDependent();
 
   /**

@@ -40,7 +40,9 @@ import org.orekit.propagation.analytical.tle.TLE;
 import org.orekit.propagation.analytical.tle.TLEPropagator;
 import org.orekit.time.AbsoluteDate;
 import org.orekit.time.TimeScalarFunction;
+import org.orekit.utils.Constants;
 import org.orekit.utils.IERSConventions;
+import org.orekit.utils.TimeStampedPVCoordinates;
 
 /**
  * Re-checks every constraint of the scenario from the physics at the observation's own instants: the
@@ -53,6 +55,8 @@ import org.orekit.utils.IERSConventions;
  * <p>Every margin is in degrees: airmass as degrees of elevation (the airmass shortfall divided by its
  * slope), hour angle as degrees of hour angle (15° per hour), Moon illumination as degrees of phase
  * angle beyond the one where the illuminated fraction reaches its limit (when the Moon is up).
+ * Fixed targets are taken at their apparent direction (annual aberration, the format's A1), with a
+ * first-order formula of its own; target elevations are refracted when the site gives refraction.
  *
  * <p>Tolerance: a margin may be below its limit by {@link #TOLERANCE_DEG} (0.01°) plus 0.1 s times the
  * margin's rate of change (measured between samples): the visibility windows' edges are accurate to about
@@ -134,8 +138,10 @@ public final class PhysicsOracle implements ObservabilityOracle {
     Map<String, Double> m = new HashMap<>();
     Vector3D obs = site != null ? site.getPosition(t, gcrf) : orbit.getPosition(t, gcrf);
     Vector3D target = targetPosition(r, t); // null for a direction
-    Vector3D los = target == null ? direction((RaDec) r.target()) : target.subtract(obs).normalize();
-    Vector3D sun = ctx.sun().getPosition(t, gcrf);
+    TimeStampedPVCoordinates sunPv = ctx.sun().getPVCoordinates(t, gcrf);
+    Vector3D los = target == null ? apparent(direction((RaDec) r.target()), observerVelocity(sunPv, t))
+        : target.subtract(obs).normalize();
+    Vector3D sun = sunPv.getPosition();
     Vector3D moon = ctx.moon().getPosition(t, gcrf);
     if (c.sunSeparationMinDeg() != null) {
       m.put("Sun separation", FastMath.toDegrees(Vector3D.angle(los, sun.subtract(obs))) - c.sunSeparationMinDeg());
@@ -178,9 +184,9 @@ public final class PhysicsOracle implements ObservabilityOracle {
       Vector3D los, Vector3D sun, Vector3D moon) {
     GroundSite g = (GroundSite) scenario.observer();
     Vector3D farPoint = obs.add(1e12, los); // a point along the line of sight, far beyond the site
-    // The target elevation the elevation limits, the mask and the airmass use (geometric until the
-    // refracted elevation of the format's A1 is available).
-    double el = FastMath.toDegrees(site.getElevation(farPoint, gcrf, t));
+    // The target elevation the elevation limits, the mask and the airmass use: refracted when the site
+    // gives refraction (the format's A1).
+    double el = g.observedElevationDeg(FastMath.toDegrees(site.getElevation(farPoint, gcrf, t)));
     double az = FastMath.toDegrees(site.getAzimuth(farPoint, gcrf, t));
     double floor = g.horizonMask().isEmpty()
         ? (c.elevationMinDeg() != null ? c.elevationMinDeg() : 0.0)
@@ -258,6 +264,26 @@ public final class PhysicsOracle implements ObservabilityOracle {
       return ctx.earthFixed().getStaticTransformTo(gcrf, t).transformPosition(itrf);
     }
     return null;
+  }
+
+  /**
+   * Annual aberration to first order in v/c, u' = (u + v/c) / |u + v/c| (Meeus, Astronomical Algorithms,
+   * 2nd ed., ch. 23, in vector form; the second-order terms are below 0.002"): written apart from the
+   * engine's relativistic formula on purpose.
+   */
+  private static Vector3D apparent(Vector3D u, Vector3D velocityMps) {
+    return u.add(1.0 / Constants.SPEED_OF_LIGHT, velocityMps).normalize();
+  }
+
+  /**
+   * The observer's velocity relative to the solar-system barycentre: the Earth's heliocentric velocity
+   * (minus the geocentric Sun's; the Sun's own barycentric motion is at most 0.011" of aberration) plus,
+   * for an orbit observer, its geocentric velocity. Diurnal aberration (<= 0.32") is neglected, as the
+   * format allows.
+   */
+  private Vector3D observerVelocity(TimeStampedPVCoordinates sun, AbsoluteDate t) {
+    Vector3D earth = sun.getVelocity().negate();
+    return orbit == null ? earth : earth.add(orbit.getPVCoordinates(t, gcrf).getVelocity());
   }
 
   private static Vector3D direction(RaDec rd) {

@@ -8,10 +8,11 @@ import org.orekit.frames.Frame;
 import org.orekit.frames.StaticTransform;
 import org.orekit.utils.PVCoordinatesProvider;
 import org.orekit.time.AbsoluteDate;
+import org.orekit.utils.PVCoordinates;
 
 /**
- * One stretch of the horizon sampled on a regular grid: the observer's GCRF position, the Sun and Moon,
- * the Earth-fixed axes and the TEME axes expressed in GCRF. Shared by every target of the chunk, so the
+ * One stretch of the horizon sampled on a regular grid: the observer's GCRF position and barycentric
+ * velocity, the Sun and Moon, the Earth-fixed axes and the TEME axes expressed in GCRF. Shared by every target of the chunk, so the
  * observer is propagated once per horizon and not once per target.
  */
 final class Chunk {
@@ -27,6 +28,8 @@ final class Chunk {
   final SampledVectors itrfX;
   final SampledVectors itrfY;
   final SampledVectors itrfZ;
+  /** Observer velocity relative to the solar-system barycentre, m/s (annual aberration of fixed targets). */
+  final SampledVectors observerVelocity;
   /** TEME x, y, z axes in GCRF (only when orbiting targets need them). */
   final SampledVectors temeX;
   final SampledVectors temeY;
@@ -41,6 +44,7 @@ final class Chunk {
     observer = new SampledVectors(t0S, stepS, n);
     sun = new SampledVectors(t0S, stepS, n);
     moon = new SampledVectors(t0S, stepS, n);
+    observerVelocity = new SampledVectors(t0S, stepS, n);
     itrfX = new SampledVectors(t0S, stepS, n);
     itrfY = new SampledVectors(t0S, stepS, n);
     itrfZ = new SampledVectors(t0S, stepS, n);
@@ -91,12 +95,18 @@ final class Chunk {
         put(c.temeY, k, temeToGcrf.transformVector(Vector3D.PLUS_J));
         put(c.temeZ, k, temeToGcrf.transformVector(Vector3D.PLUS_K));
       }
+      // The Earth's velocity relative to the barycentre ~ minus the geocentric Sun's (see Aberration).
+      PVCoordinates sun = ctx.sun().getPVCoordinates(date, gcrf);
+      Vector3D velocity = sun.getVelocity().negate();
       if (sitePos != null) {
         put(c.observer, k, toGcrf.transformPosition(sitePos));
       } else if (orbitObserver != null) {
-        put(c.observer, k, orbitObserver.getPosition(date, gcrf));
+        PVCoordinates pv = orbitObserver.getPVCoordinates(date, gcrf);
+        put(c.observer, k, pv.getPosition());
+        velocity = velocity.add(pv.getVelocity());
       }
-      put(c.sun, k, ctx.sun().getPosition(date, gcrf));
+      put(c.observerVelocity, k, velocity);
+      put(c.sun, k, sun.getPosition());
       put(c.moon, k, ctx.moon().getPosition(date, gcrf));
     }
     return c;

@@ -95,7 +95,7 @@ record ConstraintFunction(String name, boolean targetIndependent, ToDoubleFuncti
     Double elMin = c.elevationMinDeg();
     boolean noMask = site.horizonMask().isEmpty();
     list.add(new ConstraintFunction(ELEVATION, false, s -> {
-      double el = targetElevationDeg(s);
+      double el = site.observedElevationDeg(targetElevationDeg(s));
       double floor;
       if (noMask) {
         floor = elMin != null ? elMin : 0.0;
@@ -107,11 +107,12 @@ record ConstraintFunction(String name, boolean targetIndependent, ToDoubleFuncti
     }, UNKNOWN_RATE));
     if (c.elevationMaxDeg() != null) {
       double max = c.elevationMaxDeg();
-      list.add(new ConstraintFunction(ELEVATION_MAX, false, s -> max - targetElevationDeg(s), UNKNOWN_RATE));
+      list.add(new ConstraintFunction(ELEVATION_MAX, false, s -> max - site.observedElevationDeg(targetElevationDeg(s)), UNKNOWN_RATE));
     }
     if (c.airmassMax() != null) {
       double floor = Airmass.minElevationDeg(c.airmassMax());
-      list.add(new ConstraintFunction(AIRMASS, false, s -> targetElevationDeg(s) - floor, UNKNOWN_RATE));
+      list.add(new ConstraintFunction(AIRMASS, false, s -> site.observedElevationDeg(targetElevationDeg(s)) - floor,
+          UNKNOWN_RATE));
     }
     addSunElevation(list, c, false);
     if (c.moonElevationMaxDeg() != null) {
@@ -177,6 +178,7 @@ record ConstraintFunction(String name, boolean targetIndependent, ToDoubleFuncti
    * topocentric elevation of the line of sight, geometric. The one place where the refracted (observed)
    * elevation of the format's A1 replaces it for sites that give {@code refraction}.
    */
+  /** The geometric elevation of the target; the elevation limits, the mask and airmass use it refracted (A1). */
   static double targetElevationDeg(Scratch s) {
     return elevationDeg(s.los, s.up);
   }

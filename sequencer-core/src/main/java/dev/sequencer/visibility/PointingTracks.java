@@ -22,19 +22,25 @@ import org.orekit.time.AbsoluteDate;
 /**
  * The instrument's pointing for each request over time, from the scenario's geometry, for the slew models.
  *
- * <p>Supported: fixed RA/Dec targets from an orbit observer (a constant inertial direction) and from a ground
- * site (constant inertial direction; azimuth and elevation turning with the Earth); orbiting objects seen
- * from a ground site and Earth points seen from orbit ({@link MovingTracks}). Rate bounds for a fixed
- * star at geodetic latitude phi, from the spherical-astronomy derivatives (common practice):
- * |dEl/dt| = w cos(phi) |sin A| &lt;= w and |dA/dt| = w |sin(phi) - cos(phi) cos(A) tan(El)| &lt;=
- * w (|sin phi| + |cos phi| tan El), with w the Earth's rotation rate and El bounded over the interval by
- * its larger end value plus w times the interval length.
+ * <p>Supported: fixed RA/Dec targets from an orbit observer and from a ground site, pointed at their
+ * apparent direction (annual aberration, {@link ApparentStar}; azimuth and elevation turning with the Earth
+ * from a ground site); orbiting objects seen from a ground site and Earth points seen from orbit
+ * ({@link MovingTracks}). The observer's velocity for the aberration is tabulated once per scenario over
+ * the horizon and {@link #MARGIN_S} either side (a slew may end after the horizon).
  */
 public final class PointingTracks {
   /** Earth rotation rate, deg/s (360.9856 deg per solar day; common practice). */
   static final double EARTH_RATE_DEG_PER_S = 360.98564736629 / 86400.0;
 
+  /** Seconds before and after the horizon covered by the observer-velocity table. */
+  static final double MARGIN_S = 3600.0;
+
   private PointingTracks() {}
+
+  private static ObserverVelocity velocity(Scenario scenario, AstroContext ctx, AbsoluteDate origin) {
+    double horizonS = ctx.date(scenario.horizon().end()).durationFrom(origin);
+    return ObserverVelocity.of(scenario.observer(), ctx, origin, -MARGIN_S, horizonS + MARGIN_S);
+  }
 
   /** One track per request, in request order. */
   public static List<PointingTrack> of(Scenario scenario, AstroContext ctx) {
@@ -50,10 +56,15 @@ public final class PointingTracks {
       perigeeRadius = rv[0];
       perigeeSpeed = rv[1];
     }
+    ObserverVelocity velocity = scenario.observer() != null
+        && scenario.requests().stream().anyMatch(r -> r.target() instanceof RaDec) ? velocity(scenario, ctx, origin)
+        : null;
     for (Request r : scenario.requests()) {
       Target t = r.target();
       if (t instanceof RaDec rd) {
-        out.add(site == null ? PointingTrack.fixed(rd) : new StarFromSite(rd, site, ctx, origin));
+        out.add(scenario.observer() == null ? PointingTrack.fixed(rd) // no geometry: matrix and fixed models only
+            : site == null ? ApparentStar.fromOrbit(rd, velocity, ctx, origin)
+            : ApparentStar.fromSite(rd, site, velocity, ctx, origin));
       } else if (t instanceof OrbitingTarget ot && site != null) {
         out.add(MovingTracks.objectFromSite(ot, site, ctx, origin));
       } else if (t instanceof EarthPoint ep && orbit != null) {
@@ -74,9 +85,13 @@ public final class PointingTracks {
       return null;
     }
     if (p instanceof RaDec rd) {
-      return scenario.observer() instanceof GroundSite g
-          ? new StarFromSite(rd, g, ctx, ctx.date(scenario.horizon().start()))
-          : PointingTrack.fixed(rd);
+      AbsoluteDate origin = ctx.date(scenario.horizon().start());
+      if (scenario.observer() == null) {
+        return PointingTrack.fixed(rd); // no observer: no velocity, only the matrix and fixed models apply
+      }
+      ObserverVelocity velocity = velocity(scenario, ctx, origin);
+      return scenario.observer() instanceof GroundSite g ? ApparentStar.fromSite(rd, g, velocity, ctx, origin)
+          : ApparentStar.fromOrbit(rd, velocity, ctx, origin);
     }
     AzElPointing ae = (AzElPointing) p;
     PointingTrack parked = PointingTrack.parked(ae);
@@ -117,58 +132,5 @@ public final class PointingTracks {
         return 0;
       }
     };
-  }
-
-  /** A fixed star seen from a ground site: constant inertial direction, az/el turning with the Earth. */
-  private static final class StarFromSite implements PointingTrack {
-    private final Vector3D u;
-    private final double[] enu;
-    private final double sinPhi;
-    private final double cosPhi;
-    private final AstroContext ctx;
-    private final AbsoluteDate origin;
-    private final double culminationDeg;
-
-    StarFromSite(RaDec rd, GroundSite site, AstroContext ctx, AbsoluteDate origin) {
-      double[] v = TargetTrack.unit(rd.raDeg(), rd.decDeg());
-      this.u = new Vector3D(v[0], v[1], v[2]);
-      this.enu = SiteFrame.enuItrf(site);
-      this.sinPhi = Math.abs(Math.sin(Math.toRadians(site.latitudeDeg())));
-      this.cosPhi = Math.abs(Math.cos(Math.toRadians(site.latitudeDeg())));
-      this.ctx = ctx;
-      this.origin = origin;
-      this.culminationDeg = 90 - Math.abs(site.latitudeDeg() - rd.decDeg());
-    }
-
-    @Override
-    public Vector3D inertialDirection(double tS) {
-      return u;
-    }
-
-    @Override
-    public double maxAngularRateDegPerS(double t0S, double t1S) {
-      return 0;
-    }
-
-    @Override
-    public AzEl azEl(double tS) {
-      return SiteFrame.azEl(ctx, origin.shiftedBy(tS), enu, u);
-    }
-
-    @Override
-    public double maxAzimuthRateDegPerS(double t0S, double t1S) {
-      // The star is never higher than at upper culmination, 90 - |latitude - declination| (common practice).
-      double elMax = Math.min(culminationDeg, Math.max(azEl(t0S).elevationDeg(), azEl(t1S).elevationDeg())
-          + EARTH_RATE_DEG_PER_S * (t1S - t0S));
-      if (elMax >= 89.999) {
-        return Double.POSITIVE_INFINITY; // through the zenith the azimuth can flip: no finite bound
-      }
-      return EARTH_RATE_DEG_PER_S * (sinPhi + cosPhi * Math.tan(Math.toRadians(elMax)));
-    }
-
-    @Override
-    public double maxElevationRateDegPerS(double t0S, double t1S) {
-      return EARTH_RATE_DEG_PER_S * cosPhi;
-    }
   }
 }

@@ -25,11 +25,14 @@ final class Scratch {
   final double[] up = new double[3];
   final double[] tmp = new double[3];
   final double[] tmp2 = new double[3];
+  /** Observer velocity relative to the solar-system barycentre, m/s (annual aberration). */
+  final double[] obsVel = new double[3];
 
   /** Fills the shared (target-independent) state at sample k or, when k < 0, at time tS. */
   void load(Chunk c, int k, double tS, boolean teme) {
     if (k >= 0) {
       c.observer.get(k, obs);
+      c.observerVelocity.get(k, obsVel);
       c.sun.get(k, sun);
       c.moon.get(k, moon);
       c.itrfX.get(k, ix);
@@ -42,6 +45,7 @@ final class Scratch {
       }
     } else {
       c.observer.at(tS, obs);
+      c.observerVelocity.at(tS, obsVel);
       c.sun.at(tS, sun);
       c.moon.at(tS, moon);
       c.itrfX.at(tS, ix);

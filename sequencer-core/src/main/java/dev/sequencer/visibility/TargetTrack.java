@@ -1,5 +1,6 @@
 package dev.sequencer.visibility;
 
+import dev.sequencer.astro.Aberration;
 import dev.sequencer.astro.AstroContext;
 import dev.sequencer.model.EarthPoint;
 import dev.sequencer.model.OrbitingTarget;
@@ -46,7 +47,10 @@ abstract class TargetTrack {
     return new double[] {Math.cos(dec) * Math.cos(ra), Math.cos(dec) * Math.sin(ra), Math.sin(dec)};
   }
 
-  /** A fixed ICRS direction: no parallax, proper motion, aberration or refraction (see docs). */
+  /**
+   * A fixed ICRS direction pointed at its apparent direction: annual aberration for the observer's
+   * barycentric velocity (A1). No parallax, proper motion, light deflection or diurnal aberration.
+   */
   static final class Fixed extends TargetTrack {
     private final double[] u;
 
@@ -56,9 +60,7 @@ abstract class TargetTrack {
 
     @Override
     void fill(Chunk chunk, int k, double tS, Scratch s) {
-      s.los[0] = u[0];
-      s.los[1] = u[1];
-      s.los[2] = u[2];
+      Aberration.apparent(u, s.obsVel, s.los);
     }
   }
 

@@ -46,8 +46,8 @@ class AstroContextTest {
   @Test
   void bundledTableIsSortedAndCompleteToItsValidityDate() {
     // IERS Bulletin C / Leap_Second.dat history: TAI - UTC = 10 s from 1972-01-01, one second per entry up
-    // to 37 s from 2017-01-01 (28 entries). Validity 2026-06-30 is the date written in the bundled file
-    // (from Bulletin C 70, per the file's header).
+    // to 37 s from 2017-01-01 (28 entries). Validity 2027-06-28 is the date written in the bundled file
+    // (from Bulletin C 72, per the file's header).
     List<LeapSecondTable.Entry> entries = LeapSecondTable.bundled().entries();
     assertEquals(new LeapSecondTable.Entry(LocalDate.of(1972, 1, 1), 10), entries.get(0));
     assertEquals(new LeapSecondTable.Entry(LocalDate.of(2017, 1, 1), 37), entries.get(entries.size() - 1));
@@ -56,10 +56,10 @@ class AstroContextTest {
       assertTrue(entries.get(i).date().isAfter(entries.get(i - 1).date()), "entry " + i + " out of order");
       assertEquals(entries.get(i - 1).taiMinusUtcS() + 1, entries.get(i).taiMinusUtcS(), "entry " + i);
     }
-    assertEquals(LocalDate.of(2026, 6, 30), LeapSecondTable.bundled().validUntil());
-    assertEquals(LocalDate.of(2026, 6, 30), CTX.leapSecondsValidUntil());
-    assertFalse(CTX.beyondLeapSecondValidity(Instant.parse("2026-06-30T23:59:59Z")));
-    assertTrue(CTX.beyondLeapSecondValidity(Instant.parse("2026-07-01T00:00:00Z")));
+    assertEquals(LocalDate.of(2027, 6, 28), LeapSecondTable.bundled().validUntil());
+    assertEquals(LocalDate.of(2027, 6, 28), CTX.leapSecondsValidUntil());
+    assertFalse(CTX.beyondLeapSecondValidity(Instant.parse("2027-06-28T23:59:59Z")));
+    assertTrue(CTX.beyondLeapSecondValidity(Instant.parse("2027-06-29T00:00:00Z")));
   }
 
   @Test

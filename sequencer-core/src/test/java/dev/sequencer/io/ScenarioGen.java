@@ -8,6 +8,7 @@ import dev.sequencer.model.Constraints;
 import dev.sequencer.model.EarthPoint;
 import dev.sequencer.model.FlexibleExposure;
 import dev.sequencer.model.GroundSite;
+import dev.sequencer.model.Refraction;
 import dev.sequencer.model.KeplerianElements;
 import dev.sequencer.model.Observer;
 import dev.sequencer.model.OrbitObserver;
@@ -72,7 +73,8 @@ final class ScenarioGen {
         for (int i = r.nextInt(4); i > 0; i--) {
           mask.add(new AzEl(closed(0, 360), closed(-90, 90)));
         }
-        return new GroundSite(closed(-90, 90), halfOpen(-180, 360), closed(-1000, 10000), mask);
+        Refraction refraction = r.nextBoolean() ? null : new Refraction(closed(0, 1200), closed(-90, 60));
+        return new GroundSite(closed(-90, 90), halfOpen(-180, 360), closed(-1000, 10000), mask, refraction);
       }
       case ORBIT_TLE:
         return new OrbitObserver(tle(90001 + r.nextInt(9000), horizon));

@@ -16,6 +16,7 @@ import static org.junit.jupiter.api.Assertions.assertTrue;
 import com.fasterxml.jackson.databind.node.ObjectNode;
 import dev.sequencer.model.Constraints;
 import dev.sequencer.model.GroundSite;
+import dev.sequencer.model.Refraction;
 import dev.sequencer.model.OrbitingTarget;
 import dev.sequencer.model.RaDec;
 import dev.sequencer.model.Request;
@@ -199,6 +200,27 @@ class ScenarioReaderTest {
     List<Problem> ps = problems(doc);
     at(ps, "observer.ground.horizonMask[1][0]");
     at(ps, "observer.ground.horizonMask[2]");
+  }
+
+  @Test
+  void refractionIsReadAndCheckedWithPaths() {
+    // Format A1: observer.ground.refraction {pressureHPa, temperatureC}; both required, ranges from
+    // Refraction's rules, an unknown field named with a suggestion.
+    ObjectNode doc = base();
+    ObjectNode ground = (ObjectNode) doc.get("observer").get("ground");
+    ground.set("refraction", tree("{\"pressureHPa\": 780, \"temperatureC\": 5}"));
+    GroundSite site = (GroundSite) read(doc).scenario().observer();
+    assertEquals(new Refraction(780, 5), site.refraction());
+    ground.set("refraction", tree("{\"pressureHPa\": -3, \"temperatureK\": 280}"));
+    List<Problem> ps = problems(doc);
+    assertEquals("must be in [0, 1200] (was -3)", at(ps, "observer.ground.refraction.pressureHPa").message());
+    assertEquals("-3", at(ps, "observer.ground.refraction.pressureHPa").value());
+    at(ps, "observer.ground.refraction.temperatureK");
+    at(ps, "observer.ground.refraction.temperatureC");
+    ground.set("refraction", tree("{\"pressureHPa\": 780, \"temperatureC\": 75}"));
+    assertEquals("must be in [-90, 60] (was 75)", at(problems(doc), "observer.ground.refraction.temperatureC").message());
+    ground.set("refraction", tree("[780, 5]"));
+    at(problems(doc), "observer.ground.refraction");
   }
 
   @Test

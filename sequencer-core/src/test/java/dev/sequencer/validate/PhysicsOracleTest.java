@@ -15,6 +15,7 @@ import dev.sequencer.model.KeplerianElements;
 import dev.sequencer.model.Observer;
 import dev.sequencer.model.OrbitObserver;
 import dev.sequencer.model.RaDec;
+import dev.sequencer.model.Refraction;
 import dev.sequencer.model.Request;
 import dev.sequencer.model.Scenario;
 import dev.sequencer.model.SlewSettings;
@@ -47,6 +48,17 @@ class PhysicsOracleTest {
     Constraints c = Constraints.builder().elevationMinDeg(25).elevationMaxDeg(87).sunElevationMaxDeg(-12)
         .moonSeparationMinDeg(25).build();
     check(site, c, 14 * 3600);
+  }
+
+  @Test
+  void bindingMaskAndRefractionAgreeWithTheOracle() {
+    // A mask above elevationMinDeg (25 deg) over a third of the sky, across the 0/360 seam, and refraction
+    // (format A1): the oracle applies both with its own Orekit topocentric frame, the engine with its grid.
+    GroundSite site = new GroundSite(24.62, 33.91, 820, List.of(new AzEl(0, 40), new AzEl(60, 12),
+        new AzEl(150, 35), new AzEl(200, 10), new AzEl(300, 12), new AzEl(330, 38)), new Refraction(920, 12));
+    Constraints c = Constraints.builder().elevationMinDeg(25).elevationMaxDeg(87).sunElevationMaxDeg(-12).build();
+    int maskRejections = check(site, c, 14 * 3600);
+    assertTrue(maskRejections >= 5, "only " + maskRejections + " early observations rejected by the elevation");
   }
 
   @Test
@@ -101,15 +113,16 @@ class PhysicsOracleTest {
     return new RaDec(360 * rnd.nextDouble(), -60 + 150 * rnd.nextDouble());
   }
 
-  private static void check(Observer observer, Constraints c, long lengthS) {
-    check(observer, c, lengthS, PhysicsOracleTest::star, 300, null);
+  /** Runs the comparison on stars; returns how many early observations the oracle rejected for elevation. */
+  private static int check(Observer observer, Constraints c, long lengthS) {
+    return check(observer, c, lengthS, PhysicsOracleTest::star, 300, null);
   }
 
   /**
    * 25 requests on random targets, observations of {@code obsS}; every third one carries {@code own}
-   * constraints when it is not null.
+   * constraints when it is not null. Returns how many early observations the oracle rejected for elevation.
    */
-  private static void check(Observer observer, Constraints c, long lengthS, Function<Random, Target> targets,
+  private static int check(Observer observer, Constraints c, long lengthS, Function<Random, Target> targets,
       double obsS, ConstraintOverrides own) {
     Random rnd = new Random(3);
     List<Request> reqs = new ArrayList<>();
@@ -123,6 +136,7 @@ class PhysicsOracleTest {
     PhysicsOracle oracle = new PhysicsOracle(s, CTX);
     int inside = 0;
     int outside = 0;
+    int byElevation = 0;
     for (int i = 0; i < reqs.size(); i++) {
       for (TimeWindow w : vis.get(i).intervals()) {
         if (w.durationS() >= obsS) {
@@ -138,10 +152,12 @@ class PhysicsOracleTest {
           assertFalse(v.isEmpty(), reqs.get(i).id() + " two minutes before " + w);
           assertTrue(v.get(0).contains("violated by"), v.get(0));
           outside++;
+          byElevation += v.get(0).contains(": elevation violated") ? 1 : 0;
         }
       }
     }
     assertTrue(inside >= 10 && outside >= 10, "inside " + inside + ", outside " + outside);
+    return byElevation;
   }
 
   private static boolean overlapsEarlierWindow(List<TimeWindow> all, TimeWindow w, Instant t) {

@@ -65,9 +65,8 @@ class HourAngleSofaTest {
   void hourAngleWindowsMatchSofaApparentPlaces() {
     // Reference: HA = ERA + longitude - RA of the star's apparent place in CIRS (SOFA atci13: precession,
     // nutation, light deflection and annual aberration), edges found here by bisection on SOFA alone.
-    // Tolerance 1.6 s: fixed targets are not yet pointed at their apparent place (annual aberration, A1,
-    // is a separate change): aberration moves RA by at most 20.5" sec(dec) = 21.8" at dec 20 deg, i.e.
-    // 1.45 s of hour angle. Once it is applied the edges agree to 0.1 s and this tolerance can drop.
+    // Tolerance 0.1 s: the engine's 0.05 s edge refinement, plus what our apparent place leaves out
+    // (light deflection and diurnal aberration, well under 0.5", i.e. under 0.04 s of hour angle).
     RaDec star = new RaDec(80, 20);
     double minH = -2;
     double maxH = 3;
@@ -83,8 +82,8 @@ class HourAngleSofaTest {
     assertEquals(ref.size(), w.size(), w + " vs " + describe(ref));
     assertEquals(3, w.size());
     for (int i = 0; i < ref.size(); i++) {
-      assertEquals(ref.get(i)[0], CTX.date(w.get(i).start()).durationFrom(origin), 1.6, w + " vs " + describe(ref));
-      assertEquals(ref.get(i)[1], CTX.date(w.get(i).end()).durationFrom(origin), 1.6, w + " vs " + describe(ref));
+      assertEquals(ref.get(i)[0], CTX.date(w.get(i).start()).durationFrom(origin), 0.1, w + " vs " + describe(ref));
+      assertEquals(ref.get(i)[1], CTX.date(w.get(i).end()).durationFrom(origin), 0.1, w + " vs " + describe(ref));
     }
     assertTrue(v.removedS().get(ConstraintFunction.HOUR_ANGLE) > 3600);
   }

@@ -42,13 +42,17 @@ import org.orekit.utils.Constants;
 
 /**
  * Window edges against Orekit's own event detectors (a reference library) run on separate propagations:
- * every edge within 1 s, no window missed or extra.
+ * every edge within 0.052 s (the engine's stated 0.05 s plus rounding), no window missed or extra.
  */
 class VisibilityReferenceTest {
   private static final AstroContext CTX = AstroContext.offline();
   static final Instant T0 = Instant.parse("2031-03-10T00:00:00Z");
-  /** Edge tolerance required by the visibility issue. */
-  private static final double EDGE_TOL_S = 1.0;
+  /**
+   * Edge tolerance: the engine refines each edge to 0.05 s on the side where the constraint holds
+   * (RootScan.EDGE_ACCURACY_S, the accuracy docs/visibility.md states), rounds it inward to 1 ms, and the
+   * reference detectors converge to 1e-4 s: 0.0511 s, rounded up. Measured worst 0.044 s.
+   */
+  private static final double EDGE_TOL_S = 0.052;
 
   @Test
   void orbitingTargetElevationFromGroundMatchesOrekitElevationDetector() {
@@ -102,7 +106,9 @@ class VisibilityReferenceTest {
   @Test
   void fixedTargetsFromLeoMatchCustomDetectorOnSeparatePropagation() {
     // Reference: Orekit's FunctionalDetector on the observer's own propagation (not our grid), with the
-    // spec's limb, Sun and Moon formulas written independently here with Hipparchus vectors.
+    // spec's limb, Sun and Moon formulas written independently here with Hipparchus vectors, and the
+    // target's apparent direction (A1) to first order in v/c, u' = (u + v/c)/|u + v/c|, v the Earth's
+    // heliocentric velocity (minus the series Sun's) plus the spacecraft's (second-order terms < 0.002").
     KeplerianElements k = new KeplerianElements(T0, 6_378.137 + 550, 0.0005, 97.5, 100, 0, 0);
     OrbitObserver obs = new OrbitObserver(k);
     Constraints c = Constraints.builder().earthLimbMinDeg(15).sunSeparationMinDeg(45).moonSeparationMinDeg(10).build();
@@ -110,12 +116,15 @@ class VisibilityReferenceTest {
     Random rnd = new Random(3);
     for (int trial = 0; trial < 5; trial++) {
       RaDec rd = new RaDec(360 * rnd.nextDouble(), -80 + 160 * rnd.nextDouble());
-      Vector3D u = new Vector3D(Math.toRadians(rd.raDeg()), Math.toRadians(rd.decDeg()));
+      Vector3D u0 = new Vector3D(Math.toRadians(rd.raDeg()), Math.toRadians(rd.decDeg()));
       Scenario s = scenario(obs, c, rd, 24 * 3600);
       Propagator p = J2Reference.propagator(k, CTX);
       EventDetector d = new FunctionalDetector().withFunction(st -> {
         Vector3D r = st.getPosition(gcrf);
         AbsoluteDate t = st.getDate();
+        Vector3D v = st.getPVCoordinates(gcrf).getVelocity()
+            .subtract(CTX.sun().getPVCoordinates(t, gcrf).getVelocity());
+        Vector3D u = u0.add(1 / Constants.SPEED_OF_LIGHT, v).normalize();
         double limb = Vector3D.angle(u, r.negate()) - FastMath.asin(6_378_137.0 / r.getNorm()) - Math.toRadians(15);
         double sun = Vector3D.angle(u, CTX.sun().getPosition(t, gcrf).subtract(r)) - Math.toRadians(45);
         double moon = Vector3D.angle(u, CTX.moon().getPosition(t, gcrf).subtract(r)) - Math.toRadians(10);

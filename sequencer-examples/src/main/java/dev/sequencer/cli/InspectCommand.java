@@ -35,12 +35,12 @@ final class InspectCommand implements Callable<Integer> {
     InputRules.check(r.scenario(), scenario.toString());
     PrintWriter out = spec.commandLine().getOut();
     ScenarioSummary.lines(r.scenario()).forEach(out::println);
-    Pipeline p = Pipeline.of(r.scenario(), common.astro());
+    AstroContext astro = common.astro();
+    Pipeline p = Pipeline.of(r.scenario(), astro);
     out.println(ScenarioSummary.requestedAgainstObservable(r.scenario(), p.windows()));
-    AstroContext offline = AstroContext.offline();
-    if (offline.beyondLeapSecondValidity(r.scenario().horizon().end())) {
-      out.println("warning     the horizon ends after " + offline.leapSecondsValidUntil()
-          + ", the last date the bundled leap-second table is known to be complete for");
+    if (astro.beyondLeapSecondValidity(r.scenario().horizon().end())) {
+      out.println("warning     the horizon ends after " + astro.leapSecondsValidUntil()
+          + ", the last date the leap-second table is known to be complete for");
     }
     r.warnings().forEach(w -> out.println("warning     " + w));
     ScenarioSummary.unusedConstraints(r.scenario()).forEach(w -> out.println("note        " + w));

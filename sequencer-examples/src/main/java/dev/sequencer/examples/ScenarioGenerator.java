@@ -54,8 +54,10 @@ public final class ScenarioGenerator {
    */
   static Scenario groundNight() {
     Random rnd = new Random(20310320L);
-    GroundSite site = new GroundSite(27.41, -109.13, 1450, List.of(
-        new AzEl(0, 14), new AzEl(60, 20), new AzEl(120, 12), new AzEl(200, 8), new AzEl(280, 16)));
+    // A ridge in the north (40 deg, across the 0/360 seam) above the 25 deg limit and above the airmass-2
+    // elevation (about 30 deg): it binds for the circumpolar fields low in the north.
+    GroundSite site = new GroundSite(27.41, -109.13, 1450, List.of(new AzEl(0, 40), new AzEl(30, 40),
+        new AzEl(60, 20), new AzEl(120, 12), new AzEl(200, 8), new AzEl(280, 16), new AzEl(330, 40)));
     Constraints c = Constraints.builder().sunElevationMaxDeg(-12).moonSeparationMinDeg(30).elevationMinDeg(25)
         .elevationMaxDeg(87).airmassMax(2.0).hourAngleMinH(-4).hourAngleMaxH(4).build();
     ConstraintOverrides demanding = ConstraintOverrides.setting(Constraints.builder().airmassMax(1.3).build());
@@ -107,8 +109,9 @@ public final class ScenarioGenerator {
   static Scenario satelliteTracking(AstroContext ctx) {
     Random rnd = new Random(20310910L);
     Instant epoch = Instant.parse("2031-09-10T17:00:00Z");
+    // Buildings in the south-west (28 deg, above the 20 deg limit) hides the low parts of some passes.
     GroundSite site = new GroundSite(38.87, 16.24, 610, List.of(new AzEl(0, 10), new AzEl(90, 15), new AzEl(180, 10),
-        new AzEl(270, 12)));
+        new AzEl(200, 28), new AzEl(260, 28), new AzEl(270, 12)));
     // elevationMaxDeg 85: an alt-az mount cannot follow an object through the zenith (the azimuth would flip).
     Constraints c = Constraints.builder().sunElevationMaxDeg(-6).elevationMinDeg(20).elevationMaxDeg(85)
         .targetSunlitRequired(true).build();

@@ -5,7 +5,10 @@ import static org.junit.jupiter.api.Assertions.assertTrue;
 
 import dev.sequencer.astro.AstroContext;
 import dev.sequencer.io.ScenarioWriter;
+import dev.sequencer.model.GroundSite;
 import dev.sequencer.model.Scenario;
+import dev.sequencer.visibility.RequestVisibility;
+import dev.sequencer.visibility.VisibilityCalculator;
 import dev.sequencer.sequence.SequencerOptions;
 import java.nio.file.Files;
 import java.nio.file.Path;
@@ -52,6 +55,27 @@ class ExamplesTest {
     Embedding.Outcome o = Embedding.plan(s, CTX, Embedding.quick(s, 3).withReproducible(3));
     assertValidAndUseful(o, 60);
     assertTrue(o.result().stats().phaseS().containsKey("cp-sat"), o.result().stats().phaseS().toString());
+  }
+
+  @Test
+  void bundledGroundScenariosHaveAHorizonMaskThatBinds() {
+    // Each ground example's mask rises above its elevationMinDeg somewhere (issue #14: a mask that never
+    // binds is untested): removing the mask must lengthen some request's windows by more than a minute.
+    for (String resource : List.of("/scenarios/demo-night.json", GroundNightQueue.SCENARIO,
+        SatelliteTrackingNight.SCENARIO)) {
+      Scenario s = Embedding.bundled(resource);
+      GroundSite site = (GroundSite) s.observer();
+      Scenario open = new Scenario(s.format(), s.name(), s.horizon(),
+          new GroundSite(site.latitudeDeg(), site.longitudeDeg(), site.altitudeM(), List.of(), site.refraction()),
+          s.constraints(), s.slew(), s.startPointing(), s.requests(), s.solver());
+      List<RequestVisibility> masked = new VisibilityCalculator(CTX).compute(s);
+      List<RequestVisibility> unmasked = new VisibilityCalculator(CTX).compute(open);
+      int bound = 0;
+      for (int i = 0; i < masked.size(); i++) {
+        bound += unmasked.get(i).totalS() - masked.get(i).totalS() > 60 ? 1 : 0;
+      }
+      assertTrue(bound >= 2, resource + ": the mask shortens only " + bound + " requests' windows");
+    }
   }
 
   @Test
