@@ -1,6 +1,5 @@
 package dev.sequencer.io;
 
-import com.fasterxml.jackson.core.JsonLocation;
 import com.fasterxml.jackson.core.JsonProcessingException;
 import com.fasterxml.jackson.core.StreamReadFeature;
 import com.fasterxml.jackson.core.json.JsonReadFeature;
@@ -30,15 +29,17 @@ final class Json {
 
   private Json() {}
 
-  /** The document's root object, or null after reporting malformed JSON (with line and column). */
-  static JsonNode parseObject(String text, Problems p) {
+  /**
+   * The document's root object, or null after reporting malformed JSON in our words (see
+   * {@link JsonSyntax}); {@code source} names the document (a file name) in that message.
+   */
+  static JsonNode parseObject(String text, String source, Problems p) {
     JsonNode root;
     try {
       root = MAPPER.readTree(text);
     } catch (JsonProcessingException e) {
-      JsonLocation at = e.getLocation();
-      String where = at == null ? "" : " at line " + at.getLineNr() + ", column " + at.getColumnNr();
-      p.add("", "malformed JSON" + where + ": " + e.getOriginalMessage(), null);
+      Problem syntax = JsonSyntax.describe(e, source);
+      p.add(syntax.path(), syntax.message(), null);
       return null;
     }
     if (root == null || root.isMissingNode()) {

@@ -6,6 +6,8 @@ import java.io.InputStream;
 import java.nio.file.Path;
 import java.util.List;
 import java.util.Objects;
+import org.slf4j.Logger;
+import org.slf4j.LoggerFactory;
 
 /**
  * Reads a scenario file (format 1, see {@code shared/spec/scenario-format.md}) and checks every rule
@@ -18,6 +20,8 @@ import java.util.Objects;
  * an absent field. I/O failures are {@link java.io.UncheckedIOException}s.
  */
 public final class ScenarioReader {
+  private static final Logger LOG = LoggerFactory.getLogger(ScenarioReader.class);
+
   private ScenarioReader() {}
 
   /** A valid scenario and the adjustments made while reading it (e.g. windows clipped to the horizon). */
@@ -30,7 +34,11 @@ public final class ScenarioReader {
 
   /** Reads a UTF-8 scenario file; problems are reported under the file's name. */
   public static Result read(Path file) {
-    return parse(Json.read(file), file.toString());
+    long t0 = System.nanoTime();
+    Result r = parse(Json.read(file), file.toString());
+    LOG.debug("read {}: {} requests, in {} ms", file, r.scenario().requests().size(),
+        (System.nanoTime() - t0) / 1_000_000);
+    return r;
   }
 
   /** Reads UTF-8 scenario JSON from a stream (not closed). */
@@ -46,7 +54,7 @@ public final class ScenarioReader {
   /** Reads scenario JSON text; {@code source} names it in the exception message. */
   public static Result parse(String json, String source) {
     Problems problems = new Problems();
-    JsonNode root = Json.parseObject(json, problems);
+    JsonNode root = Json.parseObject(json, source, problems);
     Scenario scenario = root == null ? null : new ScenarioParser(problems).parse(root);
     problems.throwIfAny(source);
     return new Result(scenario, problems.warnings());

@@ -47,7 +47,7 @@ public final class WindowsFile {
   /** Reads windows JSON text; {@code source} names it in the exception message. */
   public static List<RequestWindows> parse(String json, String source) {
     Problems p = new Problems();
-    JsonNode root = Json.parseObject(json, p);
+    JsonNode root = Json.parseObject(json, source, p);
     List<RequestWindows> out = root == null ? null : parse(root, p);
     p.throwIfAny(source);
     return out;

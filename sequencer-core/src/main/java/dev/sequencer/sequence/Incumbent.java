@@ -64,7 +64,9 @@ final class Incumbent {
       return false;
     }
     best = new Best(timed, score, source);
-    report();
+    if (source != Source.EMPTY) {
+      report(); // the empty plan is only the floor, not a plan anyone found
+    }
     return true;
   }
 

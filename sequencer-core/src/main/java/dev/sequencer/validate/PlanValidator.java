@@ -17,6 +17,8 @@ import java.util.List;
 import java.util.Locale;
 import java.util.Map;
 import java.util.Objects;
+import org.slf4j.Logger;
+import org.slf4j.LoggerFactory;
 
 /**
  * Checks a timeline against requests, visibility windows and exact transitions; returns the violations
@@ -37,6 +39,8 @@ import java.util.Objects;
  * Priority totals are compared to 1e-9 relative.
  */
 public final class PlanValidator {
+  private static final Logger LOG = LoggerFactory.getLogger(PlanValidator.class);
+
   /** Time tolerance of every comparison, seconds. */
   public static final double TOLERANCE_S = 1e-3;
   /**
@@ -117,6 +121,14 @@ public final class PlanValidator {
 
   /** All violations of {@code timeline}; empty when it is valid. */
   public List<String> violations(Timeline timeline) {
+    long t0 = System.nanoTime();
+    List<String> out = check(timeline);
+    LOG.debug("check: {} observations, {} violations, in {} ms", timeline.observations().size(), out.size(),
+        (System.nanoTime() - t0) / 1_000_000);
+    return out;
+  }
+
+  private List<String> check(Timeline timeline) {
     List<String> out = new ArrayList<>();
     List<Observation> obs = timeline.observations();
     checkOncePerRequest(timeline, out);

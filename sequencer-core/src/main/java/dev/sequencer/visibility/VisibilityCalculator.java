@@ -17,6 +17,8 @@ import java.util.concurrent.ForkJoinPool;
 import java.util.stream.IntStream;
 import org.orekit.utils.PVCoordinatesProvider;
 import org.orekit.time.AbsoluteDate;
+import org.slf4j.Logger;
+import org.slf4j.LoggerFactory;
 
 /**
  * Computes each request's visibility windows over a scenario's horizon.
@@ -36,6 +38,8 @@ import org.orekit.time.AbsoluteDate;
  * <p>Immutable; one calculator may be shared by threads.
  */
 public final class VisibilityCalculator {
+  private static final Logger LOG = LoggerFactory.getLogger(VisibilityCalculator.class);
+
   /** Default grid step, seconds: no window or gap of this length or more is missed. */
   public static final double DEFAULT_MAX_STEP_S = 30.0;
   /** Default chunk length, seconds. */
@@ -86,6 +90,16 @@ public final class VisibilityCalculator {
 
   /** Windows of every request of the scenario, in request order. */
   public List<RequestVisibility> compute(Scenario scenario) {
+    long t0 = System.nanoTime();
+    List<RequestVisibility> out = computeAll(scenario);
+    if (LOG.isDebugEnabled()) {
+      LOG.debug("visibility: {} requests, {} windows, in {} ms", out.size(),
+          out.stream().mapToInt(v -> v.intervals().size()).sum(), (System.nanoTime() - t0) / 1_000_000);
+    }
+    return out;
+  }
+
+  private List<RequestVisibility> computeAll(Scenario scenario) {
     AbsoluteDate origin = ctx.date(scenario.horizon().start());
     double horizonS = ctx.date(scenario.horizon().end()).durationFrom(origin);
     List<Request> requests = scenario.requests();

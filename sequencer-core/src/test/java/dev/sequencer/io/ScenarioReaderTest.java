@@ -107,13 +107,14 @@ class ScenarioReaderTest {
   @Test
   void malformedJsonGivesLineAndColumn() {
     Problem p = problems("{\n  \"format\": 1,\n  \"name\": }").get(0);
-    assertEquals("", p.path());
-    assertTrue(p.message().startsWith("malformed JSON at line 3, column 11:"), p.message());
+    assertEquals("name", p.path());
+    assertTrue(p.message().startsWith("malformed JSON at line 3, column 11 of scenario: expected a value"), p.message());
   }
 
   @Test
   void duplicateKeysAndTrailingContentAreMalformed() {
-    assertTrue(problems("{\"format\": 1, \"format\": 1}").get(0).message().contains("Duplicate field 'format'"));
+    assertTrue(problems("{\"format\": 1, \"format\": 1}").get(0).message()
+        .endsWith("the field \"format\" appears twice in the same object"));
     assertTrue(problems(base() + " {}").get(0).message().startsWith("malformed JSON"));
   }
 

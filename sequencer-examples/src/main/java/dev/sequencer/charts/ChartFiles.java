@@ -9,9 +9,8 @@ import java.nio.charset.StandardCharsets;
 import java.nio.file.Path;
 import org.jfree.chart.ChartUtils;
 import org.jfree.chart.JFreeChart;
-import org.jfree.svg.SVGGraphics2D;
 
-/** Writes a chart as PNG (JFreeChart's encoder) and SVG (JFreeSVG), each atomically. */
+/** Writes a chart as PNG (JFreeChart's encoder) and SVG (our {@link SvgGraphics}), each atomically. */
 public final class ChartFiles {
   private ChartFiles() {}
 
@@ -38,8 +37,9 @@ public final class ChartFiles {
 
   /** Writes {@code chart} as a {@code widthPx} x {@code heightPx} SVG document to {@code file}. */
   public static void svg(JFreeChart chart, int widthPx, int heightPx, Path file) {
-    SVGGraphics2D g = new SVGGraphics2D(widthPx, heightPx);
+    SvgGraphics g = new SvgGraphics(widthPx, heightPx);
     chart.draw(g, new Rectangle(0, 0, widthPx, heightPx));
-    AtomicFiles.writeBytes(file, g.getSVGDocument().getBytes(StandardCharsets.UTF_8));
+    g.dispose();
+    AtomicFiles.writeBytes(file, g.document().getBytes(StandardCharsets.UTF_8));
   }
 }

@@ -44,6 +44,7 @@ final class DemoCommand implements Callable<Integer> {
 
   @Override
   public Integer call() {
+    Outputs.check(Outputs.folder("--output-dir", dir));
     PrintWriter out = spec.commandLine().getOut();
     ScenarioReader.Result r;
     try (InputStream in = DemoCommand.class.getResourceAsStream(SCENARIO)) {

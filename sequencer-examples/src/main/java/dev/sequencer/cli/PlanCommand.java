@@ -66,7 +66,7 @@ final class PlanCommand implements Callable<Integer> {
     PrintWriter out = spec.commandLine().getOut();
     r.warnings().forEach(w -> out.println("warning: " + w));
     InputRules.check(r.scenario(), scenario.toString());
-    Outputs.checkFolder("--output", output);
+    Outputs.check(Outputs.file("--output", output), Outputs.file("--csv", csv), Outputs.plot("--plot", plot));
     PlanOutcome planned = solve(r.scenario(), common.astro(), solverOptions, r.scenario().solverOrDefaults(), out);
     Pipeline p = new Pipeline(planned.geometry(), common.astro());
     print(out, planned.result(), planned.timeline(), p.visibility());

@@ -10,9 +10,16 @@ import java.nio.file.Path;
 import java.util.ArrayList;
 import java.util.List;
 import org.jfree.chart.JFreeChart;
+import org.slf4j.Logger;
+import org.slf4j.LoggerFactory;
 
 /** Writes what {@code plan} and {@code demo} produce besides the timeline file: the CSV and the pictures. */
 final class PlanOutputs {
+  /** What {@code --plot PREFIX} appends to the prefix, in the order the files are written. */
+  static final List<String> PLOT_SUFFIXES = List.of("-timeline.png", "-timeline.svg", "-sky.png", "-sky.svg");
+
+  private static final Logger LOG = LoggerFactory.getLogger(PlanOutputs.class);
+
   private PlanOutputs() {}
 
   /** Writes the CSV of {@code timeline} and reports the path. */
@@ -26,17 +33,19 @@ final class PlanOutputs {
    * name a directory part ("out/night" gives out/night-timeline.png).
    */
   static List<Path> plots(Pipeline p, Timeline timeline, String prefix, boolean includeUnscheduled, PrintWriter out) {
+    long t0 = System.nanoTime();
     ChartFiles.headless();
     PlanGeometry g = new PlanGeometry(p.scenario(), p.astro());
     List<Path> written = new ArrayList<>();
     JFreeChart tl = TimelineChart.create(g, p.windows(), timeline, includeUnscheduled);
     int h = TimelineChart.heightPx(timeline, includeUnscheduled);
-    written.add(write(tl, TimelineChart.WIDTH_PX, h, Path.of(prefix + "-timeline.png")));
-    written.add(write(tl, TimelineChart.WIDTH_PX, h, Path.of(prefix + "-timeline.svg")));
+    written.add(write(tl, TimelineChart.WIDTH_PX, h, Path.of(prefix + PLOT_SUFFIXES.get(0))));
+    written.add(write(tl, TimelineChart.WIDTH_PX, h, Path.of(prefix + PLOT_SUFFIXES.get(1))));
     JFreeChart sky = SkyChart.create(g, timeline);
-    written.add(write(sky, SkyChart.WIDTH_PX, SkyChart.HEIGHT_PX, Path.of(prefix + "-sky.png")));
-    written.add(write(sky, SkyChart.WIDTH_PX, SkyChart.HEIGHT_PX, Path.of(prefix + "-sky.svg")));
+    written.add(write(sky, SkyChart.WIDTH_PX, SkyChart.HEIGHT_PX, Path.of(prefix + PLOT_SUFFIXES.get(2))));
+    written.add(write(sky, SkyChart.WIDTH_PX, SkyChart.HEIGHT_PX, Path.of(prefix + PLOT_SUFFIXES.get(3))));
     written.forEach(f -> out.println("wrote " + f));
+    LOG.debug("charts: {} files in {} ms", written.size(), (System.nanoTime() - t0) / 1_000_000);
     return written;
   }
 

@@ -1,11 +1,14 @@
 package dev.sequencer.cli;
 
 import dev.sequencer.sequence.ProgressListener;
+import java.io.Console;
 import java.io.PrintWriter;
+import java.lang.reflect.Method;
 import java.util.Locale;
 import java.util.concurrent.Executors;
 import java.util.concurrent.ScheduledExecutorService;
 import java.util.concurrent.TimeUnit;
+import java.util.function.Predicate;
 
 /**
  * Planner progress for the terminal: elapsed seconds, plans found by all producers, the incumbent's priority
@@ -13,12 +16,16 @@ import java.util.concurrent.TimeUnit;
  *
  * <p>Interactive (a console): one status line redrawn in place with a carriage return, refreshed every
  * second so the elapsed time moves between solutions, and ended with a newline by {@link #close()}.
- * Redirected: one plain line per new solution, nothing else, so logs stay readable. Thread-safe: the
- * solver reports from its own threads.
+ * Redirected: one plain line per new solution, nothing else, so logs stay readable. Under
+ * {@code --quiet}: nothing. Thread-safe: the solver reports from its own threads.
  */
 final class Progress implements ProgressListener, AutoCloseable {
+  /** {@code Console.isTerminal()} (JDK 22 and later), or null on JDK 17 to 21. */
+  private static final Method IS_TERMINAL = isTerminalMethod();
+
   private final PrintWriter out;
   private final boolean interactive;
+  private final boolean silent;
   private final long startNanos = System.nanoTime();
   private ScheduledExecutorService ticker;
   private int solutions;
@@ -26,19 +33,54 @@ final class Progress implements ProgressListener, AutoCloseable {
   private double bound = Double.NaN;
   private int drawnWidth;
 
-  private Progress(PrintWriter out, boolean interactive) {
+  private Progress(PrintWriter out, boolean interactive, boolean silent) {
     this.out = out;
-    this.interactive = interactive;
+    this.interactive = interactive && !silent;
+    this.silent = silent;
   }
 
-  /** Progress to {@code out}, redrawn in place when {@code interactive}; {@link #start()} begins the refresh. */
+  /**
+   * Progress to {@code out}, redrawn in place when {@code interactive}; {@link #start()} begins the
+   * refresh. Nothing at all is written to the held-back output of {@code --quiet}.
+   */
   static Progress to(PrintWriter out, boolean interactive) {
-    return new Progress(out, interactive);
+    return new Progress(out, interactive, out instanceof QuietOutput);
   }
 
-  /** True when standard output is a terminal (no redirect). */
+  /**
+   * True when standard input and output are a terminal (no redirect). Up to JDK 21
+   * {@code System.console()} is null unless both are; from JDK 22 on it may return a console even when
+   * output is redirected, and {@code Console.isTerminal()} (new in JDK 22, called reflectively so the code
+   * still compiles for 17) tells.
+   */
   static boolean consoleAttached() {
-    return System.console() != null;
+    Console console = System.console();
+    return isTerminal(console, IS_TERMINAL == null ? null : c -> {
+      try {
+        return (Boolean) IS_TERMINAL.invoke(c);
+      } catch (ReflectiveOperationException | RuntimeException e) {
+        return false; // when in doubt, plain lines: they read well on a terminal too
+      }
+    });
+  }
+
+  /**
+   * The decision of {@link #consoleAttached()}: no console, no terminal; a console and no way to ask
+   * (JDK 17 to 21, {@code isTerminal} null), a terminal; else what {@code isTerminal} says.
+   */
+  static <C> boolean isTerminal(C console, Predicate<C> isTerminal) {
+    if (console == null) {
+      return false;
+    }
+    return isTerminal == null || isTerminal.test(console);
+  }
+
+  private static Method isTerminalMethod() {
+    try {
+      return Console.class.getMethod("isTerminal");
+    } catch (NoSuchMethodException e) {
+      return null;
+    }
   }
 
   /** Starts the one-second refresh of the in-place line (interactive only). */
@@ -61,6 +103,9 @@ final class Progress implements ProgressListener, AutoCloseable {
     priority = bestPriority;
     if (!Double.isNaN(boundPriority)) {
       bound = boundPriority;
+    }
+    if (silent) {
+      return;
     }
     if (interactive) {
       redraw();

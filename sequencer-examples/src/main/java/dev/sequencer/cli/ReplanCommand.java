@@ -87,7 +87,7 @@ final class ReplanCommand implements Callable<Integer> {
     if (stability != null) {
       options = options.withStabilityWeight(weight());
     }
-    Outputs.checkFolder("--output", output);
+    Outputs.check(Outputs.file("--output", output));
     ReplanOutcome outcome;
     try (Progress progress = Progress.to(out, Progress.consoleAttached())) {
       options = options.withSequencer(solverOptions.options(r.scenario().solverOrDefaults(), progress));

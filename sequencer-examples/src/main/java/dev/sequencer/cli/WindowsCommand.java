@@ -39,7 +39,7 @@ final class WindowsCommand implements Callable<Integer> {
   @Override
   public Integer call() {
     ScenarioReader.Result r = ScenarioReader.read(scenario);
-    Outputs.checkFolder("--output", output);
+    Outputs.check(Outputs.file("--output", output));
     Scenario s = r.scenario();
     PrintWriter out = spec.commandLine().getOut();
     r.warnings().forEach(w -> out.println("warning: " + w));

@@ -39,4 +39,26 @@ class ProgressTest {
     String last = out.substring(out.lastIndexOf('\r') + 1).trim();
     assertTrue(last.contains("2 plans found") && last.contains("best priority 12.0") && last.contains("bound 30.0"), last);
   }
+
+  @Test
+  void aConsoleIsATerminalOnlyWhenItSaysSo() {
+    // JDK 17 to 21: System.console() is null unless input and output are a terminal; no isTerminal().
+    assertFalse(Progress.isTerminal(null, null));
+    assertTrue(Progress.isTerminal(new Object(), null));
+    // JDK 22 and later: a console may exist with output redirected; isTerminal() decides.
+    assertFalse(Progress.isTerminal(new Object(), c -> false));
+    assertTrue(Progress.isTerminal(new Object(), c -> true));
+    assertFalse(Progress.isTerminal(null, c -> true));
+  }
+
+  @Test
+  void quietOutputGetsNoProgress() {
+    QuietOutput q = new QuietOutput();
+    try (Progress p = Progress.to(q, true).start()) {
+      p.onProgress(1, 10, 100, Double.NaN, 0.5);
+    }
+    StringWriter err = new StringWriter();
+    q.finish(1, new PrintWriter(err));
+    assertEquals("", err.toString());
+  }
 }
