@@ -147,6 +147,9 @@ public final class ScenarioWriter {
       o.set("rateDegPerS", JsonOut.number(e.rateDegPerS()));
       o.set("accelDegPerS2", JsonOut.number(e.accelDegPerS2()));
       o.set("settleS", JsonOut.number(e.settleS()));
+      if (!e.keepOutDuringSlew()) {
+        o.put("keepOutDuringSlew", false);
+      }
     } else if (slew instanceof SlewSettings.AltAz a) {
       o.set("azimuthRateDegPerS", JsonOut.number(a.azimuthRateDegPerS()));
       o.set("elevationRateDegPerS", JsonOut.number(a.elevationRateDegPerS()));
@@ -155,6 +158,9 @@ public final class ScenarioWriter {
       o.set("settleS", JsonOut.number(a.settleS()));
       if (a.azimuthRangeDeg() != null) {
         o.set("azimuthRangeDeg", JsonOut.numbers(a.azimuthRangeDeg()));
+      }
+      if (!a.keepOutDuringSlew()) {
+        o.put("keepOutDuringSlew", false);
       }
     } else if (slew instanceof SlewSettings.Fixed f) {
       o.set("seconds", JsonOut.number(f.seconds()));

@@ -17,11 +17,11 @@ import java.util.Set;
 final class SlewParser {
   static final Map<String, List<String>> MODELS =
       Map.of(
-          "eigenaxis", List.of("model", "rateDegPerS", "accelDegPerS2", "settleS"),
+          "eigenaxis", List.of("model", "rateDegPerS", "accelDegPerS2", "settleS", "keepOutDuringSlew"),
           "altaz", List.of("model", "azimuthRateDegPerS", "elevationRateDegPerS", "azimuthAccelDegPerS2",
-              "elevationAccelDegPerS2", "settleS", "azimuthRangeDeg"),
-          "fixed", List.of("model", "seconds"),
-          "matrix", List.of("model", "seconds", "fromStartSeconds"));
+              "elevationAccelDegPerS2", "settleS", "azimuthRangeDeg", "keepOutDuringSlew"),
+          "fixed", List.of("model", "seconds", "keepOutDuringSlew"),
+          "matrix", List.of("model", "seconds", "fromStartSeconds", "keepOutDuringSlew"));
   static final List<String> MODEL_NAMES = List.of("eigenaxis", "altaz", "fixed", "matrix");
 
   private final Problems p;
@@ -86,7 +86,9 @@ final class SlewParser {
     Double rate = f.number("rateDegPerS", true, Range.POSITIVE);
     Double accel = f.number("accelDegPerS2", true, Range.POSITIVE);
     Double settle = f.number("settleS", true, Range.NON_NEGATIVE);
-    return rate == null || accel == null || settle == null ? null : new SlewSettings.Eigenaxis(rate, accel, settle);
+    boolean keepOut = keepOut(f);
+    return rate == null || accel == null || settle == null ? null
+        : new SlewSettings.Eigenaxis(rate, accel, settle, keepOut);
   }
 
   private SlewSettings altaz(Fields f) {
@@ -113,15 +115,26 @@ final class SlewParser {
     if (azRate == null || elRate == null || azAccel == null || elAccel == null || settle == null) {
       return null;
     }
-    return new SlewSettings.AltAz(azRate, elRate, azAccel, elAccel, settle, range);
+    return new SlewSettings.AltAz(azRate, elRate, azAccel, elAccel, settle, range, keepOut(f));
+  }
+
+  /**
+   * {@code keepOutDuringSlew} (spec A3): a boolean, default true. Accepted for every model; {@code fixed} and
+   * {@code matrix} define no slew path, so the value has no effect there.
+   */
+  private static boolean keepOut(Fields f) {
+    Boolean b = f.bool("keepOutDuringSlew", false);
+    return b == null || b;
   }
 
   private SlewSettings fixed(Fields f) {
+    keepOut(f); // type-checked; no path, no effect
     Double seconds = f.number("seconds", true, Range.NON_NEGATIVE);
     return seconds == null ? null : new SlewSettings.Fixed(seconds);
   }
 
   private SlewSettings matrix(Fields f) {
+    keepOut(f); // type-checked; no path, no effect
     ArrayNode rows = f.array("seconds", true);
     List<List<Double>> table = new ArrayList<>();
     if (rows != null) {

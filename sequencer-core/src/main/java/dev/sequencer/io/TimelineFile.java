@@ -5,6 +5,7 @@ import com.fasterxml.jackson.databind.node.ArrayNode;
 import com.fasterxml.jackson.databind.node.ObjectNode;
 import dev.sequencer.model.Observation;
 import dev.sequencer.model.PlanStatus;
+import dev.sequencer.model.RaDec;
 import dev.sequencer.model.Timeline;
 import dev.sequencer.model.Unscheduled;
 import java.nio.file.Path;
@@ -24,7 +25,8 @@ import java.util.Map;
 public final class TimelineFile {
   static final List<String> TOP = List.of("format", "status", "objective", "bound", "observations", "unscheduled");
   static final List<String> OBJECTIVE = List.of("priority", "slewSeconds");
-  static final List<String> OBSERVATION = List.of("id", "start", "end", "slewSeconds", "value", "state");
+  static final List<String> OBSERVATION =
+      List.of("id", "start", "end", "slewSeconds", "value", "state", "slewStart", "slewVia");
   static final List<String> UNSCHEDULED = List.of("id", "reason");
   static final List<String> STATES = List.of(Observation.DONE, Observation.RUNNING, Observation.PLANNED);
 
@@ -54,6 +56,15 @@ public final class TimelineFile {
       if (ob.state() != null) {
         e.put("state", ob.state());
       }
+      if (ob.slewStart() != null) {
+        e.put("slewStart", JsonOut.instant(ob.slewStart()));
+      }
+      if (!ob.slewVia().isEmpty()) {
+        ArrayNode via = e.putArray("slewVia");
+        for (RaDec d : ob.slewVia()) {
+          via.addArray().add(JsonOut.number(d.raDeg())).add(JsonOut.number(d.decDeg()));
+        }
+      }
     }
     ArrayNode uns = o.putArray("unscheduled");
     for (Unscheduled u : t.unscheduled()) {
@@ -76,7 +87,7 @@ public final class TimelineFile {
   /** Reads timeline JSON text; {@code source} names it in the exception message. */
   public static Timeline parse(String json, String source) {
     Problems p = new Problems();
-    JsonNode root = Json.parseObject(json, p);
+    JsonNode root = Json.parseObject(json, source, p);
     Timeline t = root == null ? null : parse(root, p);
     p.throwIfAny(source);
     return t;
@@ -134,6 +145,12 @@ public final class TimelineFile {
       Double slew = f.number("slewSeconds", true, Range.NON_NEGATIVE);
       Double value = f.number("value", false, Range.NON_NEGATIVE);
       String state = f.text("state", false);
+      Instant slewStart = f.instant("slewStart", false);
+      List<RaDec> via = slewVia(f, p);
+      if (slewStart != null && start != null && slewStart.isAfter(start)) {
+        p.add(f.path("slewStart"), "slew departs at " + slewStart + ", after the observation's start " + start,
+            slewStart.toString());
+      }
       if (state != null && !STATES.contains(state)) {
         p.invalid(f.path("state"), "must be one of " + String.join(", ", STATES) + Suggest.hint(state, STATES),
             f.get("state", true));
@@ -149,7 +166,33 @@ public final class TimelineFile {
         previousStart = start;
       }
       if (p.count() == before) {
-        out.add(new Observation(id, start, end, slew, value, state));
+        out.add(new Observation(id, start, end, slew, value, state, slewStart, via));
+      }
+    }
+    return out;
+  }
+
+  /** {@code slewVia}: an array of [raDeg, decDeg] pairs, RA in [0, 360), Dec in [-90, 90] (spec A3). */
+  private static List<RaDec> slewVia(Fields f, Problems p) {
+    JsonNode a = f.get("slewVia", false);
+    List<RaDec> out = new ArrayList<>();
+    if (a == null) {
+      return out;
+    }
+    String path = f.path("slewVia");
+    if (!a.isArray()) {
+      p.invalid(path, "must be an array of [raDeg, decDeg] pairs", a);
+      return out;
+    }
+    for (int i = 0; i < a.size(); i++) {
+      String at = path + "[" + i + "]";
+      if (!Values.isArray(a.get(i), at, p, 2, "a pair [raDeg, decDeg]")) {
+        continue;
+      }
+      Double ra = Values.number(a.get(i).get(0), at + "[0]", p, Range.RIGHT_ASCENSION);
+      Double dec = Values.number(a.get(i).get(1), at + "[1]", p, Range.LATITUDE);
+      if (ra != null && dec != null) {
+        out.add(new RaDec(ra, dec));
       }
     }
     return out;

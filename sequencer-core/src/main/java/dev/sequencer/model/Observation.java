@@ -1,14 +1,21 @@
 package dev.sequencer.model;
 
 import java.time.Instant;
+import java.util.List;
 import java.util.Objects;
 
 /**
  * One scheduled observation: its interval, the transition time before it (from the previous
  * observation or the start pointing), the value collected for flexible requests ({@code null}
  * otherwise) and the re-planning state ({@code null} means planned).
+ *
+ * <p>Keep-outs during slews (spec A3): {@code slewStart} is the instant the slew before this observation
+ * departs ({@code null}: any departure within the gap that keeps the minima), and {@code slewVia} the
+ * directions an eigenaxis slew passes through (empty: the direct great-circle arc); then the slew is a
+ * chain of rest-to-rest legs through them and {@code slewSeconds} is the sum of the legs plus one settle.
  */
-public record Observation(String id, Instant start, Instant end, double slewSeconds, Double value, String state) {
+public record Observation(String id, Instant start, Instant end, double slewSeconds, Double value, String state,
+    Instant slewStart, List<RaDec> slewVia) {
   /** Re-planning states of the spec's extension. */
   public static final String DONE = "done";
   public static final String RUNNING = "running";
@@ -22,6 +29,20 @@ public record Observation(String id, Instant start, Instant end, double slewSeco
       throw new IllegalArgumentException("observation " + id + ": end " + end + " is before start " + start);
     }
     Checks.finite("slewSeconds", slewSeconds);
+    slewVia = slewVia == null ? List.of() : List.copyOf(slewVia);
+    if (slewStart != null && slewStart.isAfter(start)) {
+      throw new IllegalArgumentException("observation " + id + ": slewStart " + slewStart + " is after start " + start);
+    }
+  }
+
+  /** An observation with no slew departure instant and a direct slew. */
+  public Observation(String id, Instant start, Instant end, double slewSeconds, Double value, String state) {
+    this(id, start, end, slewSeconds, value, state, null, List.of());
+  }
+
+  /** A copy with the slew's departure instant and waypoints (spec A3). */
+  public Observation withSlew(Instant departure, List<RaDec> via) {
+    return new Observation(id, start, end, slewSeconds, value, state, departure, via);
   }
 
   /** A planned fixed-duration observation. */

@@ -8,12 +8,31 @@ public sealed interface SlewSettings {
   /** The model's name as written in the file. */
   String model();
 
+  /**
+   * Whether the Sun separation and Earth-limb minima hold along every slew too (spec A3, default
+   * {@code true}). Only {@code eigenaxis} and {@code altaz} define a slew path; {@code fixed} and
+   * {@code matrix} have none, so for them this is always {@code false} (nothing can be checked along a
+   * path that is not known).
+   */
+  boolean keepOutDuringSlew();
+
   /** Rest-to-rest rotation about the eigenaxis: rate and acceleration limits plus settle. */
-  record Eigenaxis(double rateDegPerS, double accelDegPerS2, double settleS) implements SlewSettings {
+  record Eigenaxis(double rateDegPerS, double accelDegPerS2, double settleS, boolean keepOutDuringSlew)
+      implements SlewSettings {
     public Eigenaxis {
       Checks.finite("rateDegPerS", rateDegPerS);
       Checks.finite("accelDegPerS2", accelDegPerS2);
       Checks.finite("settleS", settleS);
+    }
+
+    /** Keep-outs hold during slews (the format's default). */
+    public Eigenaxis(double rateDegPerS, double accelDegPerS2, double settleS) {
+      this(rateDegPerS, accelDegPerS2, settleS, true);
+    }
+
+    /** A copy with keep-outs during slews on or off. */
+    public Eigenaxis withKeepOutDuringSlew(boolean on) {
+      return new Eigenaxis(rateDegPerS, accelDegPerS2, settleS, on);
     }
 
     @Override
@@ -33,8 +52,22 @@ public sealed interface SlewSettings {
       double azimuthAccelDegPerS2,
       double elevationAccelDegPerS2,
       double settleS,
-      List<Double> azimuthRangeDeg)
+      List<Double> azimuthRangeDeg,
+      boolean keepOutDuringSlew)
       implements SlewSettings {
+    /** Keep-outs hold during slews (the format's default). */
+    public AltAz(double azimuthRateDegPerS, double elevationRateDegPerS, double azimuthAccelDegPerS2,
+        double elevationAccelDegPerS2, double settleS, List<Double> azimuthRangeDeg) {
+      this(azimuthRateDegPerS, elevationRateDegPerS, azimuthAccelDegPerS2, elevationAccelDegPerS2, settleS,
+          azimuthRangeDeg, true);
+    }
+
+    /** A copy with keep-outs during slews on or off. */
+    public AltAz withKeepOutDuringSlew(boolean on) {
+      return new AltAz(azimuthRateDegPerS, elevationRateDegPerS, azimuthAccelDegPerS2, elevationAccelDegPerS2,
+          settleS, azimuthRangeDeg, on);
+    }
+
     public AltAz {
       Checks.finite("azimuthRateDegPerS", azimuthRateDegPerS);
       Checks.finite("elevationRateDegPerS", elevationRateDegPerS);
@@ -57,6 +90,11 @@ public sealed interface SlewSettings {
     }
 
     @Override
+    public boolean keepOutDuringSlew() {
+      return false; // no slew path is defined
+    }
+
+    @Override
     public String model() {
       return "fixed";
     }
@@ -70,6 +108,11 @@ public sealed interface SlewSettings {
     public Matrix {
       seconds = seconds.stream().map(List::copyOf).toList();
       fromStartSeconds = fromStartSeconds == null ? null : List.copyOf(fromStartSeconds);
+    }
+
+    @Override
+    public boolean keepOutDuringSlew() {
+      return false; // no slew path is defined
     }
 
     @Override

@@ -127,6 +127,34 @@ class FilesTest {
   }
 
   @Test
+  void slewDepartureAndWaypointsRoundTrip() {
+    // Spec A3: "slewStart" (ISO-8601) and "slewVia" ([[raDeg, decDeg], ...]) on an observation.
+    Instant t0 = Instant.parse("2031-05-04T19:00:00Z");
+    Observation ob = new Observation("R1", t0, t0.plusSeconds(300), 61.5, null, null, t0.minusSeconds(90),
+        List.of(new RaDec(10.5, -20.25), new RaDec(359.0, 89.0)));
+    Timeline t = new Timeline(PlanStatus.FEASIBLE, 1, 61.5, null, List.of(ob), List.of());
+    String json = TimelineFile.toJson(t);
+    assertTrue(json.replace(" ", "").contains("\"slewStart\":\"2031-05-04T18:58:30Z\""), json);
+    assertEquals(t, TimelineFile.parse(json, "t"));
+  }
+
+  @Test
+  void badSlewDepartureAndWaypointsHavePaths() {
+    String bad = """
+        {"format": 1, "status": "FEASIBLE", "objective": {"priority": 1, "slewSeconds": 0},
+         "observations": [
+           {"id": "R1", "start": "2031-05-04T19:00:00Z", "end": "2031-05-04T19:10:00Z", "slewSeconds": 0,
+            "slewStart": "2031-05-04T19:01:00Z", "slewVia": [[360, 0], [10], [5, 91]]}],
+         "unscheduled": []}""";
+    List<Problem> ps = assertThrows(ScenarioException.class, () -> TimelineFile.parse(bad, "t")).problems();
+    assertTrue(at(ps, "observations[0] (id \"R1\").slewStart").message().contains("after the observation's start"));
+    at(ps, "observations[0] (id \"R1\").slewVia[0][0]");
+    at(ps, "observations[0] (id \"R1\").slewVia[1]");
+    at(ps, "observations[0] (id \"R1\").slewVia[2][1]");
+    assertEquals(4, ps.size());
+  }
+
+  @Test
   void timelineProblemsHavePaths() {
     String bad = """
         {"format": 1, "status": "OPTIMUM", "objective": {"priority": 1, "slewSeconds": -1},

@@ -184,14 +184,15 @@ final class ScenarioGen {
     };
     switch (models.get(r.nextInt(models.size()))) {
       case "eigenaxis":
-        return new SlewSettings.Eigenaxis(positive(), positive(), nonNegative());
+        return new SlewSettings.Eigenaxis(positive(), positive(), nonNegative(), r.nextInt(4) != 0);
       case "altaz": {
         List<Double> range = null;
         if (r.nextBoolean()) {
           double min = -360 + r.nextInt(361);
           range = List.of(min, min + 360 + (r.nextBoolean() ? 0 : r.nextDouble() * 180));
         }
-        return new SlewSettings.AltAz(positive(), positive(), positive(), positive(), nonNegative(), range);
+        return new SlewSettings.AltAz(positive(), positive(), positive(), positive(), nonNegative(), range,
+            r.nextInt(4) != 0);
       }
       case "fixed":
         return new SlewSettings.Fixed(nonNegative());
