@@ -54,14 +54,15 @@ public final class Budget {
   }
 
   /**
-   * The deadline of a phase that may take {@code share} of the total but must leave {@code reserveS} for
-   * the phases after it: the earlier of now + share·total and the end − reserve, never before now.
+   * The deadline of a phase that may take {@code share} of what is left before the last {@code reserveS}
+   * seconds (kept for the phases after it): now + share·(end − reserve − now), never before now. Shares are
+   * of the time left, not of the total, so they never stack past the end: a phase that started late (an
+   * earlier one ran long) gets its share of less, and the later phases still get theirs.
    */
   public long phaseDeadlineNanos(double share, double reserveS) {
     long now = System.nanoTime();
-    long byShare = now + (long) (share * totalS * 1e9);
-    long byReserve = deadlineNanos() - (long) (reserveS * 1e9);
-    return Math.max(now, Math.min(byShare, byReserve));
+    long rest = deadlineNanos() - (long) (reserveS * 1e9) - now;
+    return rest <= 0 ? now : now + (long) (Math.min(1.0, share) * rest);
   }
 
   /** Seconds until {@link #phaseDeadlineNanos}. */

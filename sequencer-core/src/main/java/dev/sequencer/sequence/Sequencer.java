@@ -64,23 +64,23 @@ public final class Sequencer {
   static final double MIN_MAIN_S_LARGE = 3.0;
   /** Share of the solve time the whole-model solve gets on large models before LNS takes over. */
   static final double MAIN_SHARE_LARGE = 0.35;
-  /** Share of the time limit the insertion search gets to improve the warm start (fixed durations). */
+  /** Share of the time left (before the end reserve) the insertion search gets to improve the warm start (fixed durations). */
   static final double INSERTION_SHARE = 0.5;
   /**
    * Insertion-search evaluations per CP-SAT deterministic unit in reproducible mode: about what one core
    * of this project's machine evaluates per second (a rough calibration, not a measured constant).
    */
   static final double INSERTION_EVALUATIONS_PER_UNIT = 6e6;
-  /** Flexible exposures: largest share of the time limit the exposure-aware moves get for the warm start. */
+  /** Flexible exposures: share of the time left (before the end reserve) the exposure-aware moves get for the warm start. */
   static final double MOVES_START_SHARE = 0.4;
-  /** Share of the time limit, and most seconds, the LP bound gets. */
+  /** Share of the time left (before the end reserve), and most seconds, the LP bound gets. */
   static final double LP_SHARE = 0.15;
   static final double LP_MAX_S = 5.0;
   /** Share of the time limit (and most seconds) kept for exact repair, and kept for the final check. */
   static final double REPAIR_SHARE = 0.1;
   static final double REPAIR_MAX_S = 2.0;
   static final double FINISH_SHARE = 0.1;
-  /** Share of the time limit exact repair of the warm start may take before the searches. */
+  /** Share of the time left (before the end reserve) exact repair of the warm start may take before the searches. */
   static final double EARLY_REPAIR_SHARE = 0.25;
   static final double FINISH_MAX_S = 2.0;
 
@@ -365,7 +365,7 @@ public final class Sequencer {
     }
 
     /**
-     * Improves the warm start by {@link InsertionSearch} for {@link #INSERTION_SHARE} of the time limit
+     * Improves the warm start by {@link InsertionSearch} for {@link #INSERTION_SHARE} of the time left
      * (in reproducible mode, for {@link #INSERTION_EVALUATIONS_PER_UNIT} evaluations per deterministic
      * unit instead); every better plan it finds is offered.
      */
