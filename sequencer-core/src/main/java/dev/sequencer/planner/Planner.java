@@ -23,6 +23,7 @@ import dev.sequencer.validate.PhysicsOracle;
 import dev.sequencer.validate.PlanValidator;
 import dev.sequencer.visibility.PointingTracks;
 import dev.sequencer.visibility.RequestVisibility;
+import dev.sequencer.visibility.SlewKeepOuts;
 import dev.sequencer.visibility.VisibilityCalculator;
 import java.time.Instant;
 import java.util.Collections;
@@ -74,7 +75,8 @@ public final class Planner {
           && !(s.slew() instanceof SlewSettings.Fixed) && !(s.slew() instanceof SlewSettings.Matrix);
       transitions = !tracksNeeded
           ? SlewModel.of(s.slew()).transitions(Collections.nCopies(s.requests().size(), null), null)
-          : SlewModel.of(s.slew()).transitions(PointingTracks.of(s, ctx), PointingTracks.start(s, ctx));
+          : SlewModel.of(s.slew()).transitions(PointingTracks.of(s, ctx), PointingTracks.start(s, ctx),
+              SlewKeepOuts.of(s, ctx));
     } catch (UnsupportedOperationException e) {
       throw new ScenarioException("scenario", List.of(new Problem("slew.model", e.getMessage(), null)));
     }
