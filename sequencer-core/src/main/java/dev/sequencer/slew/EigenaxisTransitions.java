@@ -105,6 +105,8 @@ final class EigenaxisTransitions implements Transitions {
   @Override
   public double boundS(int from, int to, double departureMinS, double departureMaxS, double arrivalMinS,
       double arrivalMaxS) {
+    Intervals.span("departure", departureMinS, departureMaxS); // checks the arguments
+    Intervals.span("arrival", arrivalMinS, arrivalMaxS);
     if (from == START && start == null) {
       return 0;
     }
