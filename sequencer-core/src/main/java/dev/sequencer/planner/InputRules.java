@@ -80,7 +80,11 @@ public final class InputRules {
       if (r.isFlexible()) {
         problems.add(new Problem("requests[" + i + "] (id \"" + r.id() + "\").minDurationS", "flexible exposures need "
             + "time-independent transitions (fixed, matrix, or eigenaxis between fixed RA/Dec targets); this "
-            + "scenario's transitions depend on time", null));
+            + "scenario's transitions depend on time" + (s.slew().keepOutDuringSlew()
+            && s.observer() instanceof dev.sequencer.model.OrbitObserver && s.constraints() != null
+            && s.constraints().earthLimbMinDeg() != null
+            ? " (the Earth-limb keep-out during slews moves with the orbit; \"slew\": {\"keepOutDuringSlew\": false} "
+            + "turns it off)" : ""), null));
       }
     }
     if (!problems.isEmpty()) {

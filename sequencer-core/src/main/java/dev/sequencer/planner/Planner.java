@@ -23,6 +23,7 @@ import dev.sequencer.validate.PhysicsOracle;
 import dev.sequencer.validate.PlanValidator;
 import dev.sequencer.visibility.PointingTracks;
 import dev.sequencer.visibility.RequestVisibility;
+import dev.sequencer.visibility.SlewKeepOuts;
 import dev.sequencer.visibility.VisibilityCalculator;
 import java.time.Instant;
 import java.util.Collections;
@@ -74,7 +75,8 @@ public final class Planner {
           && !(s.slew() instanceof SlewSettings.Fixed) && !(s.slew() instanceof SlewSettings.Matrix);
       transitions = !tracksNeeded
           ? SlewModel.of(s.slew()).transitions(Collections.nCopies(s.requests().size(), null), null)
-          : SlewModel.of(s.slew()).transitions(PointingTracks.of(s, ctx), PointingTracks.start(s, ctx));
+          : SlewModel.of(s.slew()).transitions(PointingTracks.of(s, ctx), PointingTracks.start(s, ctx),
+              SlewKeepOuts.of(s, ctx));
     } catch (UnsupportedOperationException e) {
       throw new ScenarioException("scenario", List.of(new Problem("slew.model", e.getMessage(), null)));
     }
@@ -101,12 +103,14 @@ public final class Planner {
     InputRules.checkTransitions(s, g.transitions(), "scenario");
     PlanningProblem problem = PlanningProblem.of(s, g.windows(), g.transitions());
     PlanValidator validator = validator(g, ctx);
-    SequencerResult result = new Sequencer().plan(problem, options.withClock(clock).withValidator(check(validator)));
+    SequencerResult result = new Sequencer().plan(problem,
+        options.withClock(clock).withValidator(check(validator, s, g.transitions())));
     Map<String, Double> phases = new LinkedHashMap<>();
     phases.put("windows", g.windowsS());
     phases.put("transitions", g.transitionsS());
     result.stats().phaseS().forEach((k, v) -> phases.merge(k, v, Double::sum));
-    return new PlanOutcome(g, result, result.toTimeline(), phases, clock.elapsedS());
+    return new PlanOutcome(g, result, SlewPaths.annotate(s, g.transitions(), result.toTimeline()), phases,
+        clock.elapsedS());
   }
 
   /**
@@ -114,10 +118,16 @@ public final class Planner {
    * observation every {@link PhysicsOracle#STEP_S} seconds, about {@link #CHECK_SAMPLE_S} each).
    */
   static ResultCheck check(PlanValidator validator) {
+    return check(validator, null, null);
+  }
+
+  /** As {@link #check(PlanValidator)}, on the timeline as it is written: with its slews' departures and waypoints. */
+  static ResultCheck check(PlanValidator validator, Scenario s, Transitions transitions) {
     return new ResultCheck() {
       @Override
       public List<String> violations(SequencerResult r) {
-        return validator.violations(r.toTimeline());
+        Timeline t = r.toTimeline();
+        return validator.violations(s == null ? t : SlewPaths.annotate(s, transitions, t));
       }
 
       @Override
@@ -147,6 +157,9 @@ public final class Planner {
     PlanningProblem problem = PlanningProblem.of(s, g.windows(), g.transitions());
     ReplanOptions o = options.withSequencer(options.sequencer().withClock(clock)).withValidator(validator(g, ctx));
     ReplanResult r = new Replanner().replan(problem, previous, now, done, failed, o);
-    return new ReplanOutcome(g, r, clock.elapsedS());
+    ReplanResult annotated = new ReplanResult(SlewPaths.annotate(s, g.transitions(), r.timeline()), r.source(),
+        r.newPriority(), r.tailPriority(), r.solverPriority(), r.tailRequests(), r.keptRequests(), r.keptArcs(),
+        r.departure(), r.message(), r.notes());
+    return new ReplanOutcome(g, annotated, clock.elapsedS());
   }
 }

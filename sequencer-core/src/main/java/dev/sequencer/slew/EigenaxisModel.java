@@ -25,6 +25,10 @@ final class EigenaxisModel implements SlewModel {
     return profile;
   }
 
+  double settleS() {
+    return settleS;
+  }
+
   /**
    * Angle between two directions in degrees, in [0, 180]. atan2(|a×b|, a·b) keeps full precision for
    * nearly aligned and nearly opposite vectors, where acos of the dot product loses half the digits.
@@ -51,5 +55,10 @@ final class EigenaxisModel implements SlewModel {
   @Override
   public Transitions transitions(List<PointingTrack> tracks, PointingTrack startTrackOrNull) {
     return new EigenaxisTransitions(this, tracks, startTrackOrNull);
+  }
+
+  @Override
+  public Transitions transitions(List<PointingTrack> tracks, PointingTrack startTrackOrNull, KeepOuts keepOuts) {
+    return new EigenaxisTransitions(this, tracks, startTrackOrNull, keepOuts);
   }
 }

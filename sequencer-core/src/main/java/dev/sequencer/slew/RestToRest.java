@@ -30,4 +30,24 @@ record RestToRest(double rateDegPerS, double accelDegPerS2) {
     }
     return 2 * Math.sqrt(angleDeg / accelDegPerS2);
   }
+
+  /** Angle covered {@code tS} seconds into a rest-to-rest move of {@code angleDeg} (clamped to [0, angle]). */
+  double angleAt(double angleDeg, double tS) {
+    double total = seconds(angleDeg);
+    if (tS <= 0 || total == 0) {
+      return 0;
+    }
+    if (tS >= total) {
+      return angleDeg;
+    }
+    double rampS = Math.min(rateDegPerS / accelDegPerS2, total / 2);
+    if (tS <= rampS) {
+      return 0.5 * accelDegPerS2 * tS * tS;
+    }
+    if (tS >= total - rampS) {
+      double left = total - tS;
+      return angleDeg - 0.5 * accelDegPerS2 * left * left;
+    }
+    return 0.5 * accelDegPerS2 * rampS * rampS + rateDegPerS * (tS - rampS);
+  }
 }

@@ -19,6 +19,15 @@ public interface SlewModel {
   Transitions transitions(List<PointingTrack> tracks, PointingTrack startTrackOrNull);
 
   /**
+   * As {@link #transitions(List, PointingTrack)}, with the cones every slew keeps out of (spec A3). The
+   * eigenaxis model detours around them ({@link Detour}); the other models ignore them (alt-az Sun
+   * keep-outs are not modelled yet; fixed and matrix have no path).
+   */
+  default Transitions transitions(List<PointingTrack> tracks, PointingTrack startTrackOrNull, KeepOuts keepOuts) {
+    return transitions(tracks, startTrackOrNull);
+  }
+
+  /**
    * Rest-to-rest rotation about the eigenaxis between inertial lines of sight: bang-coast-bang limited by
    * {@code rateDegPerS} and {@code accelDegPerS2} (bang-bang when short), plus {@code settleS}; 0 s when
    * the line of sight is unchanged. Example: 1 deg/s, 0.05 deg/s², 20 s settle, 90° → 130 s.

@@ -95,6 +95,27 @@ public interface Transitions {
     }
   }
 
+  /**
+   * One slew as the timeline writes it (spec A3): its seconds (as {@link Path#legS}), the instant it
+   * departs ({@code slewStart}) and the directions it passes through ({@code slewVia}, GCRF unit vectors;
+   * empty for the direct path).
+   */
+  record Slew(double seconds, double departureS, java.util.List<org.hipparchus.geometry.euclidean.threed.Vector3D> via) {
+    public Slew {
+      via = java.util.List.copyOf(via);
+    }
+  }
+
+  /**
+   * The slew from {@code from} to {@code to} departing at {@code departureS} (the previous end) and arriving
+   * at {@code arrivalS}, for models whose legs depend on the two requests only (eigenaxis); the default
+   * (models with state or without a path) is a direct slew departing at {@code departureS} with seconds NaN
+   * (not known here: use {@link #exactS}).
+   */
+  default Slew slew(int from, int to, double departureS, double arrivalS) {
+    return new Slew(Double.NaN, departureS, java.util.List.of());
+  }
+
   /** The same {@code seconds} between any two requests and from the start pointing. */
   static Transitions fixed(int size, double seconds) {
     return new FixedTransitions(size, seconds);

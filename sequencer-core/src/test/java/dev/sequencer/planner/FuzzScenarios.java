@@ -136,6 +136,11 @@ public final class FuzzScenarios {
       double dec = Math.toDegrees(Math.asin(2 * rnd.nextDouble() - 1));
       requests.add(request(rnd, "S" + k, new RaDec(round(ra), round(dec)), 300 + 60 * rnd.nextInt(15), true, horizon));
     }
+    if (requests.stream().anyMatch(Request::isFlexible)) {
+      // Known limitation (branch keepout): the Earth-limb keep-out during slews makes transitions time-dependent,
+      // which flexible exposures do not support yet (InputRules refuses them with exit 2 and says so).
+      slew = ((SlewSettings.Eigenaxis) slew).withKeepOutDuringSlew(false);
+    }
     return scenario("fuzz space telescope", horizon, obs, c, slew, new RaDec(0, 0), requests);
   }
 

@@ -229,7 +229,7 @@ public final class Replanner {
     }
 
     private static Observation withState(Observation o, String state) {
-      return new Observation(o.id(), o.start(), o.end(), o.slewSeconds(), o.value(), state);
+      return new Observation(o.id(), o.start(), o.end(), o.slewSeconds(), o.value(), state, o.slewStart(), o.slewVia());
     }
 
     /** The frozen observations must be valid against the scenario (required flags aside): else bad input. */

@@ -1,0 +1,118 @@
+package dev.sequencer.visibility;
+
+import dev.sequencer.astro.AstroContext;
+import dev.sequencer.model.Constraints;
+import dev.sequencer.model.EarthPoint;
+import dev.sequencer.model.OrbitObserver;
+import dev.sequencer.model.Pointing;
+import dev.sequencer.model.RaDec;
+import dev.sequencer.model.Request;
+import dev.sequencer.model.Scenario;
+import dev.sequencer.slew.KeepOut;
+import dev.sequencer.slew.KeepOuts;
+import java.util.ArrayList;
+import java.util.List;
+import org.hipparchus.geometry.euclidean.threed.Vector3D;
+import org.orekit.frames.Frame;
+import org.orekit.time.AbsoluteDate;
+import org.orekit.utils.PVCoordinatesProvider;
+
+/**
+ * The cones slews keep out of (spec A3) from a scenario's constraints: the Sun keep-out
+ * ({@code sunSeparationMinDeg}) for every observer, and from orbit the Earth's disc widened by
+ * {@code earthLimbMinDeg} (for slews between sky pointings: a slew to or from an Earth point looks at the
+ * Earth by design). Scenario-wide values; a request's own {@code constraints} do not change its slews.
+ *
+ * <p>The Sun's axis is its geocentric direction; seen from the observer it differs by the parallax, at
+ * most (observer distance from the Earth's centre) / (Sun distance) (4.7e-5 rad, 0.0027°, from 7,000 km),
+ * added to the radius as {@link #SUN_PARALLAX_DEG} for observers up to 10,000 km. Its drift bound is
+ * {@link #SUN_RATE_DEG_PER_S}. The Earth cone's axis is the direction to the Earth's centre, its radius
+ * asin(R/r) + earthLimbMinDeg with the spherical Earth of the visibility constraints; its drift bound
+ * is v/r + R·v/(r·√(r² − R²)) at the perigee radius less 2 % and perigee speed plus 2 % (the axis turns
+ * at most at v/r, the radius changes at most at that second term since |dr/dt| ≤ v).
+ */
+public final class SlewKeepOuts {
+  /** Bound on the Sun's geocentric rate: 1.02 deg/day at perihelion (common practice), with 8 % margin. */
+  static final double SUN_RATE_DEG_PER_S = 1.1 / 86400.0;
+  /** The Sun's parallax bound for observers within 10,000 km of the Earth's centre, degrees. */
+  static final double SUN_PARALLAX_DEG = Math.toDegrees(1.0e7 / 1.495978707e11);
+
+  private SlewKeepOuts() {}
+
+  /** The scenario's keep-outs during slews; {@link KeepOuts#NONE} when off or when no minimum is given. */
+  public static KeepOuts of(Scenario s, AstroContext ctx) {
+    Constraints c = s.constraints();
+    if (!s.slew().keepOutDuringSlew() || s.observer() == null || c == null) {
+      return KeepOuts.NONE;
+    }
+    AbsoluteDate origin = ctx.date(s.horizon().start());
+    double horizonS = ctx.date(s.horizon().end()).durationFrom(origin);
+    List<KeepOut> always = new ArrayList<>();
+    List<KeepOut> skyOnly = new ArrayList<>();
+    Frame gcrf = ctx.inertial();
+    if (c.sunSeparationMinDeg() != null) {
+      double radius = Math.min(180, c.sunSeparationMinDeg() + SUN_PARALLAX_DEG);
+      always.add(new KeepOut() {
+        @Override
+        public Vector3D axis(double tS) {
+          return ctx.sun().getPosition(origin.shiftedBy(tS), gcrf).normalize();
+        }
+
+        @Override
+        public double radiusDeg(double tS) {
+          return radius;
+        }
+
+        @Override
+        public double maxDriftDegPerS() {
+          return SUN_RATE_DEG_PER_S;
+        }
+
+        @Override
+        public String name() {
+          return "Sun";
+        }
+      });
+    }
+    if (c.earthLimbMinDeg() != null && s.observer() instanceof OrbitObserver o) {
+      PVCoordinatesProvider orbit = Observers.motion(o, ctx, origin.shiftedBy(-PointingTracks.MARGIN_S),
+          origin.shiftedBy(horizonS + PointingTracks.MARGIN_S));
+      double[] rv = Observers.perigeeRadiusAndSpeed(o, ctx);
+      double r = rv[0];
+      double v = rv[1];
+      double earth = ConstraintFunction.EARTH_RADIUS_M;
+      double drift = Math.toDegrees(v / r + earth * v / (r * Math.sqrt(Math.max(1, r * r - earth * earth))));
+      double limbMin = c.earthLimbMinDeg();
+      skyOnly.add(new KeepOut() {
+        @Override
+        public Vector3D axis(double tS) {
+          return orbit.getPosition(origin.shiftedBy(tS), gcrf).negate().normalize();
+        }
+
+        @Override
+        public double radiusDeg(double tS) {
+          double d = orbit.getPosition(origin.shiftedBy(tS), gcrf).getNorm();
+          return Math.min(180, Math.toDegrees(Math.asin(Math.min(1, earth / d))) + limbMin);
+        }
+
+        @Override
+        public double maxDriftDegPerS() {
+          return drift;
+        }
+
+        @Override
+        public String name() {
+          return "Earth limb";
+        }
+      });
+    }
+    boolean[] sky = new boolean[s.requests().size()];
+    for (int k = 0; k < sky.length; k++) {
+      Request q = s.requests().get(k);
+      sky[k] = !(q.target() instanceof EarthPoint);
+    }
+    Pointing p = s.startPointing();
+    return new KeepOuts(always, skyOnly, sky, p instanceof RaDec, -PointingTracks.MARGIN_S,
+        horizonS + PointingTracks.MARGIN_S);
+  }
+}
