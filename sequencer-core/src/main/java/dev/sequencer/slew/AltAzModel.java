@@ -36,6 +36,14 @@ final class AltAzModel implements SlewModel {
     this.elevationMaxDeg = elevationMaxDeg;
   }
 
+  RestToRest azimuthAxis() {
+    return azimuth;
+  }
+
+  RestToRest elevationAxis() {
+    return elevation;
+  }
+
   CableWrap wrap() {
     return wrap;
   }
@@ -72,6 +80,18 @@ final class AltAzModel implements SlewModel {
 
   @Override
   public Transitions transitions(List<PointingTrack> tracks, PointingTrack startTrackOrNull) {
-    return new AltAzTransitions(this, tracks, startTrackOrNull);
+    return new AltAzTransitions(this, tracks, startTrackOrNull, MountKeepOut.empty());
+  }
+
+  /** With the keep-outs during slews: those seen from the site ({@link SiteKeepOut}, the Sun) bind the two-axis path. */
+  @Override
+  public Transitions transitions(List<PointingTrack> tracks, PointingTrack startTrackOrNull, KeepOuts keepOuts) {
+    List<SiteKeepOut> cones = new java.util.ArrayList<>();
+    for (KeepOut c : keepOuts.always()) {
+      if (c instanceof SiteKeepOut site) {
+        cones.add(site);
+      }
+    }
+    return new AltAzTransitions(this, tracks, startTrackOrNull, new MountKeepOut(cones, keepOuts.fromS(), keepOuts.toS()));
   }
 }

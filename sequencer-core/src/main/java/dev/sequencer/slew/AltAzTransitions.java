@@ -40,9 +40,11 @@ final class AltAzTransitions implements Transitions {
   private final CableWrap wrap;
   private final List<PointingTrack> tracks;
   private final PointingTrack start;
+  private final MountKeepOut keepOut;
 
-  AltAzTransitions(AltAzModel model, List<PointingTrack> tracks, PointingTrack startOrNull) {
+  AltAzTransitions(AltAzModel model, List<PointingTrack> tracks, PointingTrack startOrNull, MountKeepOut keepOut) {
     this.model = model;
+    this.keepOut = keepOut;
     this.wrap = model.wrap();
     this.tracks = List.copyOf(tracks);
     this.start = startOrNull;
@@ -60,7 +62,7 @@ final class AltAzTransitions implements Transitions {
 
   @Override
   public boolean exactMayExceedBound() {
-    return wrap.limited();
+    return wrap.limited() || !keepOut.none();
   }
 
   @Override
@@ -178,7 +180,32 @@ final class AltAzTransitions implements Transitions {
       if (Double.isNaN(v)) {
         return new Step(Double.POSITIVE_INFINITY, u, Double.NaN);
       }
-      return new Step(model.seconds(Math.abs(v - u), Math.abs(target.elevationDeg() - fromElevationDeg)), u, v);
+      double toEl = target.elevationDeg();
+      if (keepOut.none() || !keepOut.mayBind(Math.min(u, v), Math.max(u, v), Math.min(fromElevationDeg, toEl),
+          Math.max(fromElevationDeg, toEl), departureS, Math.max(departureS, arrivalS))) {
+        return new Step(model.seconds(Math.abs(v - u), Math.abs(toEl - fromElevationDeg)), u, v);
+      }
+      return avoiding(u, fromElevationDeg, v, toEl, departureS, arrivalS);
+    }
+
+    /**
+     * The Sun keep-out may bind (spec A3): the quickest legal azimuth branch (the nearest, or one turn
+     * either way) whose two-axis path, departing at {@code departureS}, keeps it; impossible when none does.
+     */
+    private Step avoiding(double u, double fromEl, double v, double toEl, double departureS, double arrivalS) {
+      double best = Double.POSITIVE_INFINITY;
+      double bestV = Double.NaN;
+      for (double w : new double[] {v, v - 360, v + 360}) {
+        if (wrap.limited() && !wrap.contains(w)) {
+          continue;
+        }
+        double seconds = model.seconds(Math.abs(w - u), Math.abs(toEl - fromEl));
+        if (seconds < best && keepOut.clear(model, u, fromEl, w, toEl, departureS, arrivalS)) {
+          best = seconds;
+          bestV = w;
+        }
+      }
+      return Double.isNaN(bestV) ? new Step(Double.POSITIVE_INFINITY, u, Double.NaN) : new Step(best, u, bestV);
     }
   }
 
@@ -259,6 +286,18 @@ final class AltAzTransitions implements Transitions {
     double azimuthDeg = azimuthBoundDeg(wrap, pf.azimuthDeg(), fromAzimuthDriftDeg, pt.azimuthDeg(), toAzimuthDriftDeg);
     if (Double.isInfinite(azimuthDeg)) {
       return Double.POSITIVE_INFINITY;
+    }
+    if (!keepOut.none()) {
+      // The leg can depart and arrive anywhere in the ranges; its azimuth stays within azimuthDeg of a
+      // possible from state, its elevation between the ends' (MountKeepOut.mayBind). Where the keep-out may
+      // bind, the exact leg may take a longer branch or be impossible: no finite bound is promised.
+      double azLo = pf.azimuthDeg() - fromAzimuthDriftDeg - azimuthDeg;
+      double azHi = pf.azimuthDeg() + fromAzimuthDriftDeg + azimuthDeg;
+      double elLo = Math.min(pf.elevationDeg() - fromElevationDriftDeg, pt.elevationDeg() - toElevationDriftDeg);
+      double elHi = Math.max(pf.elevationDeg() + fromElevationDriftDeg, pt.elevationDeg() + toElevationDriftDeg);
+      if (keepOut.mayBind(azLo, azHi, elLo, elHi, departureMinS, Math.max(departureMaxS, arrivalMaxS))) {
+        return Double.POSITIVE_INFINITY;
+      }
     }
     double drift = fromAzimuthDriftDeg + fromElevationDriftDeg + toAzimuthDriftDeg + toElevationDriftDeg;
     // ROUNDING_DEG covers the different order of the floating-point operations in the exact legs.

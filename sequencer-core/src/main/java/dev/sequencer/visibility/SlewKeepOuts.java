@@ -2,7 +2,9 @@ package dev.sequencer.visibility;
 
 import dev.sequencer.astro.AstroContext;
 import dev.sequencer.model.Constraints;
+import dev.sequencer.model.AzEl;
 import dev.sequencer.model.EarthPoint;
+import dev.sequencer.model.GroundSite;
 import dev.sequencer.model.OrbitObserver;
 import dev.sequencer.model.Pointing;
 import dev.sequencer.model.RaDec;
@@ -10,6 +12,7 @@ import dev.sequencer.model.Request;
 import dev.sequencer.model.Scenario;
 import dev.sequencer.slew.KeepOut;
 import dev.sequencer.slew.KeepOuts;
+import dev.sequencer.slew.SiteKeepOut;
 import java.util.ArrayList;
 import java.util.List;
 import org.hipparchus.geometry.euclidean.threed.Vector3D;
@@ -34,6 +37,11 @@ import org.orekit.utils.PVCoordinatesProvider;
 public final class SlewKeepOuts {
   /** Bound on the Sun's geocentric rate: 1.02 deg/day at perihelion (common practice), with 8 % margin. */
   static final double SUN_RATE_DEG_PER_S = 1.1 / 86400.0;
+  /**
+   * Bound on the Sun's rate in a ground site's frame: the Earth's rotation (360.9856° per day of 86,400 s,
+   * common practice) plus the Sun's own 1.1°/day, deg/s.
+   */
+  static final double SUN_SITE_RATE_DEG_PER_S = (360.9856 + 1.1) / 86400.0;
   /** The Sun's parallax bound for observers within 10,000 km of the Earth's centre, degrees. */
   static final double SUN_PARALLAX_DEG = Math.toDegrees(1.0e7 / 1.495978707e11);
 
@@ -52,27 +60,31 @@ public final class SlewKeepOuts {
     Frame gcrf = ctx.inertial();
     if (c.sunSeparationMinDeg() != null) {
       double radius = Math.min(180, c.sunSeparationMinDeg() + SUN_PARALLAX_DEG);
-      always.add(new KeepOut() {
-        @Override
-        public Vector3D axis(double tS) {
-          return ctx.sun().getPosition(origin.shiftedBy(tS), gcrf).normalize();
-        }
+      if (s.observer() instanceof GroundSite site) {
+        always.add(siteSun(ctx, origin, gcrf, SiteFrame.enuItrf(site), radius));
+      } else {
+        always.add(new KeepOut() {
+          @Override
+          public Vector3D axis(double tS) {
+            return ctx.sun().getPosition(origin.shiftedBy(tS), gcrf).normalize();
+          }
 
-        @Override
-        public double radiusDeg(double tS) {
-          return radius;
-        }
+          @Override
+          public double radiusDeg(double tS) {
+            return radius;
+          }
 
-        @Override
-        public double maxDriftDegPerS() {
-          return SUN_RATE_DEG_PER_S;
-        }
+          @Override
+          public double maxDriftDegPerS() {
+            return SUN_RATE_DEG_PER_S;
+          }
 
-        @Override
-        public String name() {
-          return "Sun";
-        }
-      });
+          @Override
+          public String name() {
+            return "Sun";
+          }
+        });
+      }
     }
     if (c.earthLimbMinDeg() != null && s.observer() instanceof OrbitObserver o) {
       PVCoordinatesProvider orbit = Observers.motion(o, ctx, origin.shiftedBy(-PointingTracks.MARGIN_S),
@@ -114,5 +126,43 @@ public final class SlewKeepOuts {
     Pointing p = s.startPointing();
     return new KeepOuts(always, skyOnly, sky, p instanceof RaDec, -PointingTracks.MARGIN_S,
         horizonS + PointingTracks.MARGIN_S);
+  }
+
+  /**
+   * The Sun keep-out seen from a ground site: the same GCRF cone (for eigenaxis slews from the ground), also
+   * in the site's azimuth and elevation (for the alt-az mount's two-axis path), geometric, of the centre.
+   */
+  private static SiteKeepOut siteSun(AstroContext ctx, AbsoluteDate origin, Frame gcrf, double[] enu, double radius) {
+    return new SiteKeepOut() {
+      @Override
+      public Vector3D axis(double tS) {
+        return ctx.sun().getPosition(origin.shiftedBy(tS), gcrf).normalize();
+      }
+
+      @Override
+      public AzEl azEl(double tS) {
+        return SiteFrame.azEl(ctx, origin.shiftedBy(tS), enu, axis(tS));
+      }
+
+      @Override
+      public double radiusDeg(double tS) {
+        return radius;
+      }
+
+      @Override
+      public double maxDriftDegPerS() {
+        return SUN_RATE_DEG_PER_S;
+      }
+
+      @Override
+      public double maxSiteDriftDegPerS() {
+        return SUN_SITE_RATE_DEG_PER_S;
+      }
+
+      @Override
+      public String name() {
+        return "Sun";
+      }
+    };
   }
 }

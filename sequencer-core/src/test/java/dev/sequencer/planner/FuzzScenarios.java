@@ -109,6 +109,9 @@ public final class FuzzScenarios {
     Constraints.Builder cb = Constraints.builder().elevationMinDeg(round(elevationMin)).elevationMaxDeg(85);
     if (optical) {
       cb.sunElevationMaxDeg(-6).targetSunlitRequired(true);
+    } else if (rnd.nextBoolean()) {
+      // A dish avoiding the Sun by day: the keep-out binds observations and, by default, slews (spec A3).
+      cb.sunSeparationMinDeg(10 + rnd.nextInt(25));
     }
     SlewSettings slew = new SlewSettings.AltAz(3 + 4 * rnd.nextDouble(), 2 + 3 * rnd.nextDouble(),
         1 + 2 * rnd.nextDouble(), 1 + 2 * rnd.nextDouble(), 2 + rnd.nextInt(10),
