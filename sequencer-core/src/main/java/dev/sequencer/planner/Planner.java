@@ -19,7 +19,6 @@ import dev.sequencer.sequence.replan.ReplanResult;
 import dev.sequencer.sequence.replan.Replanner;
 import dev.sequencer.slew.SlewModel;
 import dev.sequencer.slew.Transitions;
-import dev.sequencer.validate.PhysicsOracle;
 import dev.sequencer.validate.PlanValidator;
 import dev.sequencer.visibility.PointingTracks;
 import dev.sequencer.visibility.RequestVisibility;
@@ -33,8 +32,8 @@ import java.util.Set;
 
 /**
  * Plans a scenario end to end: the input rules ({@link InputRules}), visibility windows, slew transitions,
- * the sequencer, and the one independent check of the plan (the validator with the physics re-check,
- * {@link PhysicsOracle}). The time limit of the options is the wall clock of the whole call: windows and
+ * the sequencer, and the one independent check of the plan ({@link PlanValidator}, which derives its own
+ * geometry and slews from the scenario). The time limit of the options is the wall clock of the whole call: windows and
  * transitions count, and the sequencer gets what they leave. Stateless.
  *
  * <pre>{@code
@@ -82,10 +81,12 @@ public final class Planner {
     return new Geometry(s, visibility, windows, transitions, (t1 - t0) * 1e-9, (t2 - t1) * 1e-9);
   }
 
-  /** The full validator of {@code g}: windows, overlaps, exact transitions, totals and the physics re-check. */
+  /**
+   * The independent validator of {@code g}'s scenario: it derives its own geometry, slews and constraints from
+   * the scenario and uses nothing of {@code g} but the scenario.
+   */
   public static PlanValidator validator(Geometry g, AstroContext ctx) {
-    return PlanValidator.of(g.scenario(), g.windows(), g.transitions())
-        .withOracle(new PhysicsOracle(g.scenario(), ctx));
+    return PlanValidator.of(g.scenario(), ctx);
   }
 
   /**
@@ -110,8 +111,8 @@ public final class Planner {
   }
 
   /**
-   * The façade's one check: the full validator, with its expected cost (the physics re-check samples each
-   * observation every {@link PhysicsOracle#STEP_S} seconds, about {@link #CHECK_SAMPLE_S} each).
+   * The façade's one check: the independent validator, with its expected cost (it samples each observation's
+   * constraints every {@link PlanValidator#SAMPLE_STEP_S} seconds, about {@link #CHECK_SAMPLE_S} each).
    */
   static ResultCheck check(PlanValidator validator) {
     return new ResultCheck() {
@@ -122,7 +123,7 @@ public final class Planner {
 
       @Override
       public double expectedS(long observedS) {
-        return 0.05 + observedS / PhysicsOracle.STEP_S * CHECK_SAMPLE_S;
+        return 0.05 + observedS / PlanValidator.SAMPLE_STEP_S * CHECK_SAMPLE_S;
       }
     };
   }
