@@ -57,10 +57,12 @@ public final class PlanValidator implements TimelineCheck {
   private final AstroContext ctx;
   private final Instant now;
   private final boolean checkRequired;
+  private final boolean slewKeepOuts;
   private final Map<String, Request> byId = new HashMap<>();
   private Sky sky;
 
-  private PlanValidator(Scenario scenario, AstroContext ctx, Instant now, boolean checkRequired) {
+  private PlanValidator(Scenario scenario, AstroContext ctx, Instant now, boolean checkRequired, boolean slewKeepOuts) {
+    this.slewKeepOuts = slewKeepOuts;
     this.scenario = Objects.requireNonNull(scenario, "scenario");
     this.ctx = Objects.requireNonNull(ctx, "ctx");
     this.now = now;
@@ -72,7 +74,7 @@ public final class PlanValidator implements TimelineCheck {
 
   /** The validator of plans for {@code scenario}, computing in {@code ctx}. */
   public static PlanValidator of(Scenario scenario, AstroContext ctx) {
-    return new PlanValidator(scenario, ctx, null, true);
+    return new PlanValidator(scenario, ctx, null, true, true);
   }
 
   /**
@@ -83,13 +85,22 @@ public final class PlanValidator implements TimelineCheck {
    */
   @Override
   public PlanValidator withNow(Instant newNow) {
-    return new PlanValidator(scenario, ctx, Objects.requireNonNull(newNow, "now"), checkRequired);
+    return new PlanValidator(scenario, ctx, Objects.requireNonNull(newNow, "now"), checkRequired, slewKeepOuts);
   }
 
   /** A copy that does not ask for the required requests (part of a night, the rest still to come). */
   @Override
   public PlanValidator withRequiredIgnored() {
-    return new PlanValidator(scenario, ctx, now, false);
+    return new PlanValidator(scenario, ctx, now, false, slewKeepOuts);
+  }
+
+  /**
+   * A copy that checks the keep-outs during slews (A3) or not. Off only where a caller knowingly accepts
+   * plans whose slews were not planned around the keep-outs (the façade, until the planner side of A3 lands;
+   * see {@code Planner}); {@code sequencer check} always checks them.
+   */
+  public PlanValidator withSlewKeepOuts(boolean on) {
+    return new PlanValidator(scenario, ctx, now, checkRequired, on);
   }
 
   /** The scenario this validator checks against. */
@@ -280,7 +291,7 @@ public final class PlanValidator implements TimelineCheck {
   private void checkSlews(List<Observation> obs, List<Violation> out) {
     List<Request> req = obs.stream().map(o -> byId.get(o.id())).toList();
     List<SlewLegs.Leg> legs = new SlewLegs(sky).legs(obs, req);
-    SlewKeepOut keepOut = SlewKeepOut.applies(sky) ? new SlewKeepOut(sky) : null;
+    SlewKeepOut keepOut = slewKeepOuts && SlewKeepOut.applies(sky) ? new SlewKeepOut(sky) : null;
     Violation reported = null;
     for (int k = 0; k < obs.size(); k++) {
       Observation o = obs.get(k);
