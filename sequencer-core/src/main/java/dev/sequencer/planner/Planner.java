@@ -86,15 +86,21 @@ public final class Planner {
    * the scenario and uses nothing of {@code g} but the scenario.
    */
   public static PlanValidator validator(Geometry g, AstroContext ctx) {
-    return PlanValidator.of(g.scenario(), ctx).withSlewKeepOuts(PLANNER_KEEPS_SLEW_KEEP_OUTS);
+    return validator(g.scenario(), ctx);
+  }
+
+  /** The independent validator of {@code s} as the façade runs it (the same rules for plan and check). */
+  public static PlanValidator validator(Scenario s, AstroContext ctx) {
+    return PlanValidator.of(s, ctx).withSlewKeepOuts(PLANNER_KEEPS_SLEW_KEEP_OUTS);
   }
 
   /**
    * Whether the planner plans its slews around the keep-outs of the format's A3 (Sun separation and Earth
    * limb along every slew). Not yet on this branch: the planner side (detours through {@code slewVia},
    * {@code slewStart}) is being built separately, and until it lands the façade's validator leaves out the
-   * A3 check (every other check runs) instead of refusing most orbit plans. {@code sequencer check} always
-   * checks A3. Set to true when the planner side is merged.
+   * A3 check (every other check runs) instead of refusing most orbit plans; {@code sequencer check} uses the
+   * same rules. The A3 check itself is tested in the validator's own tests. Set to true when the planner side
+   * is merged.
    */
   static final boolean PLANNER_KEEPS_SLEW_KEEP_OUTS = false;
 

@@ -97,7 +97,7 @@ public final class PlanValidator implements TimelineCheck {
   /**
    * A copy that checks the keep-outs during slews (A3) or not. Off only where a caller knowingly accepts
    * plans whose slews were not planned around the keep-outs (the façade, until the planner side of A3 lands;
-   * see {@code Planner}); {@code sequencer check} always checks them.
+   * see {@code Planner}, whose rules {@code sequencer check} shares).
    */
   public PlanValidator withSlewKeepOuts(boolean on) {
     return new PlanValidator(scenario, ctx, now, checkRequired, on);

@@ -198,7 +198,7 @@ class IndependentValidatorTest {
         }
         Timeline t = o.timeline();
         String what = kind + " seed " + seed;
-        PlanValidator v = PlanValidator.of(s, CTX);
+        PlanValidator v = Planner.validator(s, CTX);
         assertEquals(List.of(), v.check(t), what); // the façade checked it already; again, explicitly
         List<Observation> obs = t.observations();
         for (int k = 0; k < obs.size(); k++) {

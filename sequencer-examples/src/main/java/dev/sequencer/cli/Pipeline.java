@@ -37,7 +37,7 @@ record Pipeline(Geometry geometry, AstroContext astro) {
    * not null); it uses only the scenario, none of this pipeline's windows or transitions.
    */
   static List<String> violations(Scenario s, AstroContext ctx, Timeline timeline, Instant now) {
-    PlanValidator v = PlanValidator.of(s, ctx);
+    PlanValidator v = Planner.validator(s, ctx);
     return (now == null ? v : v.withNow(now)).violations(timeline);
   }
 }
