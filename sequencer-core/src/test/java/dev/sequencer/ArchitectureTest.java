@@ -52,7 +52,25 @@ class ArchitectureTest {
   @Test
   void theValidatorNeverImportsThePlannerNorTheVisibilityEngine() {
     forbid("dev.sequencer.validate..", "dev.sequencer.sequence..", "dev.sequencer.planner..",
-        "dev.sequencer.visibility..");
+        "dev.sequencer.visibility..", "dev.sequencer.slew..", "dev.sequencer.io..");
+  }
+
+  /**
+   * The independent validator shares with the planner only the model, the time layer and Orekit (issue #14):
+   * of our own code it may use {@code model} and, of {@code astro}, only {@link dev.sequencer.astro.AstroContext}
+   * (leap seconds, time scales, Earth frames, and the Sun and Moon series, because the offline Orekit context
+   * has no JPL ephemerides) and the leap-second table; none of the astro helpers the planner computes with
+   * (aberration, apparent places, topocentric conversions, the series' classes themselves).
+   */
+  @Test
+  void theValidatorSharesOnlyTheModelTheTimeLayerAndOrekit() {
+    noClasses().that().resideInAPackage("dev.sequencer.validate..").should().dependOnClassesThat(
+        com.tngtech.archunit.base.DescribedPredicate.describe("our code other than model, validate, AstroContext and "
+            + "LeapSecondTable", (com.tngtech.archunit.core.domain.JavaClass c) -> c.getPackageName().startsWith(
+                "dev.sequencer") && !c.getPackageName().startsWith("dev.sequencer.model")
+                && !c.getPackageName().startsWith("dev.sequencer.validate")
+                && !c.getName().equals("dev.sequencer.astro.AstroContext")
+                && !c.getName().equals("dev.sequencer.astro.LeapSecondTable"))).check(classes);
   }
 
   @Test

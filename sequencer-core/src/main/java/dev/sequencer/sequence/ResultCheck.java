@@ -1,6 +1,6 @@
 package dev.sequencer.sequence;
 
-import dev.sequencer.validate.PlanValidator;
+import dev.sequencer.validate.TimelineCheck;
 import java.util.List;
 
 /**
@@ -22,7 +22,7 @@ public interface ResultCheck {
   }
 
   /** The check of {@code validator} on the result's timeline. */
-  static ResultCheck of(PlanValidator validator) {
+  static ResultCheck of(TimelineCheck validator) {
     return r -> validator.violations(r.toTimeline());
   }
 }

@@ -24,7 +24,6 @@ import dev.sequencer.sequence.search.TwoStagePlanner;
 import dev.sequencer.sequence.timing.ArcCosts;
 import dev.sequencer.sequence.timing.ExactTimer;
 import dev.sequencer.slew.Transitions;
-import dev.sequencer.validate.PlanValidator;
 import java.util.ArrayList;
 import java.util.LinkedHashMap;
 import java.util.List;
@@ -563,7 +562,7 @@ public final class Sequencer {
     /** The one validation of the returned plan: a violation is a bug, and no invalid plan is handed out. */
     private void check(SequencerResult result) {
       ResultCheck v = options.validator() != null ? options.validator() : ResultCheck.of(
-          new PlanValidator(problem.horizon(), problem.requests(), problem.windows(), problem.transitions()));
+          new SelfCheck(problem.horizon(), problem.requests(), problem.windows(), problem.transitions()));
       List<String> violations = v.violations(result);
       if (!violations.isEmpty()) {
         throw new IllegalStateException("the sequencer produced an invalid plan (a bug): " + violations);

@@ -17,7 +17,7 @@ import java.util.Objects;
  * {@code clock}: the wall clock {@code timeLimitS} counts from ({@code null}: from the call to the
  * sequencer; the {@code Planner} façade passes the one it started before the visibility windows).
  * {@code validator}: the one check the returned plan must pass ({@code null}: a
- * {@link dev.sequencer.validate.PlanValidator} of the problem's own requests, windows and transitions).
+ * {@link SelfCheck} of the problem's own requests, windows and transitions).
  */
 public record SequencerOptions(
     Solver solver,

@@ -1,14 +1,15 @@
 package dev.sequencer.validate;
 
+import dev.sequencer.astro.AstroContext;
+import dev.sequencer.model.Constraints;
 import dev.sequencer.model.FlexibleExposure;
 import dev.sequencer.model.Observation;
 import dev.sequencer.model.Request;
-import dev.sequencer.model.RequestWindows;
 import dev.sequencer.model.Scenario;
 import dev.sequencer.model.TimeWindow;
 import dev.sequencer.model.Timeline;
 import dev.sequencer.model.Unscheduled;
-import dev.sequencer.slew.Transitions;
+import dev.sequencer.validate.Violation.Kind;
 import java.time.Duration;
 import java.time.Instant;
 import java.util.ArrayList;
@@ -21,217 +22,215 @@ import org.slf4j.Logger;
 import org.slf4j.LoggerFactory;
 
 /**
- * Checks a timeline against requests, visibility windows and exact transitions; returns the violations
- * in words (empty = valid).
+ * The independent check of a plan: everything is derived from the {@link Scenario} itself with the
+ * validator's own physics ({@link Sky}), own slew times ({@link SlewLegs}) and own constraint evaluation
+ * ({@link ObservationCheck}); nothing of the planner (visibility windows, transitions, tracks) is used. It
+ * shares with the planner only the model, the time layer of the {@link AstroContext} (leap seconds, time
+ * scales, Earth frames, and its Sun and Moon series, since the offline Orekit context has no JPL files) and
+ * Orekit itself.
  *
- * <p>Checks: every observation inside one window of its request and inside the horizon; duration equal to
- * the request's (flexible requests: a grid exposure in [min, max] whose {@code value} is the curve's
- * value there); observations in time order without overlap; each gap (from the previous end, or from
- * the horizon start for the first) at least the exact transition recomputed with
- * {@link Transitions#exactS} at the plan's own departure times; each reported {@code slewSeconds} equal
- * to that exact transition; every required request observed; every request exactly once (observed or
- * unscheduled) and no unknown ids; totals (priority, slew seconds) equal to the sums; and, when an
- * {@link ObservabilityOracle} is given, its verdict for every observation.
+ * <p>Checks, each reported as a {@link Violation} of its {@link Kind}: every request exactly once (observed
+ * or unscheduled) and no unknown ids; every observation inside the horizon and inside one of the request's
+ * own {@code windows}; its duration the request's (flexible requests: a grid exposure in [min, max] carrying
+ * the curve's value); observations in time order without overlap; every constraint of the request at the
+ * observation's start, end, every 5 s between and at the margins' local minima ({@link ObservationCheck});
+ * each gap at least the slew the validator computes from the previous observation's end pointing (or the
+ * start pointing) to the next one's start pointing, and each {@code slewSeconds} equal to it; the alt-az
+ * cable wrap; {@code slewStart} inside its gap; the keep-outs along every slew (A3, {@link SlewKeepOut});
+ * every required request observed; the totals equal the sums.
  *
- * <p>Tolerance {@link #TOLERANCE_S} = 1 ms on every time comparison: timeline instants are exact to the
- * nanosecond, but transition models are floating-point and the sequencer works in whole seconds with a
- * 1 µs rounding slack; 1 ms is far above that noise and far below any physically meaningful slew error.
- * Priority totals are compared to 1e-9 relative.
+ * <p>Tolerance {@link #TOLERANCE_S} = 1 ms on every time comparison (slew seconds included: the two
+ * independent slew computations agree to about 1e-6 s, see the tests); constraints as {@link ObservationCheck}
+ * says; priority totals to 1e-9 relative. Thread-safe (one check at a time).
  */
-public final class PlanValidator {
+public final class PlanValidator implements TimelineCheck {
   private static final Logger LOG = LoggerFactory.getLogger(PlanValidator.class);
 
   /** Time tolerance of every comparison, seconds. */
   public static final double TOLERANCE_S = 1e-3;
-  /**
-   * Tolerance on a flexible observation's {@code value} against the interpolated curve: values are written
-   * as decimal doubles, so only rounding noise far below 1e-6 can separate equal values.
-   */
+  /** Tolerance on a flexible observation's {@code value} against the interpolated curve. */
   public static final double VALUE_TOLERANCE = 1e-6;
+  /** Sampling step of the constraints inside an observation, seconds (for cost estimates). */
+  public static final double SAMPLE_STEP_S = ObservationCheck.STEP_S;
 
-  private final TimeWindow horizon;
-  private final List<Request> requests;
-  private final Map<String, Integer> index = new HashMap<>();
-  private final Map<String, List<TimeWindow>> windows = new HashMap<>();
-  private final Transitions transitions;
-  private final ObservabilityOracle oracle;
+  private final Scenario scenario;
+  private final AstroContext ctx;
   private final Instant now;
   private final boolean checkRequired;
+  private final boolean slewKeepOuts;
+  private final Map<String, Request> byId = new HashMap<>();
+  private Sky sky;
 
-  /**
-   * A validator for these requests (scenario order = transition index), their visibility windows
-   * (already intersected with the requests' own windows; a missing entry = never visible) and transitions.
-   */
-  public PlanValidator(TimeWindow horizon, List<Request> requests, List<RequestWindows> windows,
-      Transitions transitions) {
-    this(horizon, requests, windows, transitions, null, null, true);
-  }
-
-  private PlanValidator(TimeWindow horizon, List<Request> requests, List<RequestWindows> windows,
-      Transitions transitions, ObservabilityOracle oracle, Instant now, boolean checkRequired) {
+  private PlanValidator(Scenario scenario, AstroContext ctx, Instant now, boolean checkRequired, boolean slewKeepOuts) {
+    this.slewKeepOuts = slewKeepOuts;
+    this.scenario = Objects.requireNonNull(scenario, "scenario");
+    this.ctx = Objects.requireNonNull(ctx, "ctx");
     this.now = now;
     this.checkRequired = checkRequired;
-    this.horizon = Objects.requireNonNull(horizon, "horizon");
-    this.requests = List.copyOf(requests);
-    this.transitions = Objects.requireNonNull(transitions, "transitions");
-    this.oracle = oracle;
-    for (int k = 0; k < this.requests.size(); k++) {
-      index.put(this.requests.get(k).id(), k);
-    }
-    for (RequestWindows w : windows) {
-      this.windows.put(w.id(), w.intervals());
+    for (Request r : scenario.requests()) {
+      byId.put(r.id(), r);
     }
   }
 
-  /** A validator for a scenario's horizon and requests. */
-  public static PlanValidator of(Scenario scenario, List<RequestWindows> windows, Transitions transitions) {
-    return new PlanValidator(scenario.horizon(), scenario.requests(), windows, transitions);
-  }
-
-  /** A copy that also asks {@code oracle} about every observation. */
-  public PlanValidator withOracle(ObservabilityOracle newOracle) {
-    List<RequestWindows> w = new ArrayList<>();
-    windows.forEach((id, list) -> w.add(new RequestWindows(id, list)));
-    return new PlanValidator(horizon, requests, w, transitions, newOracle, now, checkRequired);
+  /** The validator of plans for {@code scenario}, computing in {@code ctx}. */
+  public static PlanValidator of(Scenario scenario, AstroContext ctx) {
+    return new PlanValidator(scenario, ctx, null, true, true);
   }
 
   /**
-   * A copy for a re-plan made at {@code newNow}: observations in state "done" or "running" must start
-   * at or before it, every other (planned) observation at or after it (re-planning extension). The
-   * transitions into done and running observations are history and not re-checked (a failed observation
-   * between two of them is no longer listed); every leg into a planned observation is, the first one from
-   * the end pointing of the last done or running observation.
+   * A copy for a re-plan made at {@code newNow}: observations in state "done" or "running" must start at or
+   * before it, every other (planned) one at or after it. The legs into done and running observations are
+   * history and not re-checked (the mount's cable-wrap state is still carried through them); every leg into
+   * a planned observation is, the first one from the end pointing of the last done or running observation.
    */
+  @Override
   public PlanValidator withNow(Instant newNow) {
-    List<RequestWindows> w = new ArrayList<>();
-    windows.forEach((id, list) -> w.add(new RequestWindows(id, list)));
-    return new PlanValidator(horizon, requests, w, transitions, oracle, Objects.requireNonNull(newNow, "now"),
-        checkRequired);
+    return new PlanValidator(scenario, ctx, Objects.requireNonNull(newNow, "now"), checkRequired, slewKeepOuts);
+  }
+
+  /** A copy that does not ask for the required requests (part of a night, the rest still to come). */
+  @Override
+  public PlanValidator withRequiredIgnored() {
+    return new PlanValidator(scenario, ctx, now, false, slewKeepOuts);
   }
 
   /**
-   * A copy that does not ask for the required requests: for checking part of a night (the done and running
-   * observations a re-plan keeps), where the rest is still to come.
+   * A copy that checks the keep-outs during slews (A3) or not. Off only where a caller knowingly accepts
+   * plans whose slews were not planned around the keep-outs (the façade, until the planner side of A3 lands;
+   * see {@code Planner}, whose rules {@code sequencer check} shares).
    */
-  public PlanValidator withRequiredIgnored() {
-    List<RequestWindows> w = new ArrayList<>();
-    windows.forEach((id, list) -> w.add(new RequestWindows(id, list)));
-    return new PlanValidator(horizon, requests, w, transitions, oracle, now, false);
+  public PlanValidator withSlewKeepOuts(boolean on) {
+    return new PlanValidator(scenario, ctx, now, checkRequired, on);
   }
 
-  /** All violations of {@code timeline}; empty when it is valid. */
+  /** The scenario this validator checks against. */
+  public Scenario scenario() {
+    return scenario;
+  }
+
+  /** Every violation of {@code timeline}, in words; empty when it is valid. */
+  @Override
   public List<String> violations(Timeline timeline) {
+    return Violation.words(check(timeline));
+  }
+
+  /** Every violation of {@code timeline}; empty when it is valid. */
+  public synchronized List<Violation> check(Timeline timeline) {
     long t0 = System.nanoTime();
-    List<String> out = check(timeline);
-    LOG.debug("check: {} observations, {} violations, in {} ms", timeline.observations().size(), out.size(),
+    if (sky == null) {
+      sky = new Sky(scenario, ctx);
+    }
+    List<Violation> out = new ArrayList<>();
+    checkOncePerRequest(timeline, out);
+    List<Observation> obs = timeline.observations();
+    double prioritySum = 0;
+    double slewSum = 0;
+    boolean allKnown = true;
+    ObservationCheck constraints = new ObservationCheck(sky);
+    for (int k = 0; k < obs.size(); k++) {
+      Observation o = obs.get(k);
+      slewSum += o.slewSeconds();
+      Request r = byId.get(o.id());
+      if (r == null) {
+        allKnown = false;
+        continue;
+      }
+      prioritySum += r.priority() != null ? r.priority() : o.value() != null ? o.value() : 0;
+      checkDuration(o, r, out);
+      checkHorizonAndWindows(o, r, out);
+      checkNow(o, out);
+      if (k > 0 && o.start().isBefore(obs.get(k - 1).end())) {
+        Observation p = obs.get(k - 1);
+        double overlap = seconds(o.start(), p.end());
+        out.add(Violation.of(Kind.OVERLAP, o.id(), o.start(), overlap, 0, String.format(Locale.ROOT,
+            "observation %s starts at %s, %.3f s before %s ends at %s (overlap or out of time order)", o.id(),
+            o.start(), overlap, p.id(), p.end())));
+      }
+      out.addAll(constraints.violations(r, o.start(), o.end()));
+    }
+    if (allKnown) {
+      checkSlews(obs, out);
+    }
+    for (Request r : scenario.requests()) {
+      if (checkRequired && r.required() && obs.stream().noneMatch(o -> o.id().equals(r.id()))) {
+        out.add(Violation.of(Kind.REQUIRED_MISSING, r.id(), null, "required request " + r.id() + " is not observed"));
+      }
+    }
+    if (Math.abs(prioritySum - timeline.priority()) > 1e-9 * Math.max(1, Math.abs(prioritySum))) {
+      out.add(Violation.of(Kind.TOTAL_PRIORITY, null, null, timeline.priority(), prioritySum, String.format(
+          Locale.ROOT, "total priority: timeline says %s, observations sum to %s", timeline.priority(), prioritySum)));
+    }
+    if (Math.abs(slewSum - timeline.slewSeconds()) > TOLERANCE_S) {
+      out.add(Violation.of(Kind.TOTAL_SLEW_SECONDS, null, null, timeline.slewSeconds(), slewSum, String.format(
+          Locale.ROOT, "total slewSeconds: timeline says %.3f, observations sum to %.3f", timeline.slewSeconds(),
+          slewSum)));
+    }
+    LOG.debug("check: {} observations, {} violations, in {} ms", obs.size(), out.size(),
         (System.nanoTime() - t0) / 1_000_000);
     return out;
   }
 
-  private List<String> check(Timeline timeline) {
-    List<String> out = new ArrayList<>();
-    List<Observation> obs = timeline.observations();
-    checkOncePerRequest(timeline, out);
-    double prioritySum = 0;
-    double slewSum = 0;
-    for (int k = 0; k < obs.size(); k++) {
-      Observation o = obs.get(k);
-      slewSum += o.slewSeconds();
-      Integer idx = index.get(o.id());
-      if (idx == null) {
-        continue;
-      }
-      Request r = requests.get(idx);
-      if (r.priority() != null) {
-        prioritySum += r.priority();
-      } else if (o.value() != null) {
-        prioritySum += o.value();
-      }
-      checkDuration(o, r, out);
-      checkWindow(o, out);
-      checkNow(o, out);
-      if (k > 0 && o.start().isBefore(obs.get(k - 1).end())) {
-        Observation p = obs.get(k - 1);
-        out.add(String.format(Locale.ROOT, "observation %s starts at %s, %.3f s before %s ends at %s (overlap or "
-            + "out of time order)", o.id(), o.start(), seconds(o.start(), p.end()), p.id(), p.end()));
-      }
-      if (oracle != null) {
-        for (String v : oracle.violations(r, o.start(), o.end())) {
-          out.add("observation " + o.id() + ": " + v);
-        }
-      }
-    }
-    checkTransitions(obs, out);
-    for (Request r : requests) {
-      if (checkRequired && r.required() && obs.stream().noneMatch(o -> o.id().equals(r.id()))) {
-        out.add("required request " + r.id() + " is not observed");
-      }
-    }
-    if (Math.abs(prioritySum - timeline.priority()) > 1e-9 * Math.max(1, Math.abs(prioritySum))) {
-      out.add(String.format(Locale.ROOT, "total priority: timeline says %s, observations sum to %s",
-          timeline.priority(), prioritySum));
-    }
-    if (Math.abs(slewSum - timeline.slewSeconds()) > TOLERANCE_S) {
-      out.add(String.format(Locale.ROOT, "total slewSeconds: timeline says %.3f, observations sum to %.3f",
-          timeline.slewSeconds(), slewSum));
-    }
-    return out;
+  private boolean frozen(Observation o) {
+    return now != null && (Observation.DONE.equals(o.state()) || Observation.RUNNING.equals(o.state()));
   }
 
-  private void checkOncePerRequest(Timeline timeline, List<String> out) {
+  private void checkOncePerRequest(Timeline timeline, List<Violation> out) {
     Map<String, Integer> count = new HashMap<>();
     for (Observation o : timeline.observations()) {
       count.merge(o.id(), 1, Integer::sum);
-      if (!index.containsKey(o.id())) {
-        out.add("observation " + o.id() + ": unknown request id");
+      if (!byId.containsKey(o.id())) {
+        out.add(Violation.of(Kind.UNKNOWN_REQUEST, o.id(), o.start(), "observation " + o.id() + ": unknown request id"));
       }
     }
     for (Unscheduled u : timeline.unscheduled()) {
       count.merge(u.id(), 1, Integer::sum);
-      if (!index.containsKey(u.id())) {
-        out.add("unscheduled " + u.id() + ": unknown request id");
+      if (!byId.containsKey(u.id())) {
+        out.add(Violation.of(Kind.UNKNOWN_REQUEST, u.id(), null, "unscheduled " + u.id() + ": unknown request id"));
       }
     }
-    for (Request r : requests) {
+    for (Request r : scenario.requests()) {
       int c = count.getOrDefault(r.id(), 0);
       if (c != 1) {
-        out.add("request " + r.id() + " appears " + c + " times in observations and unscheduled (must be exactly once)");
+        out.add(Violation.of(Kind.NOT_LISTED_ONCE, r.id(), null, c, 1, "request " + r.id() + " appears " + c
+            + " times in observations and unscheduled (must be exactly once)"));
       }
     }
   }
 
   /** With a re-planning instant: done/running observations start by it, planned ones at or after it. */
-  private void checkNow(Observation o, List<String> out) {
+  private void checkNow(Observation o, List<Violation> out) {
     if (now == null) {
       return;
     }
     long tol = (long) (TOLERANCE_S * 1e9);
-    boolean frozen = Observation.DONE.equals(o.state()) || Observation.RUNNING.equals(o.state());
+    boolean frozen = frozen(o);
     if (frozen && o.start().isAfter(now.plusNanos(tol))) {
-      out.add("observation " + o.id() + " is " + o.state() + " but starts at " + o.start() + ", after now " + now);
+      out.add(Violation.of(Kind.REPLAN_NOW, o.id(), o.start(), seconds(now, o.start()), 0,
+          "observation " + o.id() + " is " + o.state() + " but starts at " + o.start() + ", after now " + now));
     } else if (!frozen && o.start().isBefore(now.minusNanos(tol))) {
-      out.add("observation " + o.id() + " is planned but starts at " + o.start() + ", before now " + now);
+      out.add(Violation.of(Kind.REPLAN_NOW, o.id(), o.start(), seconds(now, o.start()), 0,
+          "observation " + o.id() + " is planned but starts at " + o.start() + ", before now " + now));
     }
   }
 
-  private void checkDuration(Observation o, Request r, List<String> out) {
+  private void checkDuration(Observation o, Request r, List<Violation> out) {
     if (r.durationS() == null) {
       checkExposure(o, r, out);
       return;
     }
     double d = o.durationS();
     if (Math.abs(d - r.durationS()) > TOLERANCE_S) {
-      out.add(String.format(Locale.ROOT, "observation %s lasts %.3f s, but the request's durationS is %.3f",
-          o.id(), d, r.durationS()));
+      out.add(Violation.of(Kind.DURATION, o.id(), o.start(), d, r.durationS(), String.format(Locale.ROOT,
+          "observation %s lasts %.3f s, but the request's durationS is %.3f", o.id(), d, r.durationS())));
     }
   }
 
   /**
-   * Flexible-exposure extension: the duration is min + k·step for a whole k and lies in [min, max]
-   * (within {@link #TOLERANCE_S}); the observation carries {@code value} equal to the curve's linear
-   * interpolation at its duration (within {@link #VALUE_TOLERANCE}).
+   * Flexible exposure: the duration is min + k·step for a whole k and lies in [min, max] (within
+   * {@link #TOLERANCE_S}); the observation carries {@code value} equal to the curve's linear interpolation at
+   * its duration (within {@link #VALUE_TOLERANCE}).
    */
-  private void checkExposure(Observation o, Request r, List<String> out) {
+  private void checkExposure(Observation o, Request r, List<Violation> out) {
     FlexibleExposure f = r.flexible();
     if (f == null) {
       return;
@@ -241,17 +240,19 @@ public final class PlanValidator {
     double onGrid = f.minDurationS() + k * f.durationStepS();
     if (Math.abs(d - onGrid) > TOLERANCE_S || d < f.minDurationS() - TOLERANCE_S
         || d > f.maxDurationS() + TOLERANCE_S) {
-      out.add(String.format(Locale.ROOT, "observation %s lasts %.3f s, not a grid exposure %s + k·%s in [%s, %s]",
-          o.id(), d, num(f.minDurationS()), num(f.durationStepS()), num(f.minDurationS()), num(f.maxDurationS())));
+      out.add(Violation.of(Kind.EXPOSURE_GRID, o.id(), o.start(), d, onGrid, String.format(Locale.ROOT,
+          "observation %s lasts %.3f s, not a grid exposure %s + k·%s in [%s, %s]", o.id(), d, num(f.minDurationS()),
+          num(f.durationStepS()), num(f.minDurationS()), num(f.maxDurationS()))));
     }
     if (o.value() == null) {
-      out.add("observation " + o.id() + ": a flexible request's observation must carry its value");
+      out.add(Violation.of(Kind.EXPOSURE_VALUE, o.id(), o.start(),
+          "observation " + o.id() + ": a flexible request's observation must carry its value"));
       return;
     }
     double expected = f.valueAt(d);
     if (Math.abs(o.value() - expected) > VALUE_TOLERANCE) {
-      out.add(String.format(Locale.ROOT, "observation %s: value is %s, but the utility curve gives %s at %.3f s",
-          o.id(), o.value(), expected, d));
+      out.add(Violation.of(Kind.EXPOSURE_VALUE, o.id(), o.start(), o.value(), expected, String.format(Locale.ROOT,
+          "observation %s: value is %s, but the utility curve gives %s at %.3f s", o.id(), o.value(), expected, d)));
     }
   }
 
@@ -259,60 +260,77 @@ public final class PlanValidator {
     return v == Math.rint(v) ? Long.toString((long) v) : Double.toString(v);
   }
 
-  private void checkWindow(Observation o, List<String> out) {
-    Instant lo = o.start().plusNanos((long) (TOLERANCE_S * 1e9));
-    Instant hi = o.end().minusNanos((long) (TOLERANCE_S * 1e9));
+  private void checkHorizonAndWindows(Observation o, Request r, List<Violation> out) {
+    long tol = (long) (TOLERANCE_S * 1e9);
+    TimeWindow horizon = scenario.horizon();
+    if (o.start().isBefore(horizon.start().minusNanos(tol)) || o.end().isAfter(horizon.end().plusNanos(tol))) {
+      double outside = Math.max(seconds(o.start(), horizon.start()), seconds(horizon.end(), o.end()));
+      out.add(Violation.of(Kind.OUTSIDE_HORIZON, o.id(), o.start().isBefore(horizon.start()) ? o.start() : o.end(),
+          outside, 0, "observation " + o.id() + " [" + o.start() + ", " + o.end() + "] is outside the horizon ["
+              + horizon.start() + ", " + horizon.end() + "]"));
+    }
+    if (r.windows().isEmpty()) {
+      return;
+    }
+    Instant lo = o.start().plusNanos(tol);
+    Instant hi = o.end().minusNanos(tol);
     if (hi.isBefore(lo)) {
       lo = o.start();
       hi = o.end();
     }
-    if (o.start().isBefore(horizon.start().minusNanos((long) (TOLERANCE_S * 1e9)))
-        || o.end().isAfter(horizon.end().plusNanos((long) (TOLERANCE_S * 1e9)))) {
-      out.add("observation " + o.id() + " [" + o.start() + ", " + o.end() + "] is outside the horizon ["
-          + horizon.start() + ", " + horizon.end() + "]");
-    }
-    for (TimeWindow w : windows.getOrDefault(o.id(), List.of())) {
+    for (TimeWindow w : r.windows()) {
       if (w.contains(lo, hi)) {
         return;
       }
     }
-    out.add("observation " + o.id() + " [" + o.start() + ", " + o.end() + "] lies inside no visibility window of "
-        + "the request (windows: " + windows.getOrDefault(o.id(), List.of()) + ")");
+    out.add(Violation.of(Kind.OUTSIDE_REQUEST_WINDOW, o.id(), o.start(), "observation " + o.id() + " [" + o.start()
+        + ", " + o.end() + "] lies inside none of the request's own windows " + r.windows()));
   }
 
-  /** Gap before each observation >= exact transition, and reported slewSeconds = exact transition. */
-  private void checkTransitions(List<Observation> obs, List<String> out) {
-    int[] order = new int[obs.size()];
-    double[] departure = new double[obs.size()];
-    double[] arrival = new double[obs.size()];
-    for (int k = 0; k < obs.size(); k++) {
-      Integer idx = index.get(obs.get(k).id());
-      if (idx == null) {
-        return; // already reported; the transition table cannot be indexed
-      }
-      order[k] = idx;
-      departure[k] = k == 0 ? 0.0 : seconds(horizon.start(), obs.get(k - 1).end());
-      arrival[k] = seconds(horizon.start(), obs.get(k).start());
-    }
-    double[] exact = transitions.exactS(order, departure, arrival);
+  /** Each gap covers the validator's own slew; slewSeconds equals it; slewStart in the gap; keep-outs (A3). */
+  private void checkSlews(List<Observation> obs, List<Violation> out) {
+    List<Request> req = obs.stream().map(o -> byId.get(o.id())).toList();
+    List<SlewLegs.Leg> legs = new SlewLegs(sky).legs(obs, req);
+    SlewKeepOut keepOut = slewKeepOuts && SlewKeepOut.applies(sky) ? new SlewKeepOut(sky) : null;
+    Violation reported = null;
     for (int k = 0; k < obs.size(); k++) {
       Observation o = obs.get(k);
-      if (now != null && (Observation.DONE.equals(o.state()) || Observation.RUNNING.equals(o.state()))) {
+      SlewLegs.Leg leg = legs.get(k);
+      if (frozen(o)) {
         continue; // history: legs into done/running observations are as recorded (a failed one may be gone)
       }
       String from = k == 0 ? "the start pointing" : obs.get(k - 1).id();
-      if (!(exact[k] < Double.POSITIVE_INFINITY)) {
-        out.add("observation " + o.id() + ": the transition from " + from + " is impossible (exact = " + exact[k] + ")");
+      if (!(leg.seconds() < Double.POSITIVE_INFINITY)) {
+        if (leg.problem() != reported) {
+          out.add(leg.problem());
+          reported = leg.problem();
+        }
         continue;
       }
-      double gap = seconds(k == 0 ? horizon.start() : obs.get(k - 1).end(), o.start());
-      if (gap < exact[k] - TOLERANCE_S) {
-        out.add(String.format(Locale.ROOT, "observation %s: gap after %s is %.3f s, shorter than the exact "
-            + "transition %.3f s", o.id(), from, gap, exact[k]));
+      Instant gapStart = k == 0 ? scenario.horizon().start() : obs.get(k - 1).end();
+      double gap = seconds(gapStart, o.start());
+      if (gap < leg.seconds() - TOLERANCE_S) {
+        out.add(Violation.of(Kind.GAP_TOO_SHORT, o.id(), o.start(), gap, leg.seconds(), String.format(Locale.ROOT,
+            "observation %s: gap after %s is %.3f s, shorter than the slew %.3f s", o.id(), from, gap, leg.seconds())));
       }
-      if (Math.abs(o.slewSeconds() - exact[k]) > TOLERANCE_S) {
-        out.add(String.format(Locale.ROOT, "observation %s: slewSeconds is %.3f, but the exact transition from %s is "
-            + "%.3f s", o.id(), o.slewSeconds(), from, exact[k]));
+      if (Math.abs(o.slewSeconds() - leg.seconds()) > TOLERANCE_S) {
+        out.add(Violation.of(Kind.SLEW_SECONDS, o.id(), o.start(), o.slewSeconds(), leg.seconds(), String.format(
+            Locale.ROOT, "observation %s: slewSeconds is %.3f, but the slew from %s takes %.3f s", o.id(),
+            o.slewSeconds(), from, leg.seconds())));
+      }
+      if (o.slewStart() != null && (o.slewStart().isBefore(gapStart.minusNanos((long) (TOLERANCE_S * 1e9)))
+          || seconds(o.slewStart(), o.start()) < leg.seconds() - TOLERANCE_S)) {
+        out.add(Violation.of(Kind.SLEW_START, o.id(), o.slewStart(), seconds(gapStart, o.slewStart()),
+            gap - leg.seconds(), String.format(Locale.ROOT, "observation %s: slewStart %s does not leave the slew "
+                + "of %.3f s inside the gap [%s, %s]", o.id(), o.slewStart(), leg.seconds(), gapStart, o.start())));
+        continue;
+      }
+      if (keepOut != null && gap >= leg.seconds() - TOLERANCE_S) {
+        Constraints fromC = k == 0 ? scenario.constraints() : scenario.constraintsFor(req.get(k - 1));
+        Violation v = keepOut.check(o, gapStart, leg, fromC, scenario.constraintsFor(req.get(k)));
+        if (v != null) {
+          out.add(v);
+        }
       }
     }
   }

@@ -9,7 +9,7 @@ import dev.sequencer.model.TimeWindow;
 import dev.sequencer.sequence.problem.PlanningProblem;
 import dev.sequencer.sequence.problem.Task;
 import dev.sequencer.slew.Transitions;
-import dev.sequencer.validate.PlanValidator;
+
 import java.time.Instant;
 import java.util.ArrayList;
 import java.util.List;
@@ -98,7 +98,7 @@ class BruteForceProperties {
     assertEquals(PlanStatus.OPTIMAL, r.status());
     assertEquals(best[0] / 4.0, r.totalPriority(), 1e-9, "total priority");
     assertEquals(best[1], r.totalTransitionS(), 1e-9, "total transition at the best priority");
-    assertEquals(List.of(), new PlanValidator(p.horizon(), p.requests(), p.windows(), p.transitions())
+    assertEquals(List.of(), new SelfCheck(p.horizon(), p.requests(), p.windows(), p.transitions())
         .violations(r.toTimeline()));
   }
 
@@ -108,7 +108,7 @@ class BruteForceProperties {
     SequencerResult r = new Sequencer().plan(p,
         SequencerOptions.defaults().withSolver(SequencerOptions.Solver.GREEDY).withTimeLimitS(2));
     if (r.hasPlan()) {
-      assertEquals(List.of(), new PlanValidator(p.horizon(), p.requests(), p.windows(), p.transitions())
+      assertEquals(List.of(), new SelfCheck(p.horizon(), p.requests(), p.windows(), p.transitions())
           .violations(r.toTimeline()));
       long[] best = exhaustive(p);
       assertEquals(true, r.totalPriority() <= best[0] / 4.0 + 1e-9, "greedy never beats the optimum");

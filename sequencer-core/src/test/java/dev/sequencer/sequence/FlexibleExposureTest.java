@@ -15,7 +15,7 @@ import dev.sequencer.model.Timeline;
 import dev.sequencer.model.UtilityPoint;
 import dev.sequencer.sequence.problem.PlanningProblem;
 import dev.sequencer.slew.Transitions;
-import dev.sequencer.validate.PlanValidator;
+
 import java.time.Instant;
 import java.util.ArrayList;
 import java.util.List;
@@ -187,7 +187,7 @@ class FlexibleExposureTest {
   /** The validator accepts the timeline, and objective.priority is the sum of values and priorities. */
   static void assertValidAndValuesAddUp(PlanningProblem p, SequencerResult r) {
     Timeline t = r.toTimeline();
-    assertEquals(List.of(), new PlanValidator(p.horizon(), p.requests(), p.windows(), p.transitions()).violations(t));
+    assertEquals(List.of(), new SelfCheck(p.horizon(), p.requests(), p.windows(), p.transitions()).violations(t));
     double sum = 0;
     for (Observation o : t.observations()) {
       Request req = p.requests().stream().filter(q -> q.id().equals(o.id())).findFirst().orElseThrow();

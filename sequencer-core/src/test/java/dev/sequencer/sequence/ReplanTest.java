@@ -16,7 +16,7 @@ import dev.sequencer.sequence.replan.ReplanOptions;
 import dev.sequencer.sequence.replan.ReplanResult;
 import dev.sequencer.sequence.replan.Replanner;
 import dev.sequencer.slew.Transitions;
-import dev.sequencer.validate.PlanValidator;
+
 import java.time.Instant;
 import java.util.ArrayList;
 import java.util.List;
@@ -38,7 +38,7 @@ class ReplanTest {
       Set<String> failed, ReplanOptions o) {
     ReplanResult r = new Replanner().replan(p, previous, now, done, failed, o);
     if (r.hasPlan()) {
-      List<String> v = new PlanValidator(p.horizon(), p.requests(), p.windows(), p.transitions()).withNow(now)
+      List<String> v = new SelfCheck(p.horizon(), p.requests(), p.windows(), p.transitions()).withNow(now)
           .violations(r.timeline());
       assertEquals(List.of(), v, "every re-plan passes the validator");
     }

@@ -11,7 +11,7 @@ import dev.sequencer.sequence.problem.PlanningProblem;
 import dev.sequencer.sequence.problem.Reasons;
 import dev.sequencer.sequence.problem.StartRange;
 import dev.sequencer.slew.Transitions;
-import dev.sequencer.validate.PlanValidator;
+
 import java.time.Instant;
 import java.util.ArrayList;
 import java.util.List;
@@ -138,7 +138,7 @@ class SequencerTest {
     assertEquals(PlanStatus.FEASIBLE, cp.status());
     assertTrue(cp.totalPriority() >= greedy.totalPriority(), cp.totalPriority() + " vs greedy " + greedy.totalPriority());
     assertTrue(cp.boundPriority() >= cp.totalPriority());
-    assertEquals(List.of(), new PlanValidator(p.horizon(), p.requests(), p.windows(), p.transitions())
+    assertEquals(List.of(), new SelfCheck(p.horizon(), p.requests(), p.windows(), p.transitions())
         .violations(cp.toTimeline()));
   }
 

@@ -11,7 +11,6 @@ import dev.sequencer.model.RequestWindows;
 import dev.sequencer.model.TimeWindow;
 import dev.sequencer.model.Timeline;
 import dev.sequencer.model.UtilityPoint;
-import dev.sequencer.slew.Transitions;
 import java.time.Instant;
 import java.util.List;
 import org.junit.jupiter.api.Test;
@@ -23,9 +22,10 @@ class FlexibleValidatorTest {
   private static final FlexibleExposure CURVE = new FlexibleExposure(300, 3600, 60, List.of(
       new UtilityPoint(300, 1.0), new UtilityPoint(900, 2.2), new UtilityPoint(1800, 3.0),
       new UtilityPoint(3600, 3.4)));
-  private final PlanValidator validator = new PlanValidator(new TimeWindow(T0, T0.plusSeconds(7200)),
+  private final PlanValidator validator = NoObserver.validator(new TimeWindow(T0, T0.plusSeconds(7200)),
       List.of(new Request("R9", null, null, null, false, List.of(), CURVE)),
-      List.of(new RequestWindows("R9", List.of(new TimeWindow(T0, T0.plusSeconds(7200))))), Transitions.fixed(1, 0));
+      List.of(new RequestWindows("R9", List.of(new TimeWindow(T0, T0.plusSeconds(7200))))), new double[][] {{0}},
+      new double[] {0});
 
   private static Timeline timeline(double durationS, Double value, double total) {
     Observation o = new Observation("R9", T0, T0.plusMillis((long) (durationS * 1000)), 0, value, null);

@@ -10,7 +10,6 @@ import dev.sequencer.model.RequestWindows;
 import dev.sequencer.model.TimeWindow;
 import dev.sequencer.model.Timeline;
 import dev.sequencer.model.Unscheduled;
-import dev.sequencer.slew.Transitions;
 import java.time.Instant;
 import java.util.List;
 import org.junit.jupiter.api.Test;
@@ -21,13 +20,13 @@ import org.junit.jupiter.api.Test;
  */
 class PlanValidatorNowTest {
   private static final Instant T0 = Instant.parse("2031-05-04T18:00:00Z");
-  private static final PlanValidator VALIDATOR = new PlanValidator(new TimeWindow(T0, T0.plusSeconds(1000)),
+  private static final PlanValidator VALIDATOR = NoObserver.validator(new TimeWindow(T0, T0.plusSeconds(1000)),
       List.of(new Request("R1", null, 100.0, 2.0, false, List.of(), null),
           new Request("R2", null, 50.0, 3.0, false, List.of(), null),
           new Request("R3", null, 60.0, 1.0, false, List.of(), null)),
       List.of(new RequestWindows("R1", List.of(new TimeWindow(T0, T0.plusSeconds(500)))),
           new RequestWindows("R2", List.of(new TimeWindow(T0.plusSeconds(100), T0.plusSeconds(300))))),
-      Transitions.matrix(new double[][] {{0, 20, 30}, {25, 0, 15}, {35, 15, 0}}, new double[] {10, 10, 10}));
+      new double[][] {{0, 20, 30}, {25, 0, 15}, {35, 15, 0}}, new double[] {10, 10, 10});
 
   private static Timeline plan(String r1State, String r2State) {
     return new Timeline(PlanStatus.FEASIBLE, 5, 30, null,

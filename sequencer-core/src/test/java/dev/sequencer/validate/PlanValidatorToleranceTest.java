@@ -10,7 +10,6 @@ import dev.sequencer.model.RequestWindows;
 import dev.sequencer.model.TimeWindow;
 import dev.sequencer.model.Timeline;
 import dev.sequencer.model.Unscheduled;
-import dev.sequencer.slew.Transitions;
 import java.time.Instant;
 import java.util.List;
 import org.junit.jupiter.api.Test;
@@ -29,10 +28,8 @@ class PlanValidatorToleranceTest {
   private static final List<RequestWindows> WINDOWS = List.of(
       new RequestWindows("R1", List.of(new TimeWindow(T0, T0.plusSeconds(500)))),
       new RequestWindows("R2", List.of(new TimeWindow(T0, T0.plusSeconds(500)))));
-  private static final Transitions TRANSITIONS =
-      Transitions.matrix(new double[][] {{0, 20}, {20, 0}}, new double[] {10, 10});
-  private static final PlanValidator VALIDATOR =
-      new PlanValidator(new TimeWindow(T0, T0.plusSeconds(1000)), REQUESTS, WINDOWS, TRANSITIONS);
+  private static final PlanValidator VALIDATOR = NoObserver.validator(new TimeWindow(T0, T0.plusSeconds(1000)),
+      REQUESTS, WINDOWS, new double[][] {{0, 20}, {20, 0}}, new double[] {10, 10});
 
   private static Instant at(double s) {
     return T0.plusNanos(Math.round(s * 1e9));
@@ -50,7 +47,7 @@ class PlanValidatorToleranceTest {
     assertEquals(List.of(), check(10, 110, 10, 129.9991, 179.9991, 20));
     List<String> v = check(10, 110, 10, 129.9989, 179.9989, 20);
     assertEquals(1, v.size(), v.toString());
-    assertTrue(v.get(0).contains("shorter than the exact transition 20.000 s"), v.get(0));
+    assertTrue(v.get(0).contains("shorter than the slew 20.000 s"), v.get(0));
   }
 
   @Test
@@ -71,6 +68,6 @@ class PlanValidatorToleranceTest {
   void toleranceOnTheWindowEdge() {
     // R2's window ends at 500 s: ending 0.9 ms after it is accepted, 1.1 ms after it is not.
     assertEquals(List.of(), check(10, 110, 10, 450.0009, 500.0009, 20));
-    assertTrue(check(10, 110, 10, 450.0011, 500.0011, 20).stream().anyMatch(s -> s.contains("inside no visibility window")));
+    assertTrue(check(10, 110, 10, 450.0011, 500.0011, 20).stream().anyMatch(s -> s.contains("inside none of the request's own windows")));
   }
 }

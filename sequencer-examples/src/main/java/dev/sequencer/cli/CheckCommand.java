@@ -2,6 +2,7 @@ package dev.sequencer.cli;
 
 import dev.sequencer.io.ScenarioReader;
 import dev.sequencer.io.TimelineFile;
+import dev.sequencer.planner.InputRules;
 import dev.sequencer.model.Timeline;
 import java.io.PrintWriter;
 import java.nio.file.Path;
@@ -17,8 +18,9 @@ import picocli.CommandLine.Model.CommandSpec;
 @Command(
     name = "check",
     mixinStandardHelpOptions = true,
-    description = {"Re-check a timeline against its scenario: visibility recomputed from the geometry, no "
-        + "overlap, every gap covers the exact slew, required requests present, totals add up.",
+    description = {"Re-check a timeline against its scenario with the validator's own physics: every "
+        + "constraint recomputed along each observation, no overlap, every gap covers the slew the validator "
+        + "computes itself, keep-outs along slews, required requests present, totals add up.",
         "Exit 0 when valid; 1 with every violation listed; 2 on invalid input."},
     footer = {"", Caution.TEXT})
 final class CheckCommand implements Callable<Integer> {
@@ -36,8 +38,8 @@ final class CheckCommand implements Callable<Integer> {
   public Integer call() {
     ScenarioReader.Result r = ScenarioReader.read(scenario);
     Timeline t = TimelineFile.read(timeline);
-    Pipeline p = Pipeline.of(r.scenario(), common.astro());
-    List<String> violations = p.violations(t, replanInstant(t));
+    InputRules.check(r.scenario(), scenario.toString());
+    List<String> violations = Pipeline.violations(r.scenario(), common.astro(), t, replanInstant(t));
     PrintWriter out = spec.commandLine().getOut();
     if (violations.isEmpty()) {
       out.println("valid: " + t.observations().size() + " observations, priority " + t.priority());

@@ -32,9 +32,12 @@ record Pipeline(Geometry geometry, AstroContext astro) {
     return geometry.visibility();
   }
 
-  /** What the full validator finds wrong with {@code timeline}, for a re-plan made at {@code now} when not null. */
-  List<String> violations(Timeline timeline, Instant now) {
-    PlanValidator v = Planner.validator(geometry, astro);
+  /**
+   * What the independent validator finds wrong with {@code timeline} (for a re-plan made at {@code now} when
+   * not null); it uses only the scenario, none of this pipeline's windows or transitions.
+   */
+  static List<String> violations(Scenario s, AstroContext ctx, Timeline timeline, Instant now) {
+    PlanValidator v = Planner.validator(s, ctx);
     return (now == null ? v : v.withNow(now)).violations(timeline);
   }
 }

@@ -1,7 +1,7 @@
 package dev.sequencer.sequence.replan;
 
 import dev.sequencer.sequence.SequencerOptions;
-import dev.sequencer.validate.PlanValidator;
+import dev.sequencer.validate.TimelineCheck;
 import java.util.Objects;
 
 /**
@@ -13,11 +13,11 @@ import java.util.Objects;
  * successor arcs), then total slew; a number w >= 0 ranks them by priority + w x stability score, then
  * slew (0 switches stability off). {@code warmStart}: offer the rest of the previous plan to the
  * sequencer as warm start (it is always kept as a fallback). {@code validator}: the check of the whole
- * night, done and running observations included ({@code null}: one built from the scenario's own windows
- * and transitions); the re-plan applies its re-planning instant.
+ * night, done and running observations included ({@code null}: the sequencer's self-check from the problem's own windows
+ * and transitions; the library façade passes the independent validator); the re-plan applies its re-planning instant.
  */
 public record ReplanOptions(SequencerOptions sequencer, boolean dropFailed, double stabilityWeight, boolean warmStart,
-    PlanValidator validator) {
+    TimelineCheck validator) {
   public ReplanOptions {
     Objects.requireNonNull(sequencer, "sequencer");
     if (!Double.isNaN(stabilityWeight) && !(stabilityWeight >= 0 && stabilityWeight < Double.POSITIVE_INFINITY)) {
@@ -52,7 +52,7 @@ public record ReplanOptions(SequencerOptions sequencer, boolean dropFailed, doub
     return new ReplanOptions(sequencer, dropFailed, stabilityWeight, v, validator);
   }
 
-  public ReplanOptions withValidator(PlanValidator v) {
+  public ReplanOptions withValidator(TimelineCheck v) {
     return new ReplanOptions(sequencer, dropFailed, stabilityWeight, warmStart, v);
   }
 

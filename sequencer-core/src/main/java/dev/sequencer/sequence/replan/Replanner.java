@@ -20,7 +20,8 @@ import dev.sequencer.sequence.problem.Prizes;
 import dev.sequencer.sequence.problem.Reasons;
 import dev.sequencer.sequence.problem.Task;
 import dev.sequencer.slew.Transitions;
-import dev.sequencer.validate.PlanValidator;
+import dev.sequencer.sequence.SelfCheck;
+import dev.sequencer.validate.TimelineCheck;
 import java.time.Duration;
 import java.time.Instant;
 import java.util.ArrayList;
@@ -88,7 +89,7 @@ public final class Replanner {
     private final Set<String> done;
     private final Set<String> failed;
     private final ReplanOptions options;
-    private final PlanValidator validator;
+    private final TimelineCheck validator;
     private final Map<String, Integer> index = new HashMap<>();
     private final List<Observation> frozen = new ArrayList<>();
     private final List<Observation> tail = new ArrayList<>();
@@ -106,8 +107,8 @@ public final class Replanner {
       this.done = done;
       this.failed = failed;
       this.options = options;
-      PlanValidator v = options.validator() != null ? options.validator()
-          : new PlanValidator(full.horizon(), full.requests(), full.windows(), full.transitions());
+      TimelineCheck v = options.validator() != null ? options.validator()
+          : new SelfCheck(full.horizon(), full.requests(), full.windows(), full.transitions());
       this.validator = v.withNow(now);
       for (int k = 0; k < full.size(); k++) {
         index.put(full.task(k).id(), k);

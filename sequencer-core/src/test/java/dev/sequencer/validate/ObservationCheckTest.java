@@ -37,7 +37,7 @@ import org.junit.jupiter.api.Test;
  * constraints must agree. Observations inside computed windows pass; observations that start two minutes
  * before a window opens (with a constraint closing it) are rejected and the constraint is named.
  */
-class PhysicsOracleTest {
+class ObservationCheckTest {
   private static final AstroContext CTX = AstroContext.offline();
   private static final Instant T0 = Instant.parse("2031-10-14T15:00:00Z");
 
@@ -77,14 +77,14 @@ class PhysicsOracleTest {
         .moonIlluminationMax(0.6).build();
     ConstraintOverrides own = new ConstraintOverrides(Constraints.builder().hourAngleMinH(-1).hourAngleMaxH(1).build(),
         EnumSet.of(ConstraintField.AIRMASS_MAX));
-    check(site, c, 86400, PhysicsOracleTest::star, 300, own);
+    check(site, c, 86400, ObservationCheckTest::star, 300, own);
   }
 
   @Test
   void groundDaylightWindowsAgreeWithTheOracle() {
     GroundSite site = new GroundSite(47.0, 8.0, 500, List.of());
     check(site, Constraints.builder().sunElevationMinDeg(-6).elevationMinDeg(15).build(), 2 * 86400,
-        PhysicsOracleTest::star, 300, null);
+        ObservationCheckTest::star, 300, null);
   }
 
   @Test
@@ -104,9 +104,14 @@ class PhysicsOracleTest {
     Scenario s = new Scenario(1, "t", new TimeWindow(T0, T0.plusSeconds(86400)), site,
         Constraints.builder().airmassMax(2.0).build(), new SlewSettings.Fixed(0), null, List.of(r), null);
     TimeWindow w = new VisibilityCalculator(CTX).compute(s).get(0).intervals().get(0);
-    List<String> v = new PhysicsOracle(s, CTX).violations(r, w.start().minusSeconds(120), w.start().minusSeconds(60));
+    List<String> v = ObservationCheckTest.words(s, CTX, r, w.start().minusSeconds(120), w.start().minusSeconds(60));
     assertEquals(1, v.size());
     assertTrue(v.get(0).contains("airmass violated by"), v.get(0));
+  }
+
+  /** The check's verdict on {@code r} observed over [a, b], in words. */
+  static List<String> words(Scenario s, AstroContext ctx, Request r, Instant a, Instant b) {
+    return Violation.words(new ObservationCheck(new Sky(s, ctx)).violations(r, a, b));
   }
 
   private static RaDec star(Random rnd) {
@@ -115,7 +120,7 @@ class PhysicsOracleTest {
 
   /** Runs the comparison on stars; returns how many early observations the oracle rejected for elevation. */
   private static int check(Observer observer, Constraints c, long lengthS) {
-    return check(observer, c, lengthS, PhysicsOracleTest::star, 300, null);
+    return check(observer, c, lengthS, ObservationCheckTest::star, 300, null);
   }
 
   /**
@@ -133,7 +138,7 @@ class PhysicsOracleTest {
     Scenario s = new Scenario(1, "t", new TimeWindow(T0, T0.plusSeconds(lengthS)), observer, c,
         new SlewSettings.Fixed(0), null, reqs, null);
     List<RequestVisibility> vis = new VisibilityCalculator(CTX).compute(s);
-    PhysicsOracle oracle = new PhysicsOracle(s, CTX);
+    ObservationCheck oracle = new ObservationCheck(new Sky(s, CTX));
     int inside = 0;
     int outside = 0;
     int byElevation = 0;
@@ -141,14 +146,14 @@ class PhysicsOracleTest {
       for (TimeWindow w : vis.get(i).intervals()) {
         if (w.durationS() >= obsS) {
           // The whole window edge to edge (inward-rounded edges) and an observation in its middle.
-          assertEquals(List.of(), oracle.violations(reqs.get(i), w.start(), w.end()), reqs.get(i).id() + " " + w);
+          assertEquals(List.of(), Violation.words(oracle.violations(reqs.get(i), w.start(), w.end())), reqs.get(i).id() + " " + w);
           Instant mid = w.start().plusMillis((long) (500 * (w.durationS() - obsS)));
-          assertEquals(List.of(), oracle.violations(reqs.get(i), mid, mid.plusMillis((long) (1000 * obsS))));
+          assertEquals(List.of(), Violation.words(oracle.violations(reqs.get(i), mid, mid.plusMillis((long) (1000 * obsS)))));
           inside++;
         }
         Instant early = w.start().minusSeconds(120);
         if (early.isAfter(s.horizon().start()) && !overlapsEarlierWindow(vis.get(i).intervals(), w, early)) {
-          List<String> v = oracle.violations(reqs.get(i), early, early.plusSeconds(60));
+          List<String> v = Violation.words(oracle.violations(reqs.get(i), early, early.plusSeconds(60)));
           assertFalse(v.isEmpty(), reqs.get(i).id() + " two minutes before " + w);
           assertTrue(v.get(0).contains("violated by"), v.get(0));
           outside++;

@@ -30,7 +30,7 @@ import org.orekit.time.AbsoluteDate;
  * topocentric frame, both within 0.0001 deg of ours, + the 1 s observation's motion 0.0042 deg/s x 0.1 s
  * at most, the amount being taken at the start). Fast enough for mutation testing.
  */
-class PhysicsOracleMarginsTest {
+class ObservationCheckMarginsTest {
   private static final AstroContext CTX = AstroContext.offline();
   private static final Instant T = Instant.parse("2031-10-14T20:00:00Z");
   private static final GroundSite SITE = new GroundSite(24.62, 33.91, 820, List.of());
@@ -52,7 +52,7 @@ class PhysicsOracleMarginsTest {
     Request r = Request.of("R", target, 1, 1);
     Scenario s = new Scenario(1, "t", new TimeWindow(T.minusSeconds(3600), T.plusSeconds(3600)), site, c,
         new SlewSettings.Fixed(0), null, List.of(r), null);
-    return new PhysicsOracle(s, CTX).violations(r, T, T.plusSeconds(1));
+    return ObservationCheckTest.words(s, CTX, r, T, T.plusSeconds(1));
   }
 
   /** The amount of the single violation, degrees, after checking its constraint name. */
@@ -73,25 +73,30 @@ class PhysicsOracleMarginsTest {
     // the mask elsewhere. elevationMinDeg and the mask: the larger one counts.
     GroundSite masked = new GroundSite(24.62, 33.91, 820, List.of(new AzEl(180, 50), new AzEl(220, 50), new AzEl(230, 0),
         new AzEl(170, 0)));
-    assertEquals(10.0, amount(check(masked, Constraints.none(), t), "elevation"), TOL);
-    assertEquals(10.0, amount(check(masked, Constraints.builder().elevationMinDeg(20).build(), t), "elevation"), TOL);
+    assertEquals(10.0, amount(check(masked, Constraints.none(), t), "horizon mask"), TOL);
+    assertEquals(10.0, amount(check(masked, Constraints.builder().elevationMinDeg(20).build(), t), "horizon mask"),
+        TOL);
     assertEquals(12.0, amount(check(masked, Constraints.builder().elevationMinDeg(52).build(), t), "elevation"), TOL);
     GroundSite low = new GroundSite(24.62, 33.91, 820, List.of(new AzEl(0, 30), new AzEl(180, 30)));
     assertEquals(List.of(), check(low, Constraints.none(), t));
     // No limit at all: the horizon (0 deg) for a target below it.
     assertEquals(10.0, amount(check(SITE, Constraints.none(), targetAt(10, -10)), "elevation"), TOL);
-    // Inside the 0.01 deg tolerance: accepted; beyond it: rejected.
-    assertEquals(List.of(), check(SITE, Constraints.builder().elevationMinDeg(40.005).build(), t));
+    // The target sets by 0.0013 deg in the 1 s observation (39.9987 deg at its end). Inside the tolerance
+    // (0.0001 deg + 0.25 s of the margin's rate: 0.0004 deg here) at the end: accepted; beyond it: rejected.
+    assertEquals(List.of(), check(SITE, Constraints.builder().elevationMinDeg(39.9989).build(), t));
+    assertEquals(0.0006, amount(check(SITE, Constraints.builder().elevationMinDeg(39.9993).build(), t), "elevation"),
+        0.0001);
+    assertEquals(0.003, amount(check(SITE, Constraints.builder().elevationMinDeg(40.003).build(), t), "elevation"), TOL);
     assertEquals(0.02, amount(check(SITE, Constraints.builder().elevationMinDeg(40.02).build(), t), "elevation"), TOL);
   }
 
   @Test
   void refractionRaisesTheElevationTheLimitsSee() {
     // At 40 deg, 1013.25 hPa and 10 C the refraction is 58.26" x tan 50 deg = 69.4" = 0.0193 deg (Green's
-    // formula, RefractionTest): a limit at 40.025 deg fails without refraction and holds with it.
+    // formula, RefractionTest): a limit at 40.015 deg fails without refraction and holds with it.
     RaDec t = targetAt(200, 40);
-    Constraints c = Constraints.builder().elevationMinDeg(40.025).build();
-    assertEquals(0.025, amount(check(SITE, c, t), "elevation"), TOL);
+    Constraints c = Constraints.builder().elevationMinDeg(40.015).build();
+    assertEquals(0.015, amount(check(SITE, c, t), "elevation"), TOL);
     double r = new Refraction(1013.25, 10).refractionDeg(40);
     assertEquals(0.0193, r, 0.0002);
     GroundSite refracting = SITE.withRefraction(new Refraction(1013.25, 10));
@@ -146,6 +151,6 @@ class PhysicsOracleMarginsTest {
     Request r = Request.of("R", null, 1, 1).withWindows(List.of(new TimeWindow(T, T.plusSeconds(60))));
     Scenario s = new Scenario(1, "t", new TimeWindow(T.minusSeconds(3600), T.plusSeconds(3600)), null,
         Constraints.builder().elevationMinDeg(80).build(), new SlewSettings.Fixed(0), null, List.of(r), null);
-    assertEquals(List.of(), new PhysicsOracle(s, CTX).violations(r, T, T.plusSeconds(1)));
+    assertEquals(List.of(), ObservationCheckTest.words(s, CTX, r, T, T.plusSeconds(1)));
   }
 }
