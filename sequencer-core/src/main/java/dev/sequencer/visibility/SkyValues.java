@@ -130,6 +130,11 @@ public final class SkyValues {
     return ConstraintFunction.bodyElevationDeg(s, s.sun, s.obs);
   }
 
+  /** The lowest observed elevation with an airmass of at most {@code airmass} (>= 1), degrees (Kasten and Young). */
+  public static double elevationForAirmassDeg(double airmass) {
+    return Airmass.minElevationDeg(airmass);
+  }
+
   /** The Moon's illuminated fraction, (1 + cos i) / 2 with i its geocentric phase angle, in [0, 1]. */
   public double moonIlluminatedFraction(Instant t) {
     loadShared(t);
@@ -260,6 +265,11 @@ public final class SkyValues {
 
   private void loadShared(Instant t) {
     s.load(chunk, -1, seconds(t), false);
+    if (siteEnu != null) {
+      Vec.combine(siteEnu[0], s.ix, siteEnu[1], s.iy, siteEnu[2], s.iz, s.east);
+      Vec.combine(siteEnu[3], s.ix, siteEnu[4], s.iy, siteEnu[5], s.iz, s.north);
+      Vec.combine(siteEnu[6], s.ix, siteEnu[7], s.iy, siteEnu[8], s.iz, s.up);
+    }
   }
 
   private void loadTarget(Request r, Instant t) {

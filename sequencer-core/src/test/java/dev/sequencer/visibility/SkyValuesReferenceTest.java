@@ -138,6 +138,11 @@ class SkyValuesReferenceTest {
     for (int k = 0; k < 48; k++) {
       Instant t = T0.plusSeconds(1800L * k + 7);
       AbsoluteDate d = CTX.date(t);
+      // Sun and Moon first, on a fresh object, so that a horizon frame left over from a target would show.
+      SkyValues fresh = SkyValues.of(s, CTX);
+      Vector3D sunPos = CTX.sun().getPosition(d, CTX.inertial());
+      assertEquals(Math.toDegrees(topo.getElevation(sunPos, CTX.inertial(), d)), fresh.sunElevationDeg(t), 1e-4,
+          "Sun elevation at " + t);
       double el = Math.toDegrees(topo.getElevation(star.scalarMultiply(1e22), CTX.inertial(), d)); // a point at infinity
       assertEquals(el, v.elevationDeg(s.requests().get(0), t), 0.006, "elevation at " + t);
       Vector3D site = CTX.earthFixed().getStaticTransformTo(CTX.inertial(), d).transformPosition(siteItrf);
