@@ -182,6 +182,7 @@ public final class TimelineChart {
     if (reason == null) {
       return "";
     }
+    reason = reason.startsWith("not scheduled: ") ? reason.substring("not scheduled: ".length()) : reason;
     return reason.length() <= 70 ? reason : reason.substring(0, 67) + "...";
   }
 

@@ -314,7 +314,9 @@ public final class NightReport {
           + "Moon, the Moon's illuminated fraction, airmass levels; local and sidereal time above.",
           NightChart.create(s(), t(), sky, axes), NightChart.WIDTH_PX, NightChart.HEIGHT_PX);
     }
-    if (s().observer() != null) {
+    boolean onlyEarthPoints = !s().requests().isEmpty()
+        && s().requests().stream().allMatch(r -> r.target() instanceof EarthPoint);
+    if (s().observer() != null && !onlyEarthPoints) { // Earth points have no place on the sky: the ground map shows them
       chart("sky-chart", sky != null && sky.atGroundSite() ? "The sky at the site, observations numbered in order."
           : "Targets on the sky with the Sun and Moon keep-outs.", SkyChart.create(g, t()), SkyChart.WIDTH_PX,
           SkyChart.HEIGHT_PX);
