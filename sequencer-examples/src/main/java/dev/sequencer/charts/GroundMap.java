@@ -80,6 +80,7 @@ public final class GroundMap {
     data.addSeries(not);
     data.addSeries(track);
     XYLineAndShapeRenderer r = new XYLineAndShapeRenderer();
+    r.setDrawSeriesLineAsPath(true);
     r.setSeriesPaint(0, new Color(31, 78, 160));
     r.setSeriesStroke(0, new BasicStroke(4f));
     r.setSeriesShapesVisible(0, false);

@@ -71,6 +71,7 @@ public final class NightChart {
     long step = stepS(from, to);
     XYSeriesCollection elevations = new XYSeriesCollection();
     XYLineAndShapeRenderer er = new XYLineAndShapeRenderer(true, false);
+    er.setDrawSeriesLineAsPath(true); // one SVG path per series, not one element per segment (keeps the report small)
     XYSeries sun = new XYSeries("Sun elevation", false);
     XYSeries moon = new XYSeries("Moon elevation", false);
     XYSeries illum = new XYSeries("Moon illuminated [%] (right axis)", false);
@@ -160,6 +161,7 @@ public final class NightChart {
     plot.setDataset(1, il);
     plot.mapDatasetToRangeAxis(1, 1);
     XYLineAndShapeRenderer ir = new XYLineAndShapeRenderer(true, false);
+    ir.setDrawSeriesLineAsPath(true);
     ir.setSeriesPaint(0, ILLUMINATION);
     ir.setSeriesStroke(0, new BasicStroke(1.5f, BasicStroke.CAP_BUTT, BasicStroke.JOIN_MITER, 10f, new float[] {2f, 3f}, 0f));
     plot.setRenderer(1, ir);
