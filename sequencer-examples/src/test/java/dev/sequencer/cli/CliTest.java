@@ -129,7 +129,7 @@ class CliTest {
     Run r = run("demo", "-o", out.toString(), "--solver", "greedy");
     assertEquals(0, r.code(), r.out() + r.err());
     assertTrue(r.out().contains("check: valid"), r.out());
-    for (String f : List.of("timeline.json", "windows.json", "plan.csv", "demo-timeline.png", "demo-timeline.svg",
+    for (String f : List.of("timeline.json", "windows.json", "plan.csv", "night.html", "demo-timeline.png", "demo-timeline.svg",
         "demo-sky.png", "demo-sky.svg")) {
       assertTrue(Files.size(out.resolve(f)) > 0, f);
       assertTrue(r.out().contains(out.resolve(f).toString()), "summary names " + f + ": " + r.out());
