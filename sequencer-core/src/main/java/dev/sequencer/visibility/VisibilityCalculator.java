@@ -216,7 +216,7 @@ public final class VisibilityCalculator {
     return new ChunkResult(result, satisfied);
   }
 
-  private static void load(Chunk chunk, int k, double t, boolean teme, TargetTrack track, double[] siteEnu,
+  static void load(Chunk chunk, int k, double t, boolean teme, TargetTrack track, double[] siteEnu,
       Scratch s) {
     s.load(chunk, k, t, teme);
     if (siteEnu != null) {

@@ -37,9 +37,28 @@ public final class ChartFiles {
 
   /** Writes {@code chart} as a {@code widthPx} x {@code heightPx} SVG document to {@code file}. */
   public static void svg(JFreeChart chart, int widthPx, int heightPx, Path file) {
+    AtomicFiles.writeBytes(file, svgDocument(chart, widthPx, heightPx).getBytes(StandardCharsets.UTF_8));
+  }
+
+  /** {@code chart} as the text of a standalone SVG document. */
+  public static String svgDocument(JFreeChart chart, int widthPx, int heightPx) {
     SvgGraphics g = new SvgGraphics(widthPx, heightPx);
     chart.draw(g, new Rectangle(0, 0, widthPx, heightPx));
     g.dispose();
-    AtomicFiles.writeBytes(file, g.document().getBytes(StandardCharsets.UTF_8));
+    return g.document();
+  }
+
+  /**
+   * {@code chart} as an {@code <svg>} element to place inside an HTML page (no XML declaration), scaled
+   * to the page's width by its viewBox; {@code id} becomes the element's id (ids of its clip paths and
+   * gradients are prefixed with it, so several charts can share one page).
+   */
+  public static String svgInline(JFreeChart chart, int widthPx, int heightPx, String id) {
+    String doc = svgDocument(chart, widthPx, heightPx);
+    String body = doc.substring(doc.indexOf("<svg"));
+    body = body.replace("id=\"clip", "id=\"" + id + "-clip").replace("url(#clip", "url(#" + id + "-clip")
+        .replace("id=\"gradient", "id=\"" + id + "-gradient").replace("url(#gradient", "url(#" + id + "-gradient");
+    return body.replaceFirst("<svg ", "<svg id=\"" + id + "\" class=\"chart\" role=\"img\" ")
+        .replaceFirst(" width=\"" + widthPx + "\" height=\"" + heightPx + "\"", "");
   }
 }

@@ -123,6 +123,7 @@ public final class SkyChart {
     data.addSeries(slews);
     data.addSeries(starts);
     XYLineAndShapeRenderer r = new XYLineAndShapeRenderer();
+    r.setDrawSeriesLineAsPath(true);
     r.setSeriesPaint(0, PATH);
     r.setSeriesStroke(0, new BasicStroke(3f));
     r.setSeriesShapesVisible(0, false);

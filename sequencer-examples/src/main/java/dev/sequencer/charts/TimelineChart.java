@@ -36,7 +36,8 @@ import org.jfree.data.xy.XYIntervalSeriesCollection;
  * The plan against time: one row per scheduled request in start order (optionally the unscheduled ones
  * below), its visibility windows as light bands, the observation as a dark bar and the slew/settle
  * before it in orange; at a ground site, daylight and twilight (Sun above the scenario's darkness limit,
- * else above -12 deg) shaded. Time axis in UTC.
+ * else above -12 deg) shaded. Time axis in UTC, optionally local time and local sidereal time below it.
+ * Row labels carry "!" for a required request and the priority ("R3 ! p5"); unscheduled rows their reason.
  */
 public final class TimelineChart {
   /** Width of the picture, pixels. */
@@ -60,9 +61,24 @@ public final class TimelineChart {
     return FRAME_PX + ROW_PX * Math.max(4, rows(t, includeUnscheduled).size());
   }
 
-  /** The chart of {@code timeline} over the scenario's horizon. */
+  /** Picture height with the local and sidereal time axes, pixels. */
+  public static int heightPx(Timeline t, boolean includeUnscheduled, TimeAxes axes) {
+    return heightPx(t, includeUnscheduled) + (axes == null ? 0 : 110);
+  }
+
+  /** The chart of {@code timeline} over the scenario's horizon, UTC only, the timeline's own reasons. */
   public static JFreeChart create(PlanGeometry geometry, List<RequestWindows> windows, Timeline timeline,
       boolean includeUnscheduled) {
+    return create(geometry, windows, timeline, includeUnscheduled, Map.of(), null);
+  }
+
+  /**
+   * The chart of {@code timeline}: each row labelled with the request id, "!" when required and its
+   * priority; unscheduled rows (when included) say why, from {@code reasons} (id to words) or the
+   * timeline's reason; {@code axes}, when not null, adds local time and local sidereal time below UTC.
+   */
+  public static JFreeChart create(PlanGeometry geometry, List<RequestWindows> windows, Timeline timeline,
+      boolean includeUnscheduled, Map<String, String> reasons, TimeAxes axes) {
     ChartFiles.headless();
     Scenario s = geometry.scenario();
     List<String> rows = rows(timeline, includeUnscheduled);
@@ -98,8 +114,10 @@ public final class TimelineChart {
     plot.setDataset(2, collection(vis));
     plot.setRenderer(2, bars(WINDOW));
 
-    String[] labels = rows.stream().map(id -> rowOf.get(id) < timeline.observations().size() ? id : id + " (not scheduled)")
-        .toArray(String[]::new);
+    Map<String, String> why = new HashMap<>();
+    timeline.unscheduled().forEach(u -> why.put(u.id(), reasons.getOrDefault(u.id(), u.reason())));
+    String[] labels = rows.stream().map(id -> label(s, id) + (rowOf.get(id) < timeline.observations().size() ? ""
+        : " \u2014 not scheduled: " + shorten(why.get(id)))).toArray(String[]::new);
     SymbolAxis rowAxis = new SymbolAxis(null, labels.length == 0 ? new String[] {""} : labels);
     rowAxis.setInverted(true);
     rowAxis.setGridBandsVisible(true);
@@ -118,6 +136,20 @@ public final class TimelineChart {
     timeAxis.setLabelFont(LABEL_FONT);
     plot.setRangeAxis(timeAxis);
     plot.setRangeAxisLocation(org.jfree.chart.axis.AxisLocation.TOP_OR_LEFT);
+    if (axes != null) {
+      int i = 1;
+      for (org.jfree.chart.axis.ValueAxis a : new org.jfree.chart.axis.ValueAxis[] {
+          axes.localAxis(s.horizon().start(), s.horizon().end(), multiDay),
+          axes.siderealAxis(s.horizon().start(), s.horizon().end())}) {
+        if (a != null) {
+          a.setTickLabelFont(TICK_FONT);
+          a.setLabelFont(LABEL_FONT);
+          plot.setRangeAxis(i, a);
+          plot.setRangeAxisLocation(i, org.jfree.chart.axis.AxisLocation.BOTTOM_OR_RIGHT);
+          i++;
+        }
+      }
+    }
     plot.setRangeGridlinePaint(new Color(160, 160, 160));
     plot.setBackgroundPaint(Color.WHITE);
     plot.setDomainGridlinesVisible(false);
@@ -134,6 +166,24 @@ public final class TimelineChart {
         shading.isEmpty() ? "" : "; " + shading);
     chart.addSubtitle(new TextTitle(sub, new Font(Font.SANS_SERIF, Font.PLAIN, 13)));
     return chart;
+  }
+
+  /** "R3 ! p5": the id, "!" for a required request, the priority. */
+  static String label(Scenario s, String id) {
+    return s.request(id).map(r -> id + (r.required() ? " !" : "") + (r.priority() == null ? "" : " p" + number(r.priority())))
+        .orElse(id);
+  }
+
+  private static String number(double v) {
+    return v == Math.rint(v) && Math.abs(v) < 1e9 ? Long.toString((long) v) : String.format(Locale.ROOT, "%.2f", v);
+  }
+
+  private static String shorten(String reason) {
+    if (reason == null) {
+      return "";
+    }
+    reason = reason.startsWith("not scheduled: ") ? reason.substring("not scheduled: ".length()) : reason;
+    return reason.length() <= 70 ? reason : reason.substring(0, 67) + "...";
   }
 
   private static String title(Scenario s) {

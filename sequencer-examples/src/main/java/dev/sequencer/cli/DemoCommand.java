@@ -24,12 +24,14 @@ import picocli.CommandLine.Model.CommandSpec;
     name = "demo",
     mixinStandardHelpOptions = true,
     description = {"Run the bundled demo night (an invented site and 40 invented fields) end to end: "
-        + "visibility windows, plan, re-check. Writes the timeline and windows JSON, a CSV and the timeline "
-        + "and sky pictures (PNG and SVG) into DIR and prints the summary."},
+        + "visibility windows, plan, re-check. Writes the timeline and windows JSON, a CSV, the timeline "
+        + "and sky pictures (PNG and SVG) and the night report (night.html) into DIR and prints the summary."},
     footer = {"", Caution.TEXT})
 final class DemoCommand implements Callable<Integer> {
   /** Classpath location of the bundled scenario. */
   static final String SCENARIO = "/scenarios/demo-night.json";
+  /** The night report's file name in the output folder. */
+  static final String REPORT = "night.html";
   /** Solver limit when neither the scenario nor --time-limit asks for less, seconds. */
   static final double DEFAULT_TIME_LIMIT_S = 10;
 
@@ -85,7 +87,10 @@ final class DemoCommand implements Callable<Integer> {
     out.println("wrote " + timelineFile);
     PlanOutputs.csv(p, planned.timeline(), dir.resolve("plan.csv"), out);
     PlanOutputs.plots(p, planned.timeline(), dir.resolve("demo").toString(), false, out);
-    out.println("open " + dir.resolve("demo-timeline.png") + " and " + dir.resolve("demo-sky.png") + " to look at the night");
+    ReportOutput.write(p, planned.timeline(), Double.isNaN(planned.result().gap()) ? null : planned.result().gap(),
+        r.warnings(), violations, null, dir.resolve(REPORT), out);
+    out.println("open " + dir.resolve(REPORT) + " in a browser (or " + dir.resolve("demo-timeline.png") + " and "
+        + dir.resolve("demo-sky.png") + ") to look at the night");
     return 0;
   }
 }

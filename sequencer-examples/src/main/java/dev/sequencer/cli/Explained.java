@@ -27,9 +27,15 @@ final class Explained {
     boolean aboutVisibility = u.reason().equals(Reasons.NEVER_VISIBLE)
         || u.reason().equals(Reasons.WINDOWS_TOO_SHORT);
     if (vis == null || !aboutVisibility) {
-      return u.reason();
+      return words(u.reason());
     }
     RequestVisibility v = vis.stream().filter(x -> x.id().equals(u.id())).findFirst().orElse(null);
-    return u.reason() + limiting(v);
+    return words(u.reason()) + limiting(v);
+  }
+
+  /** The reason without a leading "not scheduled: " (every caller already says the request is not scheduled). */
+  static String words(String reason) {
+    String prefix = "not scheduled: ";
+    return reason.startsWith(prefix) ? reason.substring(prefix.length()) : reason;
   }
 }

@@ -51,6 +51,14 @@ final class PlanCommand implements Callable<Integer> {
       + "PREFIX-sky.png/.svg.")
   String plot;
 
+  @Option(names = "--report", paramLabel = "FILE", description = "Also write the night report (one HTML file, "
+      + "see the report command).")
+  Path report;
+
+  @Option(names = "--zone", paramLabel = "ZONE", description = "Time zone of the report's local-time axis (region "
+      + "or offset; default: the nautical zone of the site's longitude).")
+  String zone;
+
   @Option(names = "--plot-unscheduled", description = "Give the unscheduled requests rows in the timeline chart too.")
   boolean plotUnscheduled;
 
@@ -66,7 +74,9 @@ final class PlanCommand implements Callable<Integer> {
     PrintWriter out = spec.commandLine().getOut();
     r.warnings().forEach(w -> out.println("warning: " + w));
     InputRules.check(r.scenario(), scenario.toString());
-    Outputs.check(Outputs.file("--output", output), Outputs.file("--csv", csv), Outputs.plot("--plot", plot));
+    ReportOutput.zone(zone, r.scenario());
+    Outputs.check(Outputs.file("--output", output), Outputs.file("--csv", csv), Outputs.plot("--plot", plot),
+        Outputs.file("--report", report));
     PlanOutcome planned = solve(r.scenario(), common.astro(), solverOptions, r.scenario().solverOrDefaults(), out);
     Pipeline p = new Pipeline(planned.geometry(), common.astro());
     print(out, planned.result(), planned.timeline(), p.visibility());
@@ -79,6 +89,10 @@ final class PlanCommand implements Callable<Integer> {
     }
     if (plot != null) {
       PlanOutputs.plots(p, planned.timeline(), plot, plotUnscheduled, out);
+    }
+    if (report != null) {
+      ReportOutput.write(p, planned.timeline(), Double.isNaN(planned.result().gap()) ? null : planned.result().gap(),
+          r.warnings(), List.of(), zone, report, out);
     }
     return NoPlan.report(planned.result(), out);
   }

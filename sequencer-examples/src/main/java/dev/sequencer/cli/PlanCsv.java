@@ -15,15 +15,29 @@ import java.util.Optional;
  * The plan as CSV for spreadsheets: a header, then one line per observation in time order with id,
  * start and end (ISO-8601 UTC), duration and transition before it (seconds), priority, and the pointing at
  * the start (RA/Dec, and azimuth/elevation at a ground site; empty cells where {@link PlanGeometry} gives
- * none). Comma separated, '.' decimals; ids containing a comma, quote or line break are quoted (RFC 4180).
+ * none), the start and end again as "yyyy-MM-dd HH:mm:ss" UTC (which spreadsheets parse as dates), then one
+ * line per unscheduled request with its reason. Comma separated, '.' decimals; fields containing a comma,
+ * quote or line break are quoted (RFC 4180).
  */
 final class PlanCsv {
-  static final String HEADER = "id,start,end,duration_s,transition_before_s,priority,ra_deg,dec_deg,azimuth_deg,elevation_deg";
+  static final String HEADER = "id,start,end,duration_s,transition_before_s,priority,ra_deg,dec_deg,azimuth_deg,elevation_deg,"
+      + "start_utc,end_utc,scheduled,reason";
+  /** "2031-10-14 18:02:11": the form spreadsheets read as a date and time (ISO-8601's 'T' and 'Z' they often do not). */
+  private static final java.time.format.DateTimeFormatter SHEET = java.time.format.DateTimeFormatter
+      .ofPattern("yyyy-MM-dd HH:mm:ss", Locale.ROOT).withZone(java.time.ZoneOffset.UTC);
 
   private PlanCsv() {}
 
-  /** The CSV text, header first, lines ending in "\n". */
+  /** The CSV text without reasons in words (the timeline's own reasons). */
   static String toCsv(Timeline t, PlanGeometry g) {
+    return toCsv(t, g, java.util.Map.of());
+  }
+
+  /**
+   * The CSV text, header first, lines ending in "\n": the observations in time order, then the unscheduled
+   * requests (no times, "no" in {@code scheduled}, the reason from {@code reasons} or the timeline's).
+   */
+  static String toCsv(Timeline t, PlanGeometry g, java.util.Map<String, String> reasons) {
     StringBuilder b = new StringBuilder(HEADER).append('\n');
     for (Observation o : t.observations()) {
       Optional<Request> r = g.scenario().request(o.id());
@@ -36,14 +50,20 @@ final class PlanCsv {
           .append(rd.map(p -> num(p.raDeg(), 5)).orElse("")).append(',')
           .append(rd.map(p -> num(p.decDeg(), 5)).orElse("")).append(',')
           .append(ae.map(p -> num(p.azimuthDeg(), 4)).orElse("")).append(',')
-          .append(ae.map(p -> num(p.elevationDeg(), 4)).orElse("")).append('\n');
+          .append(ae.map(p -> num(p.elevationDeg(), 4)).orElse("")).append(',')
+          .append(SHEET.format(o.start())).append(',').append(SHEET.format(o.end())).append(",yes,\n");
+    }
+    for (dev.sequencer.model.Unscheduled u : t.unscheduled()) {
+      Double priority = g.scenario().request(u.id()).map(Request::priority).orElse(null);
+      b.append(quote(u.id())).append(",,,,,").append(priority == null ? "" : num(priority, 6)).append(",,,,,,,no,")
+          .append(quote(reasons.getOrDefault(u.id(), u.reason()))).append('\n');
     }
     return b.toString();
   }
 
   /** Writes the CSV to {@code file} atomically (temporary file, then move). */
-  static void write(Timeline t, PlanGeometry g, Path file) {
-    AtomicFiles.writeUtf8(file, toCsv(t, g));
+  static void write(Timeline t, PlanGeometry g, java.util.Map<String, String> reasons, Path file) {
+    AtomicFiles.writeUtf8(file, toCsv(t, g, reasons));
   }
 
   private static String num(double v, int decimals) {

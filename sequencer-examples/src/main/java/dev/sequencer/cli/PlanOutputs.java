@@ -24,7 +24,9 @@ final class PlanOutputs {
 
   /** Writes the CSV of {@code timeline} and reports the path. */
   static void csv(Pipeline p, Timeline timeline, Path file, PrintWriter out) {
-    PlanCsv.write(timeline, new PlanGeometry(p.scenario(), p.astro()), file);
+    java.util.Map<String, String> reasons = new java.util.LinkedHashMap<>();
+    timeline.unscheduled().forEach(u -> reasons.put(u.id(), Explained.of(u, p.visibility())));
+    PlanCsv.write(timeline, new PlanGeometry(p.scenario(), p.astro()), reasons, file);
     out.println("wrote " + file);
   }
 

@@ -21,7 +21,7 @@ import picocli.CommandLine.UnmatchedArgumentException;
       ""
     },
     subcommands = {DemoCommand.class, InspectCommand.class, WindowsCommand.class, PlanCommand.class, ReplanCommand.class,
-        CheckCommand.class,
+        CheckCommand.class, ReportCommand.class,
         CommandLine.HelpCommand.class},
     footer = {"", Caution.TEXT},
     usageHelpAutoWidth = true)

@@ -129,7 +129,7 @@ class CliTest {
     Run r = run("demo", "-o", out.toString(), "--solver", "greedy");
     assertEquals(0, r.code(), r.out() + r.err());
     assertTrue(r.out().contains("check: valid"), r.out());
-    for (String f : List.of("timeline.json", "windows.json", "plan.csv", "demo-timeline.png", "demo-timeline.svg",
+    for (String f : List.of("timeline.json", "windows.json", "plan.csv", "night.html", "demo-timeline.png", "demo-timeline.svg",
         "demo-sky.png", "demo-sky.svg")) {
       assertTrue(Files.size(out.resolve(f)) > 0, f);
       assertTrue(r.out().contains(out.resolve(f).toString()), "summary names " + f + ": " + r.out());
@@ -143,21 +143,31 @@ class CliTest {
     Path scenario = dir.resolve("demo-night.json");
     Files.copy(DEMO, scenario);
     assertEquals(0, run("check", scenario.toString(), out.resolve("timeline.json").toString()).code());
-    // One CSV line per observation, in timeline order, each with 10 fields and the observation's start.
+    // One CSV line per observation, in timeline order, each with 14 fields and the observation's start (ISO-8601
+    // and again as "yyyy-MM-dd HH:mm:ss"), then one line per unscheduled request with its reason.
     var timeline = dev.sequencer.io.TimelineFile.read(out.resolve("timeline.json"));
     List<String> csv = Files.readAllLines(out.resolve("plan.csv"));
     assertEquals(PlanCsv.HEADER, csv.get(0));
-    assertEquals(timeline.observations().size() + 1, csv.size());
+    assertEquals(timeline.observations().size() + timeline.unscheduled().size() + 1, csv.size());
     for (int k = 0; k < timeline.observations().size(); k++) {
       String[] f = csv.get(k + 1).split(",", -1);
       var o = timeline.observations().get(k);
-      assertEquals(10, f.length, csv.get(k + 1));
+      assertEquals(14, f.length, csv.get(k + 1));
       assertEquals(o.id(), f[0]);
       assertEquals(o.start().toString(), f[1]);
+      assertEquals(o.start().truncatedTo(java.time.temporal.ChronoUnit.SECONDS).toString().replace("T", " ").replace("Z", ""), f[10]);
+      assertEquals("yes", f[12]);
       assertEquals(o.durationS(), Double.parseDouble(f[3]), 1e-3);
       assertEquals(o.slewSeconds(), Double.parseDouble(f[4]), 1e-3);
       // The site's elevation limit is 25 deg: every start pointing is above it (independent geometry).
       assertTrue(Double.parseDouble(f[9]) >= 25 - 0.01, csv.get(k + 1));
+    }
+    for (int k = 0; k < timeline.unscheduled().size(); k++) {
+      String line = csv.get(timeline.observations().size() + 1 + k);
+      var u = timeline.unscheduled().get(k);
+      assertTrue(line.startsWith(u.id() + ",,,,,"), line);
+      assertTrue(line.contains(",no,"), line);
+      assertFalse(line.endsWith(",no,"), "a reason: " + line);
     }
   }
 
@@ -173,6 +183,7 @@ class CliTest {
     List<String> csv = Files.readAllLines(dir.resolve("p.csv"));
     assertTrue(csv.size() > 1, "no observation in " + csv);
     // Orbiting targets from a ground site: az/el filled, and at least the 20 deg elevation limit.
-    csv.stream().skip(1).forEach(line -> assertTrue(Double.parseDouble(line.split(",", -1)[9]) >= 20 - 0.01, line));
+    csv.stream().skip(1).filter(line -> line.split(",", -1)[12].equals("yes"))
+        .forEach(line -> assertTrue(Double.parseDouble(line.split(",", -1)[9]) >= 20 - 0.01, line));
   }
 }

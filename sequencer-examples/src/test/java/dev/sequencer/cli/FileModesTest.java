@@ -43,7 +43,7 @@ class FileModesTest {
         modes.put(f.getFileName().toString(), PosixFilePermissions.toString(Files.getPosixFilePermissions(f)));
       }
     }
-    assertEquals(List.of("demo-sky.png", "demo-sky.svg", "demo-timeline.png", "demo-timeline.svg", "plan.csv",
+    assertEquals(List.of("demo-sky.png", "demo-sky.svg", "demo-timeline.png", "demo-timeline.svg", "night.html", "plan.csv",
         "timeline.json", "windows.json"), List.copyOf(modes.keySet()), log);
     modes.forEach((name, mode) -> assertEquals(expected, mode, name));
   }

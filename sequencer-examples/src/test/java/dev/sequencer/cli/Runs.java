@@ -47,13 +47,14 @@ final class Runs {
     out.add(List.of("plan", s, "--time-limit", "2", "--workers", "1", "-o", dir.resolve("t.json").toString()));
     out.add(List.of("plan", s, "--solver", "greedy", "-o", dir.resolve("g.json").toString()));
     out.add(List.of("check", s, timeline.toString()));
+    out.add(List.of("report", s, timeline.toString(), "-o", dir.resolve("night.html").toString()));
     out.add(List.of("replan", s, "--previous", timeline.toString(), "--now", "2031-01-01T00:00:00Z",
         "--time-limit", "2", "--workers", "1", "-o", dir.resolve("t.json").toString()));
     return out;
   }
 
   /** Subcommands that read a scenario (covered by {@link #everyScenarioCommand}) and those that do not. */
-  static final List<String> READS_SCENARIO = List.of("inspect", "windows", "plan", "check", "replan");
+  static final List<String> READS_SCENARIO = List.of("inspect", "windows", "plan", "check", "replan", "report");
   // demo reads only the bundled scenario (no user input to reject).
   static final List<String> READS_NO_SCENARIO = List.of("help", "demo");
 }
