@@ -49,7 +49,8 @@ import java.util.List;
  * with any slews); minIn_k is then 0 too.
  *
  * <p>The DP stops at {@code deadlineNanos} or at {@link #MAX_LABELS} labels; a round that stops gives no
- * bound. Priorities are summed in double: the value is widened by a relative 1e-9 so that rounding never
+ * bound. A round also ends once some path collects more than the sum of all priorities (zero-second cycles
+ * of zero-duration requests can revisit without end): its value is then that sum, the trivial bound. Priorities are summed in double: the value is widened by a relative 1e-9 so that rounding never
  * makes it optimistic.
  */
 public final class NgRouteRelaxation {
@@ -237,15 +238,12 @@ public final class NgRouteRelaxation {
       rounds++;
       double value = Math.min(prizeSum, Math.max(floor, r.bestPrize) + 1e-9 * Math.max(1, prizeSum));
       best = Double.isNaN(best) ? value : Math.min(best, value);
-      if (r.bestPrize <= floor) {
-        break; // the floor is proven: no plan collects more
-      }
       int[] seq = r.bestPath();
       int[] repeat = seq == null ? null : firstRepeat(seq);
       elementary = repeat == null;
       path = elementary && seq != null ? r.bestPlan() : null;
-      if (elementary || !grow(ng, seq, repeat)) {
-        break;
+      if (r.bestPrize <= floor || elementary || !grow(ng, seq)) {
+        break; // the floor is proven, or the relaxation is exact, or its memory cannot grow
       }
     }
     return new Result(best, path, rounds, labels, elementary && rounds > 0);
@@ -289,7 +287,7 @@ public final class NgRouteRelaxation {
    * DSSR step: for every request the best path visits more than once, between each two consecutive visits,
    * the request joins the memory of every request on that cycle; false when no memory can grow.
    */
-  private boolean grow(int[][] ng, int[] seq, int[] repeat) {
+  private boolean grow(int[][] ng, int[] seq) {
     int[] last = new int[m];
     Arrays.fill(last, -1);
     boolean grown = false;
@@ -413,6 +411,9 @@ public final class NgRouteRelaxation {
       }
       int sinceCheck = 0;
       while (heapSize > 0) {
+        if (bestPrize > prizeSum) {
+          return true; // a path collects more than all requests together (revisits): the sum is the bound
+        }
         if (count >= maxLabels) {
           return false;
         }
