@@ -446,12 +446,18 @@ public final class Sequencer {
 
     /**
      * The ng-route DP bound ({@link NgRouteRelaxation}) above the incumbent's priority, for {@link #NG_SHARE}
-     * of the limit (at most {@link #NG_MAX_S}); with time-independent transitions its best path, when
+     * of the limit (at most {@link #NG_MAX_S}), when a plan holds every required request and the priority is
+     * not proven yet; with time-independent transitions its best path, when
      * elementary, is a model-feasible plan and is offered ({@code offerPath}).
      */
     private void ngRouteBound(boolean offerPath) {
       Incumbent.Best own = incumbent.best();
-      double floor = own.score().complete() ? own.plan().priority(problem) : 0;
+      if (!own.score().complete()) {
+        // Finding a plan with every required request comes first: the searches get the time.
+        note(Note.Kind.BOUND, "no ng-route bound: no plan holds every required request yet.");
+        return;
+      }
+      double floor = own.plan().priority(problem);
       double known = minIgnoringNaN(lpBound, problem.trivialBound());
       if (floor >= known - 1e-6 * Math.max(1, problem.trivialBound())) {
         return; // the priority is proven already

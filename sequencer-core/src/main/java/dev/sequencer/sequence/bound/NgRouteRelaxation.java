@@ -86,7 +86,7 @@ public final class NgRouteRelaxation {
   private long pathStep;
   private int pathBuckets;
 
-  private NgRouteRelaxation(PlanningProblem p, ArcCosts arcs) {
+  private NgRouteRelaxation(PlanningProblem p, ArcCosts arcs, long deadlineNanos) {
     this.problem = p;
     this.timeDependent = p.transitions().timeDependent();
     List<Integer> keep = new ArrayList<>();
@@ -128,11 +128,13 @@ public final class NgRouteRelaxation {
     this.prizeSum = sum;
     this.gridStep = Math.max(1, (latestEnd + GRID - 1) / GRID);
     this.completion = completionTable(latestEnd);
-    pathTable(latestEnd);
+    pathTable(latestEnd, deadlineNanos);
   }
 
-  /** Grid cells of {@link #pathTable} at most (m × cells doubles). */
+  /** Grid cells of {@link #pathTable} at most (m × buckets doubles). */
   private static final long PATH_CELLS = 4_000_000;
+  /** Arc evaluations building {@link #pathTable} may take at most (m² × buckets). */
+  private static final long PATH_WORK = 30_000_000;
 
   /**
    * U(a, b): a bound on the priority of any path (no memory at all, revisits allowed) whose first
@@ -141,9 +143,10 @@ public final class NgRouteRelaxation {
    * increasing in the start and the recursion starts each bucket at its earliest second, U bounds it for
    * every start in the bucket or later. It needs dur_a + c(a, k) ≥ step on every arc (the next bucket is
    * then strictly later, so the table fills from the last bucket back); when no step ≥ 1 allows that within
-   * {@link #PATH_CELLS}, there is no table and only K prunes.
+   * {@link #PATH_CELLS} cells and {@link #PATH_WORK} arc evaluations, or the deadline passes while it is
+   * built, there is no table and only K prunes.
    */
-  private void pathTable(long latestEnd) {
+  private void pathTable(long latestEnd, long deadlineNanos) {
     long minStep = Long.MAX_VALUE;
     for (int a = 0; a < m; a++) {
       for (int b = 0; b < m; b++) {
@@ -155,7 +158,9 @@ public final class NgRouteRelaxation {
     if (minStep == Long.MAX_VALUE) {
       minStep = Math.max(1, latestEnd);
     }
-    long step = Math.max(1, (latestEnd + 1 + PATH_CELLS / Math.max(1, m) - 1) / Math.max(1, PATH_CELLS / Math.max(1, m)));
+    long mm = Math.max(1, m);
+    long maxBuckets = Math.max(1, Math.min(PATH_CELLS / mm, PATH_WORK / (mm * mm)));
+    long step = Math.max(1, (latestEnd + maxBuckets) / maxBuckets);
     if (minStep < 1 || step > minStep) {
       return;
     }
@@ -163,6 +168,9 @@ public final class NgRouteRelaxation {
     int buckets = (int) (latestEnd / step) + 2;
     double[] u = new double[m * buckets];
     for (int bk = buckets - 1; bk >= 0; bk--) {
+      if (System.nanoTime() >= deadlineNanos) {
+        return; // no table: only K prunes
+      }
       long t = bk * step;
       for (int a = 0; a < m; a++) {
         Task ta = problem.task(nodes[a]);
@@ -215,7 +223,8 @@ public final class NgRouteRelaxation {
    */
   public static Result bound(PlanningProblem p, ArcCosts arcs, double floor, int ngSize, long deadlineNanos,
       int maxRounds, int maxLabels) {
-    return new NgRouteRelaxation(p, arcs).solve(floor, ngSize, deadlineNanos, maxRounds, Math.min(MAX_LABELS, maxLabels));
+    return new NgRouteRelaxation(p, arcs, deadlineNanos).solve(floor, ngSize, deadlineNanos, maxRounds,
+        Math.min(MAX_LABELS, maxLabels));
   }
 
   private Result solve(double floor, int ngSize, long deadlineNanos, int maxRounds, int maxLabels) {
