@@ -2,6 +2,10 @@ package dev.sequencer.bench;
 
 import dev.sequencer.sequence.DumasInstance;
 import dev.sequencer.sequence.NightScenario;
+import dev.sequencer.sequence.OptwInstance;
+import dev.sequencer.sequence.bound.BucketRelaxation;
+import dev.sequencer.sequence.bound.NgRouteRelaxation;
+import dev.sequencer.sequence.timing.ArcCosts;
 import dev.sequencer.sequence.problem.PlanningProblem;
 import dev.sequencer.sequence.Sequencer;
 import dev.sequencer.sequence.SequencerOptions;
@@ -31,9 +35,11 @@ public final class SequencerBenchmark {
     Locale.setDefault(Locale.ROOT);
     switch (args[0]) {
       case "dumas" -> dumas(Double.parseDouble(args[1]), args.length > 2 ? args[2] : "n");
+      case "optw" -> optw(Double.parseDouble(args[1]), args.length > 2 ? args[2] : "");
+      case "optwbound" -> optwBound(Double.parseDouble(args[1]), Integer.parseInt(args[2]), args.length > 3 ? args[3] : "");
       case "night" -> night(Integer.parseInt(args[1]), Double.parseDouble(args[2]), Long.parseLong(args[3]),
           args.length > 4 ? args[4] : "full");
-      default -> throw new IllegalArgumentException("usage: dumas <timeLimitS> [prefix] | night <n> <timeLimitS> <seed> [variant]");
+      default -> throw new IllegalArgumentException("usage: dumas <timeLimitS> [prefix] | optw <timeLimitS> [prefix] | optwbound <timeLimitS> <ngSize> [prefix] | night <n> <timeLimitS> <seed> [variant]");
     }
   }
 
@@ -66,6 +72,71 @@ public final class SequencerBenchmark {
     times.sort(Double::compare);
     System.out.printf("dumas: %d/%d at the published optimum; median %.2f s, worst %.2f s (limit %.0f s, 2 workers)%n",
         matched, files.size(), times.get(times.size() / 2), times.get(times.size() - 1), timeLimitS);
+  }
+
+  private static List<Path> optwFiles(String prefix) throws Exception {
+    Path folder = OptwInstance.folder();
+    if (folder == null) {
+      throw new IllegalStateException("shared/benchmarks/optw not found");
+    }
+    try (Stream<Path> s = Files.list(folder.resolve("solomon"))) {
+      return s.filter(f -> f.getFileName().toString().startsWith(prefix) && f.toString().endsWith(".txt")).sorted().toList();
+    }
+  }
+
+  /**
+   * Plans every OPTW 1-series instance (29) and compares the priority with the published value; prints the
+   * reported bound and gap, and whether the plan is proven optimal at the priority level.
+   */
+  private static void optw(double timeLimitS, String prefix) throws Exception {
+    Map<String, double[]> published = OptwInstance.published(OptwInstance.folder().resolve("best-known.csv"));
+    List<Double> gaps = new ArrayList<>();
+    int reached = 0;
+    int proven = 0;
+    int files = 0;
+    for (Path f : optwFiles(prefix)) {
+      OptwInstance inst = OptwInstance.read(f);
+      PlanningProblem p = inst.toProblem();
+      long t0 = System.nanoTime();
+      SequencerResult r = new Sequencer().plan(p, SequencerOptions.defaults().withTimeLimitS(timeLimitS).withWorkers(2));
+      double s = (System.nanoTime() - t0) * 1e-9;
+      double[] pub = published.get(inst.name());
+      boolean ok = r.hasPlan() && r.totalPriority() >= pub[0] - 1e-9;
+      reached += ok ? 1 : 0;
+      proven += r.priorityProven() ? 1 : 0;
+      gaps.add(r.gap());
+      files++;
+      System.out.printf("%-6s %-9s priority %5.0f published %5.0f%s %s bound %7.1f (relaxation %7.1f) gap %5.1f%% %s %6.2f s%n",
+          inst.name(), r.status(), r.totalPriority(), pub[0], pub[1] > 0 ? " (opt)" : " (bk) ", ok ? "OK  " : "MISS",
+          r.boundPriority(), r.stats().relaxationBound(), 100 * r.gap(), r.priorityProven() ? "proven" : "      ", s);
+      System.out.println("       notes: " + r.stats().notesText());
+    }
+    gaps.sort(Double::compare);
+    System.out.printf("optw: %d/%d at the published value, %d proven optimal (priority), reported gap median %.1f%%, "
+        + "worst %.1f%% (limit %.0f s, 2 workers)%n", reached, files, proven, 100 * gaps.get(gaps.size() / 2),
+        100 * gaps.get(gaps.size() - 1), timeLimitS);
+  }
+
+  /** The bounds alone on every OPTW instance: LP and ng-route DP with the published value as the floor and with none. */
+  private static void optwBound(double timeLimitS, int ngSize, String prefix) throws Exception {
+    Map<String, double[]> published = OptwInstance.published(OptwInstance.folder().resolve("best-known.csv"));
+    for (Path f : optwFiles(prefix)) {
+      OptwInstance inst = OptwInstance.read(f);
+      PlanningProblem p = inst.toProblem();
+      ArcCosts arcs = new ArcCosts(p);
+      double[] pub = published.get(inst.name());
+      long t0 = System.nanoTime();
+      double lp = BucketRelaxation.bound(p, arcs, 5);
+      double lpS = (System.nanoTime() - t0) * 1e-9;
+      for (double floor : new double[] {pub[0], 0}) {
+        t0 = System.nanoTime();
+        NgRouteRelaxation.Result r = NgRouteRelaxation.bound(p, arcs, floor, ngSize, t0 + (long) (timeLimitS * 1e9));
+        double s = (System.nanoTime() - t0) * 1e-9;
+        System.out.printf("%-6s published %4.0f LP %7.1f (%.1f s) ng%d floor %4.0f: bound %7.1f rounds %d labels %d%s %.2f s%n",
+            inst.name(), pub[0], lp, lpS, ngSize, floor, r.bound(), r.rounds(), r.labels(),
+            r.elementary() ? " elementary" : "", s);
+      }
+    }
   }
 
   private static void night(int n, double timeLimitS, long seed, String variant) {

@@ -7,6 +7,7 @@ import dev.sequencer.sequence.Incumbent.Source;
 import dev.sequencer.sequence.SequencerResult.Planned;
 import dev.sequencer.sequence.SequencerResult.Stats;
 import dev.sequencer.sequence.bound.BucketRelaxation;
+import dev.sequencer.sequence.bound.NgRouteRelaxation;
 import dev.sequencer.sequence.cpsat.NativeSolver;
 import dev.sequencer.sequence.cpsat.NeighbourhoodSearch;
 import dev.sequencer.sequence.cpsat.RoutingModel;
@@ -75,6 +76,13 @@ public final class Sequencer {
   /** Share of the time left (before the end reserve), and most seconds, the LP bound gets. */
   static final double LP_SHARE = 0.15;
   static final double LP_MAX_S = 5.0;
+  /** Share of the time limit, and most seconds, the ng-route DP bound gets (after the LP). */
+  static final double NG_SHARE = 0.3;
+  static final double NG_MAX_S = 30.0;
+  /** Memory (neighbourhood) size of the ng-route DP's first round. */
+  static final int NG_SIZE = 8;
+  /** ng-route DP labels per CP-SAT deterministic unit in reproducible mode (a work limit instead of the clock). */
+  static final long NG_LABELS_PER_UNIT = 100_000;
   /** Share of the time limit (and most seconds) kept for exact repair, and kept for the final check. */
   static final double REPAIR_SHARE = 0.1;
   static final double REPAIR_MAX_S = 2.0;
@@ -108,6 +116,7 @@ public final class Sequencer {
     private Incumbent incumbent;
     private double lpBound = Double.NaN;
     private double cpBound = Double.NaN;
+    private double ngBound = Double.NaN;
     private boolean cpOptimalWhole;
     private long cpOptimalPrize = -1;
     private long cpOptimalTransitionS = -1;
@@ -203,6 +212,7 @@ public final class Sequencer {
         case GREEDY -> {
           if (options.relaxationBound()) {
             timed("bound", () -> lpBound = relaxation(Math.min(LP_MAX_S, budget.phaseS(LP_SHARE, endReserveS()))));
+            timed("ng-route bound", () -> ngRouteBound(false));
           }
         }
         case TWO_STAGE -> timed("two-stage", this::twoStage);
@@ -231,6 +241,7 @@ public final class Sequencer {
       if (options.relaxationBound()) {
         timed("bound", () -> lpBound = relaxation(Math.min(LP_MAX_S, budget.phaseS(LP_SHARE, endReserveS()))));
         incumbent.bound(lpBound);
+        timed("ng-route bound", () -> ngRouteBound(true));
       }
       int[] nodes = IntStream.range(0, problem.size()).filter(k -> problem.task(k).schedulable()).toArray();
       boolean large = nodes.length > LARGE;
@@ -432,6 +443,47 @@ public final class Sequencer {
       return BucketRelaxation.bound(problem, arcs, timeLimitS);
     }
 
+    /**
+     * The ng-route DP bound ({@link NgRouteRelaxation}) above the incumbent's priority, for {@link #NG_SHARE}
+     * of the limit (at most {@link #NG_MAX_S}), when a plan holds every required request and the priority is
+     * not proven yet; with time-independent transitions its best path, when
+     * elementary, is a model-feasible plan and is offered ({@code offerPath}).
+     */
+    private void ngRouteBound(boolean offerPath) {
+      Incumbent.Best own = incumbent.best();
+      if (!own.score().complete()) {
+        // Finding a plan with every required request comes first: the searches get the time.
+        note(Note.Kind.BOUND, "no ng-route bound: no plan holds every required request yet.");
+        return;
+      }
+      double floor = own.plan().priority(problem);
+      double known = minIgnoringNaN(lpBound, problem.trivialBound());
+      if (floor >= known - 1e-6 * Math.max(1, problem.trivialBound())) {
+        return; // the priority is proven already
+      }
+      long deadline = reproducible ? Long.MAX_VALUE
+          : Math.min(budget.phaseDeadlineNanos(NG_SHARE, endReserveS()), System.nanoTime() + (long) (NG_MAX_S * 1e9));
+      int maxLabels = reproducible
+          ? (int) Math.min(NgRouteRelaxation.MAX_LABELS, NG_LABELS_PER_UNIT * Math.max(1, options.deterministicLimit()))
+          : NgRouteRelaxation.MAX_LABELS;
+      NgRouteRelaxation.Result r = NgRouteRelaxation.bound(problem, arcs, floor, NG_SIZE, deadline, Integer.MAX_VALUE,
+          maxLabels);
+      if (Double.isNaN(r.bound())) {
+        note(Note.Kind.BOUND, String.format(Locale.ROOT, "no ng-route bound: its first round did not finish in time "
+            + "(%d labels).", r.labels()));
+        return;
+      }
+      ngBound = r.bound();
+      incumbent.bound(ngBound);
+      note(Note.Kind.BOUND, String.format(Locale.ROOT, "ng-route bound %.6g (%d round(s), %d labels%s).", ngBound,
+          r.rounds(), r.labels(), r.elementary() ? ", best path elementary" : ""));
+      if (offerPath && r.elementaryPath() != null && !problem.transitions().timeDependent()
+          && problem.mustBeLastIndex() < 0 && arcs.feasible(r.elementaryPath())
+          && incumbent.offer(r.elementaryPath(), Source.STATE_SPACE)) {
+        note(Note.Kind.SOURCE, "the ng-route DP's best path beats the warm start.");
+      }
+    }
+
     // ---------------------------------------------------------------- repair and result
 
     /**
@@ -508,7 +560,7 @@ public final class Sequencer {
       Plan plan = best.plan();
       ExactTimer.Timed timed = best.timed();
       double priority = plan.priority(problem);
-      double bound = minIgnoringNaN(minIgnoringNaN(cpBound, lpBound), problem.trivialBound());
+      double bound = minIgnoringNaN(minIgnoringNaN(minIgnoringNaN(cpBound, lpBound), ngBound), problem.trivialBound());
       double tolerance = 1e-6 * Math.max(1, problem.trivialBound());
       if (bound < priority - tolerance) {
         throw new IllegalStateException("proven bound " + bound + " is below the plan's priority " + priority
@@ -598,7 +650,7 @@ public final class Sequencer {
 
     private Stats stats(Source source) {
       return new Stats(arcsKept, arcs == null ? 0 : arcs.feasibleArcCount(), buildS, solveS, incumbent.offers(),
-          lnsRounds, lnsImprovements, lpBound, source.name(), ownPriority, notes, phases);
+          lnsRounds, lnsImprovements, minIgnoringNaN(lpBound, ngBound), source.name(), ownPriority, notes, phases);
     }
 
     private List<Unscheduled> all(String reason) {
@@ -627,7 +679,7 @@ public final class Sequencer {
           message += "; suspected: " + why.message();
         }
       }
-      double bound = minIgnoringNaN(minIgnoringNaN(cpBound, lpBound), problem.trivialBound());
+      double bound = minIgnoringNaN(minIgnoringNaN(minIgnoringNaN(cpBound, lpBound), ngBound), problem.trivialBound());
       return SequencerResult.noPlanInTime(message, suspects, bound, all(Reasons.NO_PLAN), stats(Source.EMPTY));
     }
 

@@ -4,6 +4,7 @@ import dev.sequencer.astro.AstroContext;
 import dev.sequencer.io.ScenarioReader;
 import dev.sequencer.io.TimelineFile;
 import dev.sequencer.model.Observation;
+import dev.sequencer.model.PlanStatus;
 import dev.sequencer.model.Scenario;
 import dev.sequencer.model.SolverSettings;
 import dev.sequencer.model.Timeline;
@@ -132,6 +133,12 @@ final class PlanCommand implements Callable<Integer> {
         t.bound() == null ? "-" : String.format(Locale.ROOT, "%.2f", t.bound()),
         Double.isNaN(result.gap()) ? "-" : String.format(Locale.ROOT, "%.1f%%", 100 * result.gap()),
         t.slewSeconds(), Math.max(0, span - busy), t.observations().size(), t.unscheduled().size());
+    if (result.hasPlan()) {
+      out.printf(Locale.ROOT, "optimality: priority %s; slew total %s%n",
+          result.priorityProven() ? "OPTIMAL (the bound is reached)" : "not proven (the bound is above it)",
+          t.status() == PlanStatus.OPTIMAL ? "OPTIMAL (CP-SAT proved the whole model)"
+              : "not proven minimal");
+    }
     for (Note n : result.stats().notes()) {
       if (n.kind() == Note.Kind.OPTIMALITY) {
         out.println("note: " + n.text());
