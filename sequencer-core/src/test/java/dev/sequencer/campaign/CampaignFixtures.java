@@ -49,6 +49,10 @@ public final class CampaignFixtures {
   public static final String ALTAZ = "{ \"model\": \"altaz\", \"azimuthRateDegPerS\": 3, \"elevationRateDegPerS\": 2, "
       + "\"azimuthAccelDegPerS2\": 1, \"elevationAccelDegPerS2\": 1, \"settleS\": 10 }";
 
+  /** Eigenaxis slew between fixed RA/Dec fields (time-independent transitions). */
+  public static final String EIGENAXIS = "{ \"model\": \"eigenaxis\", \"rateDegPerS\": 1.0, \"accelDegPerS2\": 0.2, "
+      + "\"settleS\": 15 }";
+
   /** A campaign over scenario.json: {@code nights} from 2031-03-01, cloudy weather, some failures. */
   public static String campaign(int nights, long weatherSeed, String programme, double ageing) {
     return String.format(Locale.ROOT, """
