@@ -74,7 +74,7 @@ public final class SweepReader {
       each(axes, "solver", p, (n, path) -> {
         String v = Values.text(n, path, p);
         if (v != null && !SOLVERS.contains(v)) {
-          p.invalid(path, "must be one of " + String.join(", ", SOLVERS) + Suggest.hint(v, SOLVERS), n);
+          p.add(path, "must be one of " + String.join(", ", SOLVERS) + Suggest.hint(v, SOLVERS) + " (was " + v + ")", v);
         } else if (v != null) {
           solvers.add(v);
         }
