@@ -45,6 +45,7 @@ public final class NightExecutor {
   private final PlanValidator validator;
   private final NightWeather weather;
   private final SequencerOptions options;
+  private final SequencerOptions replanOptions;
   private final Map<String, Integer> attempts = new HashMap<>();
   private final List<Observation> executed = new ArrayList<>();
   private int failedAttempts;
@@ -55,6 +56,13 @@ public final class NightExecutor {
    * windows and transitions); {@code options}: the solver settings (the strategy sets the solver).
    */
   public NightExecutor(PlanningProblem problem, PlanValidator validator, NightWeather weather, SequencerOptions options) {
+    this(problem, validator, weather, options, options);
+  }
+
+  /** As above, with other solver settings for the re-plans than for the night's first plan. */
+  public NightExecutor(PlanningProblem problem, PlanValidator validator, NightWeather weather, SequencerOptions options,
+      SequencerOptions replanOptions) {
+    this.replanOptions = replanOptions;
     this.problem = problem;
     this.validator = validator != null ? validator
         : new PlanValidator(problem.horizon(), problem.requests(), problem.windows(), problem.transitions());
@@ -84,7 +92,7 @@ public final class NightExecutor {
       planned = plan.priority();
       first = plan.status();
       if (plan.status() == PlanStatus.OPTIMAL || plan.status() == PlanStatus.FEASIBLE) {
-        replanAfterLosses(plan, so);
+        replanAfterLosses(plan, replanOptions.withSolver(strategy.solver()));
       }
     }
     Timeline t = executedTimeline();
