@@ -8,10 +8,11 @@ import java.util.Locale;
  * model, or "scenario"). Results: {@code status} (the plan's, or "SEASON" for a campaign), {@code priority}
  * (the plan's total, or the value a campaign collected), {@code bound} (the proven bound, NaN when none),
  * {@code remaining} (a campaign's remaining value, NaN for a scenario), {@code slewS}, {@code observations}
- * and {@code wallS} (the only column that depends on the machine).
+ * and {@code wallS} (the only column that depends on the machine). Serializable: engines (Spark) ship rows back.
  */
 public record SweepRow(int run, String solver, double timeLimitS, int workers, int seed, Long weatherSeed, String slew,
-    String status, double priority, double bound, double remaining, double slewS, int observations, double wallS) {
+    String status, double priority, double bound, double remaining, double slewS, int observations, double wallS)
+    implements java.io.Serializable {
   /** The CSV header of {@link #csv}. */
   public static final String HEADER = "run,solver,timeLimitS,workers,seed,weatherSeed,slew,status,priority,bound,"
       + "remaining,slewS,observations,wallS";
