@@ -9,8 +9,9 @@ import java.util.Locale;
 import org.apache.spark.sql.SparkSession;
 
 /**
- * The same sweep embedded (thread pool) and on Spark local mode, one after the other in one JVM: wall
- * times, their ratio, and whether the result rows (wall time left out) are identical. Needs Spark on the
+ * The same sweep embedded (thread pool), on Spark local mode, and embedded again, one after the other in one
+ * JVM (the second embedded run shows the warm-up and load drift): wall times, the ratio of Spark to the mean
+ * embedded time, and whether the result rows (wall time left out) are identical. Needs Spark on the
  * class path (provided scope: run with the test class path or spark-submit).
  *
  * <p>Usage: {@code SweepOverhead SWEEP.json [threads=2]}.
@@ -30,11 +31,15 @@ public final class SweepOverhead {
       long t1 = System.nanoTime();
       List<SweepRow> onSpark = SparkSweep.run(spark, sweep);
       double sparkS = (System.nanoTime() - t1) * 1e-9;
+      long t2 = System.nanoTime();
+      List<SweepRow> again = runner.runAll(threads);
+      double againS = (System.nanoTime() - t2) * 1e-9;
       boolean same = embedded.stream().map(SweepRow::resultCsv).toList()
-          .equals(onSpark.stream().map(SweepRow::resultCsv).toList());
+          .equals(onSpark.stream().map(SweepRow::resultCsv).toList())
+          && again.stream().map(SweepRow::resultCsv).toList().equals(embedded.stream().map(SweepRow::resultCsv).toList());
       System.out.printf(Locale.ROOT, "%d runs, %d threads: embedded %.1f s, Spark local %.1f s (session start "
-          + "excluded), ratio %.2f, rows identical: %s%n", embedded.size(), threads, embeddedS, sparkS,
-          sparkS / embeddedS, same);
+          + "excluded), embedded again %.1f s; ratio Spark / mean embedded %.2f; rows identical: %s%n",
+          embedded.size(), threads, embeddedS, sparkS, againS, sparkS / ((embeddedS + againS) / 2), same);
     }
   }
 }

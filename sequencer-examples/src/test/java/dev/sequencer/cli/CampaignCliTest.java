@@ -67,23 +67,23 @@ class CampaignCliTest {
     Runs.Run r = Runs.run("campaign", dir.resolve("bad.json").toString(), "--nights-csv",
         dir.resolve("n.csv").toString());
     assertEquals(2, r.code(), r::all);
-    assertTrue(r.out().contains("nigths: unknown field (did you mean nights?)"), r::all);
-    assertTrue(r.out().contains("nights: is required"), r::all);
+    assertTrue(r.err().contains("nigths: unknown field (did you mean nights?)"), r::all);
+    assertTrue(r.err().contains("nights: is required"), r::all);
     assertFalse(Files.exists(dir.resolve("n.csv")));
     Runs.assertNoStackTrace(r);
     Runs.Run s = Runs.run("campaign", files(dir).toString(), "--strategy", "cpsat,gredy");
     assertEquals(2, s.code(), s::all);
-    assertTrue(s.out().contains("--strategy: must be one of cpsat, greedy, best-now (was gredy)"), s::all);
+    assertTrue(s.err().contains("--strategy: must be one of cpsat, greedy, best-now (was gredy)"), s::all);
   }
 
   @Test
   void outputTargetsAreCheckedBeforeAnyWork(@TempDir Path dir) throws IOException {
     Runs.Run r = Runs.run("campaign", files(dir).toString(), "--chart", dir.resolve("no/such/c.png").toString());
     assertEquals(2, r.code(), r::all);
-    assertTrue(r.out().contains("--chart: cannot write"), r::all);
+    assertTrue(r.err().contains("--chart: cannot write"), r::all);
     Runs.Run bad = Runs.run("campaign", files(dir).toString(), "--chart", dir.resolve("c.gif").toString());
     assertEquals(2, bad.code(), bad::all);
-    assertTrue(bad.out().contains("--chart: must end in .png or .svg"), bad::all);
+    assertTrue(bad.err().contains("--chart: must end in .png or .svg"), bad::all);
   }
 
   @Test
