@@ -5,8 +5,8 @@ import java.time.LocalDate;
 
 /**
  * One night of a season. {@code darkStart}/{@code darkEnd}: the night's horizon ({@code null} when it had
- * none: no darkness, or nothing left to do). {@code offered}: requests still needing something;
- * {@code plannedPriority}: what the night's first plan would collect (planning priorities, aged);
+ * none: no darkness, or nothing left to do). {@code offered}: requests still needing something (0 on a
+ * night where none could be offered); {@code plannedPriority}: what the night's first plan would collect (planning priorities, aged);
  * {@code executed}: successful observations; {@code failedAttempts}: attempts lost to clouds or failures;
  * {@code collected}: programme value earned tonight; {@code collectedTotal}, {@code remaining}: after the
  * night; {@code completed}: requests whose need is met; {@code slewS}: slew seconds of the executed

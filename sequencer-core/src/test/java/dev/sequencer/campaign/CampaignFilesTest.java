@@ -71,6 +71,26 @@ class CampaignFilesTest {
   }
 
   @Test
+  void aCampaignSweepVariesTheWeather(@TempDir Path dir) throws IOException {
+    Files.writeString(dir.resolve("scenario.json"), CampaignFixtures.groundScenario(5, 9, CampaignFixtures.EIGENAXIS));
+    Files.writeString(dir.resolve("campaign.json"), CampaignFixtures.campaign(1, 1, "", 0));
+    Files.writeString(dir.resolve("sweep.json"), "{ \"format\": 1, \"campaign\": \"campaign.json\", "
+        + "\"axes\": { \"solver\": [\"greedy\"], \"workers\": [1], \"weatherSeed\": [1, 2, 3] } }");
+    SweepRunner runner = SweepRunner.load(dir.resolve("sweep.json"), AstroContext.offline());
+    assertEquals(3, runner.size());
+    List<SweepRow> rows = runner.runAll(1);
+    double programme = ScenarioReader.read(dir.resolve("scenario.json")).scenario().requests().stream()
+        .mapToDouble(q -> q.priority()).sum();
+    for (int i = 0; i < 3; i++) {
+      SweepRow r = rows.get(i);
+      assertEquals("SEASON", r.status());
+      assertEquals(i + 1L, r.weatherSeed());
+      // A one-night season of one-visit requests: collected + remaining is the programme value.
+      assertEquals(programme, r.priority() + r.remaining(), 1e-9);
+    }
+  }
+
+  @Test
   void quartilesAreType7() {
     // numpy.percentile([1, 2, 3, 4], [25, 50, 75]) = [1.75, 2.5, 3.25] (numpy's default "linear" method,
     // R's type 7: common practice; values from memory, and easy to redo by hand: h = 3q).
