@@ -31,7 +31,8 @@ class ArchitectureTest {
   @Test
   void theModelDependsOnNothingOfOurs() {
     forbid("dev.sequencer.model..", "dev.sequencer.io..", "dev.sequencer.astro..", "dev.sequencer.slew..",
-        "dev.sequencer.visibility..", "dev.sequencer.sequence..", "dev.sequencer.validate..", "dev.sequencer.planner..");
+        "dev.sequencer.visibility..", "dev.sequencer.sequence..", "dev.sequencer.validate..", "dev.sequencer.planner..",
+        "dev.sequencer.campaign..");
   }
 
   @Test
@@ -95,6 +96,18 @@ class ArchitectureTest {
     forbid("dev.sequencer.sequence.bound..", "dev.sequencer.sequence.search..", "dev.sequencer.sequence.replan..");
     noClasses().that().resideInAPackage("dev.sequencer.sequence").should().dependOnClassesThat()
         .resideInAPackage("dev.sequencer.sequence.replan..").check(classes);
+  }
+
+  @Test
+  void seasonsAndSweepsSitOnTopOfTheFacade() {
+    // campaign uses the planner facade, the sequencer's re-planner and the files; nothing of the library uses it
+    for (String p : new String[] {"dev.sequencer.model..", "dev.sequencer.io..", "dev.sequencer.astro..",
+        "dev.sequencer.slew..", "dev.sequencer.visibility..", "dev.sequencer.sequence..", "dev.sequencer.validate..",
+        "dev.sequencer.planner.."}) {
+      forbid(p, "dev.sequencer.campaign..");
+    }
+    // it computes no geometry of its own beyond the Sun's elevation (astro), never the visibility engine directly
+    forbid("dev.sequencer.campaign..", "dev.sequencer.visibility..", "dev.sequencer.slew..");
   }
 
   @Test

@@ -46,6 +46,11 @@ final class Fields {
     return path;
   }
 
+  /** Where this object's problems are collected (for rules across fields). */
+  Problems problems() {
+    return problems;
+  }
+
   boolean has(String name) {
     JsonNode v = node.get(name);
     return v != null && !v.isNull();

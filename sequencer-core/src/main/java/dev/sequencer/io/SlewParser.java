@@ -36,11 +36,16 @@ final class SlewParser {
   }
 
   SlewSettings parse(Fields top) {
-    JsonNode n = top.get("slew", true);
+    return parse(top, "slew");
+  }
+
+  /** The slew object in {@code top}'s field {@code field} (a sweep's axis element reads like {@code slew}). */
+  SlewSettings parse(Fields top, String field) {
+    JsonNode n = top.get(field, true);
     if (n == null) {
       return null;
     }
-    String path = top.path("slew");
+    String path = top.path(field);
     JsonNode modelNode = n.get("model");
     String model = modelNode != null && modelNode.isTextual() ? modelNode.textValue() : null;
     List<String> allowed = model == null ? null : MODELS.get(model); // Map.of rejects a null key

@@ -133,7 +133,7 @@ public final class Planner {
    * The façade's one check: the independent validator, with its expected cost (it samples each observation's
    * constraints every {@link PlanValidator#SAMPLE_STEP_S} seconds, about {@link #CHECK_SAMPLE_S} each).
    */
-  static ResultCheck check(PlanValidator validator) {
+  public static ResultCheck check(PlanValidator validator) {
     return check(validator, null, null);
   }
 
@@ -158,6 +158,18 @@ public final class Planner {
    * sample took on this project's 2-core machine under load (60 µs idle; see docs/benchmarks.md).
    */
   static final double CHECK_SAMPLE_S = 1e-4;
+
+  /**
+   * What a caller that plans and re-plans one night itself needs (the campaign simulator): the input rules
+   * applied, the geometry, the planning problem and the full validator. No time budget is started.
+   */
+  public static Prepared prepare(Scenario s, AstroContext ctx) {
+    InputRules.check(s, "scenario");
+    preloadSolver();
+    Geometry g = geometry(s, ctx);
+    InputRules.checkTransitions(s, g.transitions(), "scenario");
+    return new Prepared(g, PlanningProblem.of(s, g.windows(), g.transitions()), validator(g, ctx));
+  }
 
   /**
    * Re-plans the rest of a night (see {@link Replanner}) under the same budget rule as {@link #plan};

@@ -22,7 +22,7 @@ public interface ResultCheck {
   }
 
   /** The check of {@code validator} on the result's timeline. */
-  static ResultCheck of(TimelineCheck validator) {
+  public static ResultCheck of(TimelineCheck validator) {
     return r -> validator.violations(r.toTimeline());
   }
 }

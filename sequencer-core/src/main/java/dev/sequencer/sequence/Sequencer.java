@@ -178,7 +178,7 @@ public final class Sequencer {
     }
 
     SequencerResult execute() {
-      if (options.solver() != SequencerOptions.Solver.GREEDY) {
+      if (options.solver() != SequencerOptions.Solver.GREEDY && options.solver() != SequencerOptions.Solver.BEST_NOW) {
         NativeSolver.ensureLoaded(); // fails with a clear message on an unsupported platform
       }
       timed("arcs", () -> arcs = new ArcCosts(problem));
@@ -191,7 +191,9 @@ public final class Sequencer {
         provenInfeasible = true;
         return finish();
       }
-      timed("greedy", () -> incumbent.offer(new GreedyPlanner(problem, timer).plan(), Source.GREEDY));
+      timed("greedy", () -> incumbent.offer(new GreedyPlanner(problem, timer,
+          options.solver() == SequencerOptions.Solver.BEST_NOW ? GreedyPlanner.Rule.BEST_NOW
+              : GreedyPlanner.Rule.VALUE_PER_SECOND).plan(), Source.GREEDY));
       for (Plan seed : seeds.warmStarts()) {
         if (incumbent.offer(seed, Source.PREFERRED)) {
           note(Note.Kind.SOURCE, "warm start: the given plan (" + incumbent.best().plan().size() + " of "
@@ -209,7 +211,7 @@ public final class Sequencer {
       }
       timed("repair", this::earlyRepair);
       switch (options.solver()) {
-        case GREEDY -> {
+        case GREEDY, BEST_NOW -> {
           if (options.relaxationBound()) {
             timed("bound", () -> lpBound = relaxation(Math.min(LP_MAX_S, budget.phaseS(LP_SHARE, endReserveS()))));
             timed("ng-route bound", () -> ngRouteBound(false));

@@ -37,8 +37,10 @@ public record SequencerOptions(
   public enum Solver {
     /** The CP-SAT model (with greedy warm start, LNS and bounds). */
     CPSAT,
-    /** Only the greedy baseline. */
+    /** Only the greedy baseline (best value per second used). */
     GREEDY,
+    /** Only the best-now greedy: the highest value among what can start soonest ({@code GreedyPlanner.Rule.BEST_NOW}). */
+    BEST_NOW,
     /**
      * The two-stage baseline for flexible exposures ({@link TwoStagePlanner}): fixed-duration CP-SAT at
      * preset exposures, then a continuous re-allocation of the chosen set's time; for comparisons.

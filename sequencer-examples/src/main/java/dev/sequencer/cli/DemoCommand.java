@@ -88,7 +88,7 @@ final class DemoCommand implements Callable<Integer> {
     PlanOutputs.csv(p, planned.timeline(), dir.resolve("plan.csv"), out);
     PlanOutputs.plots(p, planned.timeline(), dir.resolve("demo").toString(), false, out);
     ReportOutput.write(p, planned.timeline(), Double.isNaN(planned.result().gap()) ? null : planned.result().gap(),
-        r.warnings(), violations, null, dir.resolve(REPORT), out);
+        r.warnings(), List.of(), null, dir.resolve(REPORT), out);
     out.println("open " + dir.resolve(REPORT) + " in a browser (or " + dir.resolve("demo-timeline.png") + " and "
         + dir.resolve("demo-sky.png") + ") to look at the night");
     return 0;

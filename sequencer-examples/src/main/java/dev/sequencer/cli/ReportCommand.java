@@ -55,7 +55,7 @@ final class ReportCommand implements Callable<Integer> {
     ReportOutput.zone(zone, r.scenario());
     Outputs.check(Outputs.file("--output", output));
     Pipeline p = Pipeline.of(r.scenario(), common.astro());
-    List<String> violations = p.violations(t, CheckCommand.replanInstant(t));
+    List<String> violations = Pipeline.violations(r.scenario(), common.astro(), t, CheckCommand.replanInstant(t));
     List<String> warnings = new ArrayList<>(r.warnings());
     ReportOutput.write(p, t, null, warnings, violations, zone, output, out);
     if (!violations.isEmpty()) {

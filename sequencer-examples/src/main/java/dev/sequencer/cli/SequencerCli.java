@@ -21,6 +21,7 @@ import picocli.CommandLine.UnmatchedArgumentException;
       ""
     },
     subcommands = {DemoCommand.class, InspectCommand.class, WindowsCommand.class, PlanCommand.class, ReplanCommand.class,
+        CampaignCommand.class, SweepCommand.class,
         CheckCommand.class, ReportCommand.class,
         CommandLine.HelpCommand.class},
     footer = {"", Caution.TEXT},

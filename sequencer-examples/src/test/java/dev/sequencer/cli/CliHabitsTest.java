@@ -30,7 +30,8 @@ class CliHabitsTest {
     List<List<String>> asks = new ArrayList<>();
     asks.add(List.of("--version"));
     asks.add(List.of("-V"));
-    for (String cmd : List.of("demo", "inspect", "windows", "plan", "replan", "check", "help")) {
+    for (String cmd : List.of("demo", "inspect", "windows", "plan", "replan", "check", "campaign", "sweep",
+        "help")) {
       asks.add(List.of(cmd, "--version"));
       asks.add(List.of(cmd, "-V"));
     }

@@ -24,15 +24,36 @@ import java.util.List;
  * (value at d) / (waiting + transition + d), among the options that fit in the window holding the start:
  * the point where the value curve meets its tangent from the overhead, so a long wait or slew favours a
  * longer exposure. Ties go to the shorter exposure.
+ *
+ * <p>The {@link Rule#BEST_NOW} rule is the other greedy that planners argue for: among the requests that
+ * can start within {@link #NOW_WINDOW_S} of the earliest possible start, the one of highest value (ties:
+ * the earlier start, then the lower index), whatever it costs in slew or exposure time.
  */
 public final class GreedyPlanner {
+  /** How the next request is chosen. */
+  public enum Rule {
+    /** Best value per second used (waiting + transition + duration): the default. */
+    VALUE_PER_SECOND,
+    /** Highest value among the requests that can start within {@link #NOW_WINDOW_S} of the earliest. */
+    BEST_NOW
+  }
+
+  /** Seconds after the earliest possible start within which {@link Rule#BEST_NOW} counts a request as "now". */
+  public static final long NOW_WINDOW_S = 600;
+
   private final PlanningProblem problem;
   private final ExactTimer timer;
   private final int[] required;
+  private final Rule rule;
 
   public GreedyPlanner(PlanningProblem problem, ExactTimer timer) {
+    this(problem, timer, Rule.VALUE_PER_SECOND);
+  }
+
+  public GreedyPlanner(PlanningProblem problem, ExactTimer timer, Rule rule) {
     this.problem = problem;
     this.timer = timer;
+    this.rule = java.util.Objects.requireNonNull(rule, "rule");
     this.required = java.util.stream.IntStream.range(0, problem.size())
         .filter(k -> problem.task(k).required() && problem.task(k).schedulable()).toArray();
   }
@@ -50,6 +71,7 @@ public final class GreedyPlanner {
       long bestDur = -1;
       double bestScore = -1;
       for (int pass = 0; pass < 2 && best < 0; pass++) {
+        long earliest = rule == Rule.BEST_NOW ? earliestStart(path, t, done, pass) : -1;
         for (int j = 0; j < n; j++) {
           Task tj = problem.task(j);
           if (done[j] || !tj.schedulable() || (pass == 0) == (j == problem.mustBeLastIndex())) {
@@ -60,8 +82,16 @@ public final class GreedyPlanner {
           if (s < 0 || !requiredStillReachable(path, j, t, s, s + d, done)) {
             continue;
           }
-          double score = problem.task(j).valueFor(d) / Math.max(1, s + d - t);
-          if (score > bestScore) {
+          double score;
+          if (rule == Rule.BEST_NOW) {
+            if (s > earliest + NOW_WINDOW_S) {
+              continue;
+            }
+            score = problem.task(j).valueFor(d);
+          } else {
+            score = problem.task(j).valueFor(d) / Math.max(1, s + d - t);
+          }
+          if (score > bestScore || (rule == Rule.BEST_NOW && score == bestScore && s < bestStart)) {
             best = j;
             bestStart = s;
             bestDur = d;
@@ -90,6 +120,22 @@ public final class GreedyPlanner {
       durs[q] = chosen.get(q)[2];
     }
     return new Plan(order, starts, durs);
+  }
+
+  /** The earliest start of any candidate of this pass from {@code t} (Long.MAX_VALUE / 2 when none fits). */
+  private long earliestStart(Path path, long t, boolean[] done, int pass) {
+    long earliest = Long.MAX_VALUE / 2;
+    for (int j = 0; j < problem.size(); j++) {
+      Task tj = problem.task(j);
+      if (done[j] || !tj.schedulable() || (pass == 0) == (j == problem.mustBeLastIndex())) {
+        continue;
+      }
+      long s = timer.earliestStart(path, j, t, t, tj.durationS(), tj.latestStartS());
+      if (s >= 0 && s < earliest) {
+        earliest = s;
+      }
+    }
+    return earliest;
   }
 
   /**
