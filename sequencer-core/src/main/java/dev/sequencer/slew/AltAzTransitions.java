@@ -189,13 +189,15 @@ final class AltAzTransitions implements Transitions {
     }
 
     /**
-     * The Sun keep-out may bind (spec A3): the quickest legal azimuth branch (the nearest, or one turn
-     * either way) whose two-axis path, departing at {@code departureS}, keeps it; impossible when none does.
+     * The Sun keep-out may bind (spec A3): the nearest legal azimuth branch when its two-axis path, departing
+     * at {@code departureS}, keeps it; impossible otherwise (the planner looks for another departure or
+     * order). Going the other way round is not taken yet: the validator's own alt-az slew takes the nearest
+     * branch, and the two must agree before a longer way is offered.
      */
     private Step avoiding(double u, double fromEl, double v, double toEl, double departureS, double arrivalS) {
       double best = Double.POSITIVE_INFINITY;
       double bestV = Double.NaN;
-      for (double w : new double[] {v, v - 360, v + 360}) {
+      for (double w : new double[] {v}) {
         if (wrap.limited() && !wrap.contains(w)) {
           continue;
         }
