@@ -60,31 +60,9 @@ public final class SlewKeepOuts {
     Frame gcrf = ctx.inertial();
     if (c.sunSeparationMinDeg() != null) {
       double radius = Math.min(180, c.sunSeparationMinDeg() + SUN_PARALLAX_DEG);
-      if (s.observer() instanceof GroundSite site) {
-        always.add(siteSun(ctx, origin, gcrf, SiteFrame.enuItrf(site), radius));
-      } else {
-        always.add(new KeepOut() {
-          @Override
-          public Vector3D axis(double tS) {
-            return ctx.sun().getPosition(origin.shiftedBy(tS), gcrf).normalize();
-          }
-
-          @Override
-          public double radiusDeg(double tS) {
-            return radius;
-          }
-
-          @Override
-          public double maxDriftDegPerS() {
-            return SUN_RATE_DEG_PER_S;
-          }
-
-          @Override
-          public String name() {
-            return "Sun";
-          }
-        });
-      }
+      always.add(s.observer() instanceof GroundSite site
+          ? new SiteSun(ctx, origin, gcrf, radius, SiteFrame.enuItrf(site))
+          : new SunCone(ctx, origin, gcrf, radius));
     }
     if (c.earthLimbMinDeg() != null && s.observer() instanceof OrbitObserver o) {
       PVCoordinatesProvider orbit = Observers.motion(o, ctx, origin.shiftedBy(-PointingTracks.MARGIN_S),
@@ -128,41 +106,61 @@ public final class SlewKeepOuts {
         horizonS + PointingTracks.MARGIN_S);
   }
 
+  /** The Sun keep-out: the Sun's geocentric GCRF direction, the scenario's radius (plus parallax). */
+  private static class SunCone implements KeepOut {
+    final AstroContext ctx;
+    final AbsoluteDate origin;
+    final Frame gcrf;
+    final double radius;
+
+    SunCone(AstroContext ctx, AbsoluteDate origin, Frame gcrf, double radius) {
+      this.ctx = ctx;
+      this.origin = origin;
+      this.gcrf = gcrf;
+      this.radius = radius;
+    }
+
+    @Override
+    public Vector3D axis(double tS) {
+      return ctx.sun().getPosition(origin.shiftedBy(tS), gcrf).normalize();
+    }
+
+    @Override
+    public double radiusDeg(double tS) {
+      return radius;
+    }
+
+    @Override
+    public double maxDriftDegPerS() {
+      return SUN_RATE_DEG_PER_S;
+    }
+
+    @Override
+    public String name() {
+      return "Sun";
+    }
+  }
+
   /**
    * The Sun keep-out seen from a ground site: the same GCRF cone (for eigenaxis slews from the ground), also
    * in the site's azimuth and elevation (for the alt-az mount's two-axis path), geometric, of the centre.
    */
-  private static SiteKeepOut siteSun(AstroContext ctx, AbsoluteDate origin, Frame gcrf, double[] enu, double radius) {
-    return new SiteKeepOut() {
-      @Override
-      public Vector3D axis(double tS) {
-        return ctx.sun().getPosition(origin.shiftedBy(tS), gcrf).normalize();
-      }
+  private static final class SiteSun extends SunCone implements SiteKeepOut {
+    private final double[] enu;
 
-      @Override
-      public AzEl azEl(double tS) {
-        return SiteFrame.azEl(ctx, origin.shiftedBy(tS), enu, axis(tS));
-      }
+    SiteSun(AstroContext ctx, AbsoluteDate origin, Frame gcrf, double radius, double[] enu) {
+      super(ctx, origin, gcrf, radius);
+      this.enu = enu;
+    }
 
-      @Override
-      public double radiusDeg(double tS) {
-        return radius;
-      }
+    @Override
+    public AzEl azEl(double tS) {
+      return SiteFrame.azEl(ctx, origin.shiftedBy(tS), enu, axis(tS));
+    }
 
-      @Override
-      public double maxDriftDegPerS() {
-        return SUN_RATE_DEG_PER_S;
-      }
-
-      @Override
-      public double maxSiteDriftDegPerS() {
-        return SUN_SITE_RATE_DEG_PER_S;
-      }
-
-      @Override
-      public String name() {
-        return "Sun";
-      }
-    };
+    @Override
+    public double maxSiteDriftDegPerS() {
+      return SUN_SITE_RATE_DEG_PER_S;
+    }
   }
 }
