@@ -13,6 +13,11 @@ public record Note(Kind kind, String text) {
     SEARCH,
     /** A phase that was skipped or cut short by the budget. */
     BUDGET,
+    /**
+     * The greedy baseline itself (greedy and its exact repair) was cut short by the budget: the plan may then
+     * be below what {@code --solver greedy} returns with more of the same limit left (the windows took it).
+     */
+    BASELINE_CUT,
     /** Exact re-timing and repair: observations moved, added or left out. */
     EXACT_TIMING,
     /** How the bound was obtained, or why one is missing. */

@@ -87,9 +87,9 @@ public final class Sequencer {
   static final double REPAIR_SHARE = 0.1;
   static final double REPAIR_MAX_S = 2.0;
   static final double FINISH_SHARE = 0.1;
-  /** Share of the time left (before the end reserve) exact repair of the warm start may take before the searches. */
-  static final double EARLY_REPAIR_SHARE = 0.25;
   static final double FINISH_MAX_S = 2.0;
+  /** A search or bound phase with less than this left is skipped (its set-up alone would overrun). */
+  static final long MIN_PHASE_NANOS = 10_000_000L;
 
   /** Plans {@code problem} with {@code options}. */
   public SequencerResult plan(PlanningProblem problem, SequencerOptions options) {
@@ -114,6 +114,8 @@ public final class Sequencer {
     private ArcCosts arcs;
     private ExactTimer timer;
     private Incumbent incumbent;
+    /** Requests exact repair inserted into accepted plans, early and final repair together. */
+    private int repairAdded;
     private double lpBound = Double.NaN;
     private double cpBound = Double.NaN;
     private double ngBound = Double.NaN;
@@ -465,6 +467,10 @@ public final class Sequencer {
       }
       long deadline = reproducible ? Long.MAX_VALUE
           : Math.min(budget.phaseDeadlineNanos(NG_SHARE, endReserveS()), System.nanoTime() + (long) (NG_MAX_S * 1e9));
+      if (deadline - System.nanoTime() < MIN_PHASE_NANOS) {
+        note(Note.Kind.BOUND, "no ng-route bound: no time left for it.");
+        return;
+      }
       int maxLabels = reproducible
           ? (int) Math.min(NgRouteRelaxation.MAX_LABELS, NG_LABELS_PER_UNIT * Math.max(1, options.deterministicLimit()))
           : NgRouteRelaxation.MAX_LABELS;
@@ -493,33 +499,11 @@ public final class Sequencer {
      * until a round inserts nothing: then every request it reports as failing fails on the returned plan.
      */
     private void repair() {
-      long deadline = reproducible ? Long.MAX_VALUE : budget.phaseDeadlineNanos(1.0, finishReserveS());
-      ExactRepair r = new ExactRepair(problem, timer);
-      int added = 0;
-      while (true) {
-        ExactRepair.Result round = r.repair(incumbent.best().plan(), deadline);
-        boolean accepted = !round.inserted().isEmpty() && incumbent.offer(round.plan(), Source.REPAIR);
-        added += accepted ? round.inserted().size() : 0;
-        if (round.inserted().isEmpty()) {
-          repaired = round;
-          break;
-        }
-        if (!accepted) {
-          // Cannot happen (an insertion raises the prize); its findings are then not vouched for.
-          repaired = new ExactRepair.Result(round.plan(), List.of(), List.of(), List.of(),
-              concat(concat(concat(round.failed(), round.noGain()), round.inserted()), round.untried()));
-          break;
-        }
-        if (System.nanoTime() >= deadline) {
-          // The last round changed the plan and there is no time to re-check its failures on it.
-          repaired = new ExactRepair.Result(round.plan(), round.inserted(), List.of(), List.of(),
-              concat(concat(round.failed(), round.noGain()), round.untried()));
-          break;
-        }
-      }
-      if (added > 0) {
-        note(Note.Kind.EXACT_TIMING, added + " request(s) added by exact repair (the model's slew bounds had left "
-            + "them out).");
+      repaired = repairRounds(reproducible ? Long.MAX_VALUE : budget.phaseDeadlineNanos(1.0, finishReserveS()));
+      if (repairAdded > 0) {
+        note(Note.Kind.EXACT_TIMING, "exact repair inserted " + repairAdded + " request(s) during the run (the "
+            + "model's slew bounds, or "
+            + "greedy's order, had left them out).");
       }
       if (!repaired.untried().isEmpty()) {
         note(Note.Kind.BUDGET, repaired.untried().size() + " unscheduled request(s) not re-checked with the exact "
@@ -528,15 +512,42 @@ public final class Sequencer {
     }
 
     /**
-     * Exact repair of the warm start (greedy, seeds, deadline orders) before the searches, for up to
-     * {@link #EARLY_REPAIR_SHARE} of the time limit: every solver then starts from what the greedy
-     * baseline returns, so no solver's plan is below the baseline's for lack of time to repair.
+     * Exact repair of the warm start (greedy, seeds, deadline orders) before the searches, in rounds as the
+     * final repair and with all the time before the finish reserve (so the final repair's reserve too, which
+     * the greedy solver's repair has): the greedy baseline is greedy plus this
+     * repair, and every solver starts from it, so no solver's plan is below the baseline's for lack of time
+     * to repair (a solver only loses search time when repair is slow). Found by the planner fuzz property:
+     * a station night at 1 s whose early repair had a quarter of the time and stopped short of greedy's.
      */
     private void earlyRepair() {
-      long deadline = reproducible ? Long.MAX_VALUE : budget.phaseDeadlineNanos(EARLY_REPAIR_SHARE, endReserveS());
-      ExactRepair.Result r = new ExactRepair(problem, timer).repair(incumbent.best().plan(), deadline);
-      if (!r.inserted().isEmpty()) {
-        incumbent.offer(r.plan(), Source.REPAIR);
+      ExactRepair.Result r = repairRounds(reproducible ? Long.MAX_VALUE
+          : budget.phaseDeadlineNanos(1.0, finishReserveS()));
+      if (!r.untried().isEmpty()) {
+        note(Note.Kind.BASELINE_CUT, r.untried().size() + " request(s) not tried by the exact repair of the greedy "
+            + "baseline before the time limit (the windows and slews took most of it).");
+      }
+    }
+
+    /** Rounds of exact repair on the incumbent until a round inserts nothing or {@code deadline}; the last round. */
+    private ExactRepair.Result repairRounds(long deadline) {
+      ExactRepair r = new ExactRepair(problem, timer);
+      while (true) {
+        ExactRepair.Result round = r.repair(incumbent.best().plan(), deadline);
+        if (round.inserted().isEmpty()) {
+          return round;
+        }
+        if (incumbent.offer(round.plan(), Source.REPAIR)) {
+          repairAdded += round.inserted().size();
+        } else {
+          // Cannot happen (an insertion raises the prize); its findings are then not vouched for.
+          return new ExactRepair.Result(round.plan(), List.of(), List.of(), List.of(),
+              concat(concat(concat(round.failed(), round.noGain()), round.inserted()), round.untried()));
+        }
+        if (System.nanoTime() >= deadline) {
+          // The last round changed the plan and there is no time to re-check its failures on it.
+          return new ExactRepair.Result(round.plan(), round.inserted(), List.of(), List.of(),
+              concat(concat(round.failed(), round.noGain()), round.untried()));
+        }
       }
     }
 

@@ -10,6 +10,7 @@ import dev.sequencer.model.Request;
 import dev.sequencer.model.Scenario;
 import dev.sequencer.model.Timeline;
 import dev.sequencer.model.Unscheduled;
+import dev.sequencer.sequence.Note;
 import dev.sequencer.sequence.SequencerOptions;
 import dev.sequencer.sequence.SequencerResult;
 import dev.sequencer.sequence.problem.Reasons;
@@ -71,6 +72,25 @@ class PlannerFuzzProperties {
     check(t);
   }
 
+  /**
+   * Found by this property on 2026-12-02: a station night (alt-az mount, 19 TLE objects, Sun keep-out,
+   * two required satellites) where CP-SAT's plan had priority 107.6 against greedy's 108.6 at 1 s.
+   */
+  @net.jqwik.api.Example
+  void stationNightWithASunKeepOutIsNeverBelowGreedy() {
+    Try t = new Try(FuzzScenarios.Kind.STATION_TLE_ALTAZ, 7, 1.0, 1, 9);
+    check(t);
+    // Without the clock (work limits), the comparison is a rule on every run: the greedy baseline with its
+    // whole exact repair is the CP-SAT run's floor.
+    Scenario plain = FuzzScenarios.generate(t.kind(), t.seed(), CTX);
+    SequencerOptions o = SequencerOptions.defaults().withWorkers(1).withSeed(t.solverSeed()).withReproducible(5);
+    PlanOutcome greedy = Planner.plan(plain, CTX, o.withSolver(SequencerOptions.Solver.GREEDY));
+    PlanOutcome cp = Planner.plan(plain, CTX, o);
+    assertTrue(cp.result().totalPriority() >= greedy.result().totalPriority() - 1e-6, "reproducible: "
+        + cp.result().totalPriority() + " below greedy's " + greedy.result().totalPriority());
+    assertTrue(!cp.result().stats().has(Note.Kind.BASELINE_CUT), "reproducible runs never cut the baseline");
+  }
+
   /** Runs every check of the class comment on one try; public for the benchmark's own loop. */
   static void check(Try t) {
     Scenario plain = FuzzScenarios.generate(t.kind(), t.seed(), CTX);
@@ -91,8 +111,13 @@ class PlannerFuzzProperties {
     if (greedy.result().hasPlan()) {
       assertTrue(r.hasPlan(), what + ": greedy holds every required request but CP-SAT returned " + r.status() + " "
           + r.message());
-      assertTrue(r.totalPriority() >= greedy.result().totalPriority() - 1e-6, what + ": priority "
-          + r.totalPriority() + " below greedy's " + greedy.result().totalPriority());
+      // Two runs under one wall-clock limit: when the windows take most of it, the greedy baseline's own
+      // exact repair may be cut in this run and not in the other. The run then says so (BASELINE_CUT), and
+      // only then is the comparison with the other run's time-dependent result not a rule.
+      if (!r.stats().has(Note.Kind.BASELINE_CUT)) {
+        assertTrue(r.totalPriority() >= greedy.result().totalPriority() - 1e-6, what + ": priority "
+            + r.totalPriority() + " below greedy's " + greedy.result().totalPriority());
+      }
     }
     if (!r.hasPlan()) {
       return;
