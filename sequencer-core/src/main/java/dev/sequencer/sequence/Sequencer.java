@@ -193,9 +193,17 @@ public final class Sequencer {
         provenInfeasible = true;
         return finish();
       }
-      timed("greedy", () -> incumbent.offer(new GreedyPlanner(problem, timer,
-          options.solver() == SequencerOptions.Solver.BEST_NOW ? GreedyPlanner.Rule.BEST_NOW
-              : GreedyPlanner.Rule.VALUE_PER_SECOND).plan(), Source.GREEDY));
+      timed("greedy", () -> {
+        GreedyPlanner greedy = new GreedyPlanner(problem, timer, options.solver() == SequencerOptions.Solver.BEST_NOW
+            ? GreedyPlanner.Rule.BEST_NOW : GreedyPlanner.Rule.VALUE_PER_SECOND);
+        incumbent.offer(greedy.plan(reproducible ? Long.MAX_VALUE : budget.phaseDeadlineNanos(1.0, endReserveS())),
+            Source.GREEDY);
+        if (greedy.wasCut()) {
+          note(Note.Kind.BASELINE_CUT, "greedy stopped at the time limit with " + incumbent.best().plan().size()
+              + " observation(s) (each choice times every candidate with the exact slews; exact repair goes on "
+              + "from there).");
+        }
+      });
       for (Plan seed : seeds.warmStarts()) {
         if (incumbent.offer(seed, Source.PREFERRED)) {
           note(Note.Kind.SOURCE, "warm start: the given plan (" + incumbent.best().plan().size() + " of "

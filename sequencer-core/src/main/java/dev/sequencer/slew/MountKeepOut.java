@@ -119,7 +119,7 @@ final class MountKeepOut {
   /** Clearance of the direction (az, el) from cone {@code c} at {@code tS}: separation minus radius, degrees. */
   static double clearanceDeg(SiteKeepOut c, double azDeg, double elDeg, double tS) {
     AzEl s = c.azEl(tS);
-    return separationDeg(azDeg, elDeg, s.azimuthDeg(), s.elevationDeg()) - c.radiusDeg(tS);
+    return separationDeg(azDeg, elDeg, s.azimuthDeg(), s.elevationDeg()) - c.radiusDeg(tS) - c.azElErrorDeg();
   }
 
   /** Great-circle separation of two azimuth–elevation directions, degrees (haversine, well-conditioned). */
@@ -143,7 +143,8 @@ final class MountKeepOut {
     for (int c = 0; c < cones.size(); c++) {
       SiteKeepOut cone = cones.get(c);
       double rate = cone.maxSiteDriftDegPerS();
-      double radius = Math.max(cone.radiusDeg(fromS), Math.max(cone.radiusDeg(0.5 * (fromS + toS)), cone.radiusDeg(toS)));
+      double radius = Math.max(cone.radiusDeg(fromS), Math.max(cone.radiusDeg(0.5 * (fromS + toS)), cone.radiusDeg(toS)))
+          + cone.azElErrorDeg();
       int n = tableAz[c].length;
       int i0 = (int) Math.floor((fromS - tableFromS) / tableStepS);
       int i1 = (int) Math.ceil((toS - tableFromS) / tableStepS);

@@ -15,4 +15,12 @@ public interface SiteKeepOut extends KeepOut {
    * rotation plus the Sun's own motion), and on the rate of the radius.
    */
   double maxSiteDriftDegPerS();
+
+  /**
+   * Bound on the error of {@link #azEl} against the true axis, degrees (an interpolated table's); the mount's
+   * checks widen the cone by it. Zero for an exact axis.
+   */
+  default double azElErrorDeg() {
+    return 0;
+  }
 }

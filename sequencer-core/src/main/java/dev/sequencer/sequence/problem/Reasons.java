@@ -8,6 +8,12 @@ public final class Reasons {
   public static final String WINDOWS_TOO_SHORT = "windows shorter than its duration";
   /** Prefix of the reason of a schedulable request the plan leaves out; the rest names what took its time. */
   public static final String LOST_TO_CONFLICTS = "lost to conflicts";
+  /**
+   * A request no exact slew from the start pointing reaches inside its windows (the slew's time, or the
+   * keep-outs during slews), given only when the plan is empty, so nothing else could lead to it.
+   */
+  public static final String UNREACHABLE_FROM_START = "no slew from the start pointing reaches it inside its "
+      + "windows (slew time, or the keep-outs during slews)";
   /** A schedulable request exact repair did not get to before the time limit. */
   public static final String NOT_RECHECKED = "not scheduled: the time limit ended before it was re-checked with the exact slews";
   /** A request that fits the plan but would add nothing to its score (a value of 0 there). */

@@ -228,6 +228,9 @@ public final class ExactRepair {
   public String reason(ExactTimer.Timed timed, int k) {
     Task t = problem.task(k);
     Plan plan = timed.plan();
+    if (plan.size() == 0 && timer.earliestStart(timer.start(), k, 0, 0, t.durationS(), t.latestStartS()) < 0) {
+      return Reasons.UNREACHABLE_FROM_START; // exact: nothing precedes it, and the first slew never fits
+    }
     List<String> taken = new ArrayList<>();
     String before = null;
     String after = null;

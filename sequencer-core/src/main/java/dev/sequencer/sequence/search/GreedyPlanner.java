@@ -41,10 +41,18 @@ public final class GreedyPlanner {
   /** Seconds after the earliest possible start within which {@link Rule#BEST_NOW} counts a request as "now". */
   public static final long NOW_WINDOW_S = 600;
 
+  /**
+   * Take-backs allowed in a row at one dead end (a plan that then grows past it starts counting again): a
+   * dead end from a keep-out is the last observation's, and a plan's true end (no time left for anything)
+   * should not unravel its tail.
+   */
+  static final int MAX_BACKTRACKS = 3;
+
   private final PlanningProblem problem;
   private final ExactTimer timer;
   private final int[] required;
   private final Rule rule;
+  private boolean cut;
 
   public GreedyPlanner(PlanningProblem problem, ExactTimer timer) {
     this(problem, timer, Rule.VALUE_PER_SECOND);
@@ -60,9 +68,26 @@ public final class GreedyPlanner {
 
   /** The greedy plan (maybe missing required requests; the caller's score says so). */
   public Plan plan() {
+    return plan(Long.MAX_VALUE);
+  }
+
+  /**
+   * The greedy plan built until {@code deadlineNanos} ({@link System#nanoTime}): past it no further request
+   * is added and the plan so far is returned ({@link #wasCut} then says so). Each choice evaluates every
+   * candidate with the exact legs, so with expensive legs (alt-az with the Sun keep-out) a whole greedy pass
+   * can take seconds; the deadline keeps it inside the run's budget.
+   */
+  public Plan plan(long deadlineNanos) {
+    cut = false;
     int n = problem.size();
     boolean[] done = new boolean[n];
+    boolean[] excluded = new boolean[n];
     List<long[]> chosen = new ArrayList<>(); // {k, start, duration}
+    List<Path> pathsBefore = new ArrayList<>();
+    List<Long> timesBefore = new ArrayList<>();
+    Plan kept = null;
+    int backtracks = 0; // consecutive take-backs below the same plan length
+    int backtrackDepth = -1;
     Path path = timer.start();
     long t = 0;
     while (true) {
@@ -72,10 +97,14 @@ public final class GreedyPlanner {
       double bestScore = -1;
       for (int pass = 0; pass < 2 && best < 0; pass++) {
         long earliest = rule == Rule.BEST_NOW ? earliestStart(path, t, done, pass) : -1;
-        for (int j = 0; j < n; j++) {
+        for (int j = 0; j < n && !cut; j++) {
           Task tj = problem.task(j);
-          if (done[j] || !tj.schedulable() || (pass == 0) == (j == problem.mustBeLastIndex())) {
+          if (done[j] || excluded[j] || !tj.schedulable() || (pass == 0) == (j == problem.mustBeLastIndex())) {
             continue;
+          }
+          if (deadlineNanos != Long.MAX_VALUE && System.nanoTime() > deadlineNanos) {
+            cut = true; // the choice in progress is not finished: it is not made
+            break;
           }
           long s = timer.earliestStart(path, j, t, t, tj.durationS(), tj.latestStartS());
           long d = s < 0 ? -1 : exposure(j, s, t);
@@ -99,17 +128,42 @@ public final class GreedyPlanner {
           }
         }
       }
-      if (best < 0) {
+      if (chosen.size() > backtrackDepth) {
+        backtracks = 0; // the plan grew past the last dead end
+      }
+      if (best < 0 && !cut && !chosen.isEmpty() && backtracks < MAX_BACKTRACKS && stillOpen(t, done, excluded)) {
+        // A dead end: nothing can follow the last choice although requests remain open later on (e.g. an
+        // observation ending at the Earth-limb edge leaves the line of sight where every slew out crosses
+        // the keep-out). Keep the plan so far, take the last choice back and never make it again.
+        Plan here = toPlan(chosen);
+        kept = kept == null || better(here, kept) ? here : kept;
+        long[] last = chosen.remove(chosen.size() - 1);
+        done[(int) last[0]] = false;
+        excluded[(int) last[0]] = true;
+        path = pathsBefore.remove(pathsBefore.size() - 1);
+        t = timesBefore.remove(timesBefore.size() - 1);
+        backtracks++;
+        backtrackDepth = chosen.size();
+        continue;
+      }
+      if (best < 0 || cut) {
         break;
       }
       done[best] = true;
       chosen.add(new long[] {best, bestStart, bestDur});
+      pathsBefore.add(path);
+      timesBefore.add(t);
       path = path.then(best, t, bestStart);
       t = bestStart + bestDur;
       if (best == problem.mustBeLastIndex()) {
         break;
       }
     }
+    Plan result = toPlan(chosen);
+    return kept != null && better(kept, result) ? kept : result;
+  }
+
+  private static Plan toPlan(List<long[]> chosen) {
     int m = chosen.size();
     int[] order = new int[m];
     long[] starts = new long[m];
@@ -120,6 +174,28 @@ public final class GreedyPlanner {
       durs[q] = chosen.get(q)[2];
     }
     return new Plan(order, starts, durs);
+  }
+
+  /** Fewer required requests missing, then more prize. */
+  private boolean better(Plan a, Plan b) {
+    int ma = a.requiredMissing(problem);
+    int mb = b.requiredMissing(problem);
+    return ma != mb ? ma < mb : a.prize(problem) > b.prize(problem);
+  }
+
+  /** True when some schedulable request not yet planned nor excluded may still start after {@code t}. */
+  private boolean stillOpen(long t, boolean[] done, boolean[] excluded) {
+    for (int j = 0; j < problem.size(); j++) {
+      if (!done[j] && !excluded[j] && problem.task(j).schedulable() && problem.task(j).latestStartS() > t) {
+        return true;
+      }
+    }
+    return false;
+  }
+
+  /** True when the last {@link #plan(long)} stopped at its deadline before greedy had nothing left to add. */
+  public boolean wasCut() {
+    return cut;
   }
 
   /** The earliest start of any candidate of this pass from {@code t} (Long.MAX_VALUE / 2 when none fits). */
