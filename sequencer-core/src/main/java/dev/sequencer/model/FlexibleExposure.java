@@ -36,4 +36,25 @@ public record FlexibleExposure(
     }
     return utility.get(utility.size() - 1).value();
   }
+
+  /** The grid exposure nearest {@code exposureS}: min + k·step for the nearest whole k (not clamped to max). */
+  public double nearestGridS(double exposureS) {
+    return minDurationS + Math.rint((exposureS - minDurationS) / durationStepS) * durationStepS;
+  }
+
+  /** True when {@code exposureS} is a grid exposure in [min, max], within {@code toleranceS}. */
+  public boolean allows(double exposureS, double toleranceS) {
+    return Math.abs(exposureS - nearestGridS(exposureS)) <= toleranceS && exposureS >= minDurationS - toleranceS
+        && exposureS <= maxDurationS + toleranceS;
+  }
+
+  /** The grid in words, for messages: {@code "600 + k·60 in [600, 1800]"}. */
+  public String gridText() {
+    return num(minDurationS) + " + k·" + num(durationStepS) + " in [" + num(minDurationS) + ", " + num(maxDurationS)
+        + "]";
+  }
+
+  private static String num(double v) {
+    return v == Math.rint(v) ? Long.toString((long) v) : Double.toString(v);
+  }
 }

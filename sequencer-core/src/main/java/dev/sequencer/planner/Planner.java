@@ -97,14 +97,13 @@ public final class Planner {
   }
 
   /**
-   * Whether the planner plans its slews around the keep-outs of the format's A3 (Sun separation and Earth
-   * limb along every slew). Not yet on this branch: the planner side (detours through {@code slewVia},
-   * {@code slewStart}) is being built separately, and until it lands the façade's validator leaves out the
-   * A3 check (every other check runs) instead of refusing most orbit plans; {@code sequencer check} uses the
-   * same rules. The A3 check itself is tested in the validator's own tests. Set to true when the planner side
-   * is merged.
+   * Whether the façade's validator checks the keep-outs of the format's A3 (Sun separation and Earth limb
+   * along every slew, {@code keepOutDuringSlew}): on, since the planner plans its slews around them
+   * (eigenaxis detours written as {@code slewVia}/{@code slewStart} by {@link SlewPaths}, alt-az legs on the
+   * mount's nearest branch refused when they cross the Sun's cone). A plan whose slew crosses a keep-out is
+   * then a bug the façade reports instead of handing out; {@code sequencer check} uses the same rules.
    */
-  static final boolean PLANNER_KEEPS_SLEW_KEEP_OUTS = false;
+  static final boolean PLANNER_KEEPS_SLEW_KEEP_OUTS = true;
 
   /**
    * Plans {@code s}: every phase counts towards {@code options.timeLimitS()} from this call on (in

@@ -224,12 +224,9 @@ public final class SelfCheck implements TimelineCheck {
       return;
     }
     double d = o.durationS();
-    double k = Math.rint((d - f.minDurationS()) / f.durationStepS());
-    double onGrid = f.minDurationS() + k * f.durationStepS();
-    if (Math.abs(d - onGrid) > TOLERANCE_S || d < f.minDurationS() - TOLERANCE_S
-        || d > f.maxDurationS() + TOLERANCE_S) {
-      out.add(String.format(Locale.ROOT, "observation %s lasts %.3f s, not a grid exposure %s + k·%s in [%s, %s]",
-          o.id(), d, num(f.minDurationS()), num(f.durationStepS()), num(f.minDurationS()), num(f.maxDurationS())));
+    if (!f.allows(d, TOLERANCE_S)) {
+      out.add(String.format(Locale.ROOT, "observation %s lasts %.3f s, not a grid exposure %s", o.id(), d,
+          f.gridText()));
     }
     if (o.value() == null) {
       out.add("observation " + o.id() + ": a flexible request's observation must carry its value");
@@ -240,10 +237,6 @@ public final class SelfCheck implements TimelineCheck {
       out.add(String.format(Locale.ROOT, "observation %s: value is %s, but the utility curve gives %s at %.3f s",
           o.id(), o.value(), expected, d));
     }
-  }
-
-  private static String num(double v) {
-    return v == Math.rint(v) ? Long.toString((long) v) : Double.toString(v);
   }
 
   private void checkWindow(Observation o, List<String> out) {

@@ -187,37 +187,59 @@ final class Detour {
    * the axis's antipode, or the turn needs segments of 170° or more).
    */
   static List<Vector3D> tangentPolygon(Vector3D a, Vector3D b, Vector3D s, double radiusDeg, int side, int m) {
-    double rho = Math.toRadians(radiusDeg);
     if (!(radiusDeg > 0 && radiusDeg < 89.9)) {
       return null;
     }
-    double da = Math.toRadians(EigenaxisModel.angleDeg(a, s));
-    double db = Math.toRadians(EigenaxisModel.angleDeg(b, s));
-    if (da < rho || db < rho || da > Math.PI - rho || db > Math.PI - rho) {
+    Tangents g = Tangents.of(a, b, s, radiusDeg);
+    if (g == null) {
       return null;
     }
-    Vector3D e1 = s.orthogonal();
-    Vector3D e2 = Vector3D.crossProduct(s, e1);
-    double ba = Math.atan2(Vector3D.dotProduct(a, e2), Vector3D.dotProduct(a, e1));
-    double bb = Math.atan2(Vector3D.dotProduct(b, e2), Vector3D.dotProduct(b, e1));
-    double betaA = Math.acos(clamp(Math.tan(rho) / Math.tan(da)));
-    double betaB = Math.acos(clamp(Math.tan(rho) / Math.tan(db)));
-    double ta = ba + side * betaA;
-    double tb = bb - side * betaB;
-    double phiTotal = side * (tb - ta);
-    phiTotal = phiTotal - 2 * Math.PI * Math.floor(phiTotal / (2 * Math.PI));
-    double phi = phiTotal / m;
+    double phi = g.turn(side) / m;
     if (phi >= Math.toRadians(170)) {
       return null;
     }
-    double rv = Math.atan(Math.tan(rho) / Math.cos(phi / 2));
+    double rv = Math.atan(Math.tan(g.rho) / Math.cos(phi / 2));
+    double ta = g.tangentA(side);
     List<Vector3D> out = new ArrayList<>(m);
     for (int i = 1; i <= m; i++) {
       double bearing = ta + side * (i - 0.5) * phi;
-      Vector3D radial = new Vector3D(Math.cos(bearing), e1, Math.sin(bearing), e2);
+      Vector3D radial = new Vector3D(Math.cos(bearing), g.e1, Math.sin(bearing), g.e2);
       out.add(new Vector3D(Math.cos(rv), s, Math.sin(rv), radial).normalize());
     }
     return out;
+  }
+
+  /**
+   * The tangent construction from a and b to the cone (s, ρ): the frame (e1, e2) about s, each end's
+   * bearing about s and distance to it, and the bearing offset β of its tangent point (cos β = tan ρ / tan d);
+   * {@code null} when an end is inside the cone or within ρ of its axis's antipode.
+   */
+  private record Tangents(double rho, Vector3D e1, Vector3D e2, double da, double db, double ba, double bb,
+      double betaA, double betaB) {
+    static Tangents of(Vector3D a, Vector3D b, Vector3D s, double radiusDeg) {
+      double rho = Math.toRadians(radiusDeg);
+      double da = Math.toRadians(EigenaxisModel.angleDeg(a, s));
+      double db = Math.toRadians(EigenaxisModel.angleDeg(b, s));
+      if (da < rho || db < rho || da > Math.PI - rho || db > Math.PI - rho) {
+        return null;
+      }
+      Vector3D e1 = s.orthogonal();
+      Vector3D e2 = Vector3D.crossProduct(s, e1);
+      return new Tangents(rho, e1, e2, da, db, Math.atan2(Vector3D.dotProduct(a, e2), Vector3D.dotProduct(a, e1)),
+          Math.atan2(Vector3D.dotProduct(b, e2), Vector3D.dotProduct(b, e1)),
+          Math.acos(clamp(Math.tan(rho) / Math.tan(da))), Math.acos(clamp(Math.tan(rho) / Math.tan(db))));
+    }
+
+    /** Bearing of a's tangent point going round on {@code side}. */
+    double tangentA(int side) {
+      return ba + side * betaA;
+    }
+
+    /** The central angle Φ between the two tangent points going round on {@code side}, in [0, 2π). */
+    double turn(int side) {
+      double phi = side * ((bb - side * betaB) - tangentA(side));
+      return phi - 2 * Math.PI * Math.floor(phi / (2 * Math.PI));
+    }
   }
 
   private static double clamp(double x) {
@@ -261,25 +283,15 @@ final class Detour {
     if (distanceToArcDeg(s, a, b) >= radiusDeg || radiusDeg >= 90) {
       return direct;
     }
-    double rho = Math.toRadians(radiusDeg);
-    double da = Math.toRadians(EigenaxisModel.angleDeg(a, s));
-    double db = Math.toRadians(EigenaxisModel.angleDeg(b, s));
-    if (da < rho || db < rho || da > Math.PI - rho || db > Math.PI - rho) {
+    Tangents g = Tangents.of(a, b, s, radiusDeg);
+    if (g == null) {
       return direct;
     }
-    Vector3D e1 = s.orthogonal();
-    Vector3D e2 = Vector3D.crossProduct(s, e1);
-    double ba = Math.atan2(Vector3D.dotProduct(a, e2), Vector3D.dotProduct(a, e1));
-    double bb = Math.atan2(Vector3D.dotProduct(b, e2), Vector3D.dotProduct(b, e1));
-    double la = Math.acos(clamp(Math.cos(da) / Math.cos(rho)));
-    double lb = Math.acos(clamp(Math.cos(db) / Math.cos(rho)));
-    double betaA = Math.acos(clamp(Math.tan(rho) / Math.tan(da)));
-    double betaB = Math.acos(clamp(Math.tan(rho) / Math.tan(db)));
+    double la = Math.acos(clamp(Math.cos(g.da) / Math.cos(g.rho)));
+    double lb = Math.acos(clamp(Math.cos(g.db) / Math.cos(g.rho)));
     double best = Double.POSITIVE_INFINITY;
     for (int side = -1; side <= 1; side += 2) {
-      double phi = side * ((bb - side * betaB) - (ba + side * betaA));
-      phi = phi - 2 * Math.PI * Math.floor(phi / (2 * Math.PI));
-      best = Math.min(best, la + lb + phi * Math.sin(rho));
+      best = Math.min(best, la + lb + g.turn(side) * Math.sin(g.rho));
     }
     return Math.max(direct, Math.toDegrees(best));
   }

@@ -95,9 +95,9 @@ public final class PlanValidator implements TimelineCheck {
   }
 
   /**
-   * A copy that checks the keep-outs during slews (A3) or not. Off only where a caller knowingly accepts
-   * plans whose slews were not planned around the keep-outs (the façade, until the planner side of A3 lands;
-   * see {@code Planner}, whose rules {@code sequencer check} shares).
+   * A copy that checks the keep-outs during slews (A3) or not. On by default and in the façade
+   * ({@code Planner}, whose rules {@code sequencer check} shares); off only where a caller knowingly accepts
+   * plans whose slews were not planned around the keep-outs.
    */
   public PlanValidator withSlewKeepOuts(boolean on) {
     return new PlanValidator(scenario, ctx, now, checkRequired, on);
@@ -236,13 +236,9 @@ public final class PlanValidator implements TimelineCheck {
       return;
     }
     double d = o.durationS();
-    double k = Math.rint((d - f.minDurationS()) / f.durationStepS());
-    double onGrid = f.minDurationS() + k * f.durationStepS();
-    if (Math.abs(d - onGrid) > TOLERANCE_S || d < f.minDurationS() - TOLERANCE_S
-        || d > f.maxDurationS() + TOLERANCE_S) {
-      out.add(Violation.of(Kind.EXPOSURE_GRID, o.id(), o.start(), d, onGrid, String.format(Locale.ROOT,
-          "observation %s lasts %.3f s, not a grid exposure %s + k·%s in [%s, %s]", o.id(), d, num(f.minDurationS()),
-          num(f.durationStepS()), num(f.minDurationS()), num(f.maxDurationS()))));
+    if (!f.allows(d, TOLERANCE_S)) {
+      out.add(Violation.of(Kind.EXPOSURE_GRID, o.id(), o.start(), d, f.nearestGridS(d), String.format(Locale.ROOT,
+          "observation %s lasts %.3f s, not a grid exposure %s", o.id(), d, f.gridText())));
     }
     if (o.value() == null) {
       out.add(Violation.of(Kind.EXPOSURE_VALUE, o.id(), o.start(),
@@ -254,10 +250,6 @@ public final class PlanValidator implements TimelineCheck {
       out.add(Violation.of(Kind.EXPOSURE_VALUE, o.id(), o.start(), o.value(), expected, String.format(Locale.ROOT,
           "observation %s: value is %s, but the utility curve gives %s at %.3f s", o.id(), o.value(), expected, d)));
     }
-  }
-
-  private static String num(double v) {
-    return v == Math.rint(v) ? Long.toString((long) v) : Double.toString(v);
   }
 
   private void checkHorizonAndWindows(Observation o, Request r, List<Violation> out) {

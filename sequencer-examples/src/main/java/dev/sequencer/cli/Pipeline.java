@@ -8,11 +8,26 @@ import dev.sequencer.planner.Geometry;
 import dev.sequencer.planner.Planner;
 import dev.sequencer.validate.PlanValidator;
 import dev.sequencer.visibility.RequestVisibility;
+import dev.sequencer.io.ScenarioReader;
+import dev.sequencer.planner.InputRules;
+import java.io.PrintWriter;
+import java.nio.file.Path;
 import java.time.Instant;
 import java.util.List;
 
 /** A scenario's geometry (from the {@link Planner} façade) with the astronomy context the commands print and draw with. */
 record Pipeline(Geometry geometry, AstroContext astro) {
+
+  /**
+   * Reads a scenario file for a command that plans or reports: the reader's warnings printed to {@code out},
+   * then the façade's input rules (bad input as an exception naming the JSON path, the rule and the value).
+   */
+  static ScenarioReader.Result read(Path file, PrintWriter out) {
+    ScenarioReader.Result r = ScenarioReader.read(file);
+    r.warnings().forEach(w -> out.println("warning: " + w));
+    InputRules.check(r.scenario(), file.toString());
+    return r;
+  }
 
   /** The geometry of {@code s}, computed by the façade (for commands that do not plan: windows, check). */
   static Pipeline of(Scenario s, AstroContext ctx) {

@@ -9,7 +9,6 @@ import dev.sequencer.model.Scenario;
 import dev.sequencer.model.SolverSettings;
 import dev.sequencer.model.Timeline;
 import dev.sequencer.model.Unscheduled;
-import dev.sequencer.planner.InputRules;
 import dev.sequencer.planner.PlanOutcome;
 import dev.sequencer.planner.Planner;
 import dev.sequencer.sequence.Note;
@@ -71,10 +70,8 @@ final class PlanCommand implements Callable<Integer> {
 
   @Override
   public Integer call() {
-    ScenarioReader.Result r = ScenarioReader.read(scenario);
     PrintWriter out = spec.commandLine().getOut();
-    r.warnings().forEach(w -> out.println("warning: " + w));
-    InputRules.check(r.scenario(), scenario.toString());
+    ScenarioReader.Result r = Pipeline.read(scenario, out);
     ReportOutput.zone(zone, r.scenario());
     Outputs.check(Outputs.file("--output", output), Outputs.file("--csv", csv), Outputs.plot("--plot", plot),
         Outputs.file("--report", report));

@@ -6,7 +6,6 @@ import dev.sequencer.io.TimelineFile;
 import dev.sequencer.model.Observation;
 import dev.sequencer.model.Timeline;
 import dev.sequencer.model.Unscheduled;
-import dev.sequencer.planner.InputRules;
 import dev.sequencer.planner.Planner;
 import dev.sequencer.planner.ReplanOutcome;
 import dev.sequencer.sequence.replan.ReplanOptions;
@@ -77,10 +76,8 @@ final class ReplanCommand implements Callable<Integer> {
 
   @Override
   public Integer call() {
-    ScenarioReader.Result r = ScenarioReader.read(scenario);
     PrintWriter out = spec.commandLine().getOut();
-    r.warnings().forEach(w -> out.println("warning: " + w));
-    InputRules.check(r.scenario(), scenario.toString());
+    ScenarioReader.Result r = Pipeline.read(scenario, out);
     Timeline prev = TimelineFile.read(previous);
     Instant at = instant();
     ReplanOptions options = ReplanOptions.defaults().withDropFailed(dropFailed);

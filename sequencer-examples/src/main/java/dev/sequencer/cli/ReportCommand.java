@@ -3,7 +3,6 @@ package dev.sequencer.cli;
 import dev.sequencer.io.ScenarioReader;
 import dev.sequencer.io.TimelineFile;
 import dev.sequencer.model.Timeline;
-import dev.sequencer.planner.InputRules;
 import java.io.PrintWriter;
 import java.nio.file.Path;
 import java.util.ArrayList;
@@ -47,10 +46,8 @@ final class ReportCommand implements Callable<Integer> {
 
   @Override
   public Integer call() {
-    ScenarioReader.Result r = ScenarioReader.read(scenario);
     PrintWriter out = spec.commandLine().getOut();
-    r.warnings().forEach(w -> out.println("warning: " + w));
-    InputRules.check(r.scenario(), scenario.toString());
+    ScenarioReader.Result r = Pipeline.read(scenario, out);
     Timeline t = TimelineFile.read(timeline);
     ReportOutput.zone(zone, r.scenario());
     Outputs.check(Outputs.file("--output", output));

@@ -47,6 +47,38 @@ class ExamplesTest {
     assertValidAndUseful(run(LeoTelescopeDay.SCENARIO, SequencerOptions.Solver.GREEDY, 5), 300);
   }
 
+  /**
+   * Issue 15: the bundled LEO telescope day (Sun keep-out 50°, Earth limb 20°, eigenaxis slews) planned and
+   * then re-planned at mid-day with the first half done: no slew of either timeline enters a keep-out. The
+   * verdict is the independent validator's own path sampling (spec A3; it derives the Sun, the nadir and each
+   * slew's path from the scenario and the written {@code slewVia}/{@code slewStart}). The control: the same
+   * day planned blind to the keep-outs during slews fails that check, so the check is exercised.
+   */
+  @Test
+  void leoTelescopeDayRePlannedKeepsEverySlewOutOfTheKeepOuts() {
+    Scenario s = Embedding.bundled(LeoTelescopeDay.SCENARIO);
+    assertTrue(s.slew().keepOutDuringSlew(), "the example asks for keep-outs during slews");
+    dev.sequencer.validate.PlanValidator v = dev.sequencer.validate.PlanValidator.of(s, CTX);
+    Scenario blind = s.withSlew(((dev.sequencer.model.SlewSettings.Eigenaxis) s.slew()).withKeepOutDuringSlew(false));
+    Embedding.Outcome control = Embedding.plan(blind, CTX, Embedding.quick(blind, 5)
+        .withSolver(SequencerOptions.Solver.GREEDY));
+    assertTrue(v.violations(control.timeline()).stream().anyMatch(x -> x.contains("slew into it breaks")),
+        "a plan blind to the keep-outs during slews should cross them: " + v.violations(control.timeline()));
+    Embedding.Outcome o = run(LeoTelescopeDay.SCENARIO, SequencerOptions.Solver.GREEDY, 5);
+    assertEquals(List.of(), v.violations(o.timeline()));
+    List<dev.sequencer.model.Observation> obs = o.timeline().observations();
+    assertTrue(obs.size() >= 0.8 * control.timeline().observations().size(), "keeping out costs too much: "
+        + obs.size() + " observations against " + control.timeline().observations().size());
+    java.time.Instant now = obs.get(obs.size() / 2).start();
+    java.util.Set<String> done = new java.util.LinkedHashSet<>();
+    obs.stream().filter(x -> !x.end().isAfter(now)).forEach(x -> done.add(x.id()));
+    dev.sequencer.planner.ReplanOutcome r = dev.sequencer.planner.Planner.replan(s, CTX, o.timeline(), now, done,
+        java.util.Set.of(), dev.sequencer.sequence.replan.ReplanOptions.defaults()
+            .withSequencer(Embedding.quick(s, 5).withSolver(SequencerOptions.Solver.GREEDY)));
+    assertTrue(r.result().hasPlan(), r.result().message());
+    assertEquals(List.of(), v.violations(r.result().timeline()));
+  }
+
   @Test
   void satelliteTrackingNightPlansWithCpSatAndPassesTheValidator() {
     // Reproducible mode (a deterministic work limit of 3 units): CP-SAT runs whatever the machine's load,
