@@ -26,6 +26,11 @@ import java.util.Map;
  * model: collected priority, total slew and observations scheduled, with CP-SAT and with the greedy
  * baseline, so researchers can compare slew models on one scenario.
  *
+ * <p>Second table (issue 15): the bundled LEO telescope day planned with the keep-outs during slews (spec
+ * A3) on and off, and what the detours cost: over the plan made with keep-outs, each leg's seconds with
+ * them (the detour's, when the great circle crosses a keep-out) less the same leg's direct great-circle
+ * seconds, departing and arriving as planned.
+ *
  * <p>Run: {@code java -cp benchmarks/target/benchmarks.jar dev.sequencer.bench.SlewComparison [seconds]}
  */
 public final class SlewComparison {
@@ -61,6 +66,52 @@ public final class SlewComparison {
         System.out.printf(Locale.ROOT, "| %s | %s | %s | %.0f | %.0f | %d | %.0f | %.1f |%n", e.getKey(),
             solver.name().toLowerCase(Locale.ROOT), r.status(), r.totalPriority(), r.boundPriority(),
             r.observations().size(), r.totalTransitionS(), wall);
+      }
+    }
+    detourCost(ctx, limitS);
+  }
+
+  /** The LEO telescope day with and without keep-outs during slews, and the detours' cost (class comment). */
+  private static void detourCost(AstroContext ctx, double limitS) throws Exception {
+    Scenario leo;
+    try (InputStream in = SlewComparison.class.getResourceAsStream("/scenarios/leo-telescope-day.json")) {
+      leo = ScenarioReader.parse(new String(in.readAllBytes(), StandardCharsets.UTF_8), "leo-telescope-day.json")
+          .scenario();
+    }
+    SlewSettings.Eigenaxis on = (SlewSettings.Eigenaxis) leo.slew();
+    Scenario free = leo.withSlew(on.withKeepOutDuringSlew(false));
+    Transitions direct = SlewModel.of(free.slew()).transitions(PointingTracks.of(free, ctx),
+        PointingTracks.start(free, ctx));
+    System.out.println();
+    System.out.println("| LEO telescope day | solver | status | priority | scheduled | total slew [s] | detours | "
+        + "detour cost [s] | wall [s] |");
+    System.out.println("|---|---|---|---|---|---|---|---|---|");
+    for (Scenario s : List.of(leo, free)) {
+      for (SequencerOptions.Solver solver : List.of(SequencerOptions.Solver.CPSAT, SequencerOptions.Solver.GREEDY)) {
+        long t0 = System.nanoTime();
+        dev.sequencer.planner.PlanOutcome o = dev.sequencer.planner.Planner.plan(s, ctx,
+            SequencerOptions.defaults().withSolver(solver).withTimeLimitS(limitS).withWorkers(2).withSeed(1));
+        double wall = (System.nanoTime() - t0) * 1e-9;
+        SequencerResult r = o.result();
+        List<SequencerResult.Planned> obs = r.observations();
+        int[] order = new int[obs.size()];
+        double[] dep = new double[obs.size()];
+        double[] arr = new double[obs.size()];
+        List<String> ids = s.requests().stream().map(q -> q.id()).toList();
+        for (int q = 0; q < obs.size(); q++) {
+          order[q] = ids.indexOf(obs.get(q).id());
+          dep[q] = q == 0 ? 0 : obs.get(q - 1).endS();
+          arr[q] = obs.get(q).startS();
+        }
+        double[] straight = direct.exactS(order, dep, arr);
+        double cost = 0;
+        for (int q = 0; q < obs.size(); q++) {
+          cost += obs.get(q).transitionS() - straight[q];
+        }
+        long detours = o.timeline().observations().stream().filter(x -> !x.slewVia().isEmpty()).count();
+        System.out.printf(Locale.ROOT, "| keep-outs %s | %s | %s | %.0f | %d | %.0f | %d | %.0f | %.1f |%n",
+            s == leo ? "on" : "off", solver.name().toLowerCase(Locale.ROOT), r.status(), r.totalPriority(),
+            obs.size(), r.totalTransitionS(), detours, cost, wall);
       }
     }
   }
