@@ -141,5 +141,23 @@ final class PlanCommand implements Callable<Integer> {
         out.println("note: " + n.text());
       }
     }
+    warnIfBaselineCut(out, result);
+  }
+
+  /**
+   * A warning (kept by {@code --quiet}) when the time limit cut the greedy baseline itself: the windows and
+   * slews took most of the limit, so the plan may hold far less than the same scenario with a longer limit.
+   */
+  static void warnIfBaselineCut(PrintWriter out, SequencerResult result) {
+    if (!result.stats().has(Note.Kind.BASELINE_CUT)) {
+      return;
+    }
+    for (Note n : result.stats().notes()) {
+      if (n.kind() == Note.Kind.BASELINE_CUT) {
+        out.println("warning: " + n.text());
+      }
+    }
+    out.println("warning: the time limit was too short for this scenario's baseline plan; raise --time-limit "
+        + "(or use --reproducible, which has no wall-clock limit) for a fuller plan");
   }
 }

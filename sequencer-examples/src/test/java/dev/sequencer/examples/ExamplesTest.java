@@ -17,15 +17,21 @@ import org.junit.jupiter.api.Test;
 
 /**
  * Every example runs on its bundled scenario and its plan passes the independent validator. Greedy for the
- * two large scenarios and a short reproducible CP-SAT run for the small one keep the whole class under a
- * minute.
+ * two large scenarios and a short CP-SAT run for the small one keep the whole class within minutes. Every run
+ * is reproducible (deterministic work limits, no wall clock): a slow or loaded machine gets the same plans,
+ * where a wall-clock limit of a few seconds would cut the greedy baseline wherever the windows took longer.
  */
 class ExamplesTest {
   private static final AstroContext CTX = AstroContext.offline();
 
   private static Embedding.Outcome run(String resource, SequencerOptions.Solver solver, double limitS) {
     Scenario s = Embedding.bundled(resource);
-    return Embedding.plan(s, CTX, Embedding.quick(s, limitS).withSolver(solver));
+    return Embedding.plan(s, CTX, reproducible(s, limitS).withSolver(solver));
+  }
+
+  /** {@link Embedding#quick} with the limit as deterministic work units instead of wall-clock seconds. */
+  private static SequencerOptions reproducible(Scenario s, double units) {
+    return Embedding.quick(s, units).withReproducible(units);
   }
 
   private static void assertValidAndUseful(Embedding.Outcome o, int requests) {
@@ -60,7 +66,7 @@ class ExamplesTest {
     assertTrue(s.slew().keepOutDuringSlew(), "the example asks for keep-outs during slews");
     dev.sequencer.validate.PlanValidator v = dev.sequencer.validate.PlanValidator.of(s, CTX);
     Scenario blind = s.withSlew(((dev.sequencer.model.SlewSettings.Eigenaxis) s.slew()).withKeepOutDuringSlew(false));
-    Embedding.Outcome control = Embedding.plan(blind, CTX, Embedding.quick(blind, 5)
+    Embedding.Outcome control = Embedding.plan(blind, CTX, reproducible(blind, 5)
         .withSolver(SequencerOptions.Solver.GREEDY));
     assertTrue(v.violations(control.timeline()).stream().anyMatch(x -> x.contains("slew into it breaks")),
         "a plan blind to the keep-outs during slews should cross them: " + v.violations(control.timeline()));
@@ -74,7 +80,7 @@ class ExamplesTest {
     obs.stream().filter(x -> !x.end().isAfter(now)).forEach(x -> done.add(x.id()));
     dev.sequencer.planner.ReplanOutcome r = dev.sequencer.planner.Planner.replan(s, CTX, o.timeline(), now, done,
         java.util.Set.of(), dev.sequencer.sequence.replan.ReplanOptions.defaults()
-            .withSequencer(Embedding.quick(s, 5).withSolver(SequencerOptions.Solver.GREEDY)));
+            .withSequencer(reproducible(s, 5).withSolver(SequencerOptions.Solver.GREEDY)));
     assertTrue(r.result().hasPlan(), r.result().message());
     assertEquals(List.of(), v.violations(r.result().timeline()));
   }
@@ -84,7 +90,7 @@ class ExamplesTest {
     // Reproducible mode (a deterministic work limit of 3 units): CP-SAT runs whatever the machine's load,
     // although the windows of 60 objects over 12 h take seconds of the wall clock.
     Scenario s = Embedding.bundled(SatelliteTrackingNight.SCENARIO);
-    Embedding.Outcome o = Embedding.plan(s, CTX, Embedding.quick(s, 3).withReproducible(3));
+    Embedding.Outcome o = Embedding.plan(s, CTX, reproducible(s, 3));
     assertValidAndUseful(o, 60);
     assertTrue(o.result().stats().phaseS().containsKey("cp-sat"), o.result().stats().phaseS().toString());
   }

@@ -223,11 +223,22 @@ public final class NgRouteRelaxation {
    */
   public static Result bound(PlanningProblem p, ArcCosts arcs, double floor, int ngSize, long deadlineNanos,
       int maxRounds, int maxLabels) {
-    return new NgRouteRelaxation(p, arcs, deadlineNanos).solve(floor, ngSize, deadlineNanos, maxRounds,
-        Math.min(MAX_LABELS, maxLabels));
+    return bound(p, arcs, floor, ngSize, deadlineNanos, maxRounds, maxLabels, Long.MAX_VALUE);
   }
 
-  private Result solve(double floor, int ngSize, long deadlineNanos, int maxRounds, int maxLabels) {
+  /**
+   * As {@link #bound(PlanningProblem, ArcCosts, double, int, long, int, int)}, with at most
+   * {@code maxTotalLabels} labels over all rounds: a round that would pass it stops and gives no bound (the
+   * earlier rounds' bound stands). Reproducible runs use it so that the work, not only each round, is limited.
+   */
+  public static Result bound(PlanningProblem p, ArcCosts arcs, double floor, int ngSize, long deadlineNanos,
+      int maxRounds, int maxLabels, long maxTotalLabels) {
+    return new NgRouteRelaxation(p, arcs, deadlineNanos).solve(floor, ngSize, deadlineNanos, maxRounds,
+        Math.min(MAX_LABELS, maxLabels), maxTotalLabels);
+  }
+
+  private Result solve(double floor, int ngSize, long deadlineNanos, int maxRounds, int maxLabels,
+      long maxTotalLabels) {
     if (m == 0) {
       return new Result(Math.max(0, floor), Plan.EMPTY, 1, 0, true);
     }
@@ -237,8 +248,8 @@ public final class NgRouteRelaxation {
     boolean elementary = false;
     int rounds = 0;
     long labels = 0;
-    while (rounds < maxRounds && System.nanoTime() < deadlineNanos) {
-      Round r = new Round(ng, floor, deadlineNanos, maxLabels);
+    while (rounds < maxRounds && System.nanoTime() < deadlineNanos && labels < maxTotalLabels) {
+      Round r = new Round(ng, floor, deadlineNanos, (int) Math.min(maxLabels, maxTotalLabels - labels));
       boolean done = r.run();
       labels += r.count;
       if (!done) {
