@@ -39,6 +39,9 @@ import net.jqwik.api.Provide;
  * instant with random done and failed observations. Each try checks what a user relies on:
  *
  * <ul>
+ *   <li>when the required requests are all drawn from a first greedy plan, a plan holding them exists: the
+ *       greedy baseline and CP-SAT both return one (unless the time limit cut the baseline, which the run
+ *       says: {@code BASELINE_CUT});</li>
  *   <li>whenever the greedy baseline finds a plan holding every required request, CP-SAT returns a plan
  *       (which the façade has validated, physics re-check included);</li>
  *   <li>its priority is at least greedy's and at least every priority the progress listener saw;</li>
@@ -91,6 +94,17 @@ class PlannerFuzzProperties {
     assertTrue(!cp.result().stats().has(Note.Kind.BASELINE_CUT), "reproducible runs never cut the baseline");
   }
 
+  /**
+   * Found by the planner fuzz benchmark on 2026-12-02: a LEO day (10 fields, Sun and Earth-limb keep-outs
+   * during slews) with S6 required. The first plan holds S6, but every direct slew to S6 crosses a keep-out,
+   * so greedy's look-ahead ("the required requests stay directly reachable") rejected every candidate and
+   * the run ended NO_SOLUTION_IN_TIME. Greedy now falls back to passes without the look-ahead.
+   */
+  @net.jqwik.api.Example
+  void aRequiredRequestReachableOnlyThroughOthersIsPlanned() {
+    check(new Try(FuzzScenarios.Kind.LEO_TLE_FIELDS, 135129, 2.0, 2, 5));
+  }
+
   /** Runs every check of the class comment on one try; public for the benchmark's own loop. */
   static void check(Try t) {
     Scenario plain = FuzzScenarios.generate(t.kind(), t.seed(), CTX);
@@ -108,6 +122,14 @@ class PlannerFuzzProperties {
     PlanOutcome cp = Planner.plan(s, CTX, base.withListener((n, p, slew, bound, elapsed) ->
         bestReported.accumulateAndGet(p, Math::max)));
     SequencerResult r = cp.result();
+    // When the required requests are all drawn from the first plan, a plan holding them exists: both runs
+    // must find one unless the time limit cut their baseline (the run then says so).
+    boolean exists = s.requests().stream().filter(Request::required).allMatch(q -> inFirst.contains(q.id()));
+    for (PlanOutcome o : exists ? List.of(greedy, cp) : List.<PlanOutcome>of()) {
+      assertTrue(o.result().hasPlan() || o.result().stats().has(Note.Kind.BASELINE_CUT), what + ": the first plan "
+          + inFirst + " holds every required request, but " + o.result().status() + " " + o.result().message()
+          + " " + o.result().stats().notesText());
+    }
     if (greedy.result().hasPlan()) {
       assertTrue(r.hasPlan(), what + ": greedy holds every required request but CP-SAT returned " + r.status() + " "
           + r.message());

@@ -2,6 +2,7 @@ package dev.sequencer.sequence.search;
 
 import dev.sequencer.sequence.problem.Plan;
 import dev.sequencer.sequence.problem.PlanningProblem;
+import dev.sequencer.sequence.problem.Score;
 import dev.sequencer.sequence.problem.Task;
 import dev.sequencer.sequence.timing.ExactTimer;
 import dev.sequencer.slew.Transitions.Path;
@@ -19,6 +20,15 @@ import java.util.List;
  * required request impossible to reach directly afterwards (a necessary, not sufficient, look-ahead), and
  * the must-be-last request is taken only when nothing else fits. Ties go to the lower index, so the
  * result is deterministic.
+ *
+ * <p>The look-ahead asks for a direct slew. Where a required request can only be reached through others
+ * (the direct slew to it crosses a keep-out that a detour through another target avoids), it rejects every
+ * candidate and the plan misses the request. So when the plan misses a required request, two more passes
+ * run and the best of the three is returned (fewer required requests missing, then more prize): the same
+ * rule without the look-ahead, and the required requests alone, the one that can end first taken next
+ * (earliest-deadline order, which the exact repair afterwards fills with the others).
+ * Found by the planner fuzz benchmark on 2026-12-02: a LEO day where the direct slews to the required S6
+ * all cross the Earth-limb keep-out, while the plan without the look-ahead holds S6.
  *
  * <p>Flexible requests are scored at the exposure option with the best value per second used,
  * (value at d) / (waiting + transition + d), among the options that fit in the window holding the start:
@@ -79,6 +89,28 @@ public final class GreedyPlanner {
    */
   public Plan plan(long deadlineNanos) {
     cut = false;
+    Plan best = build(deadlineNanos, Pass.LOOK_AHEAD);
+    for (Pass fallback : new Pass[] {Pass.PLAIN, Pass.REQUIRED_FIRST}) {
+      if (cut || best.requiredMissing(problem) == 0) {
+        break;
+      }
+      Plan other = build(deadlineNanos, fallback);
+      best = better(other, best) ? other : best;
+    }
+    return best;
+  }
+
+  /** One greedy pass's way of choosing. */
+  private enum Pass {
+    /** The rule, skipping candidates after which some required request cannot be reached directly. */
+    LOOK_AHEAD,
+    /** The rule alone. */
+    PLAIN,
+    /** Required requests only, the one that can end first next. */
+    REQUIRED_FIRST
+  }
+
+  private Plan build(long deadlineNanos, Pass how) {
     int n = problem.size();
     boolean[] done = new boolean[n];
     boolean[] excluded = new boolean[n];
@@ -99,7 +131,8 @@ public final class GreedyPlanner {
         long earliest = rule == Rule.BEST_NOW ? earliestStart(path, t, done, pass) : -1;
         for (int j = 0; j < n && !cut; j++) {
           Task tj = problem.task(j);
-          if (done[j] || excluded[j] || !tj.schedulable() || (pass == 0) == (j == problem.mustBeLastIndex())) {
+          if (done[j] || excluded[j] || !tj.schedulable() || (pass == 0) == (j == problem.mustBeLastIndex())
+              || (how == Pass.REQUIRED_FIRST && !tj.required())) {
             continue;
           }
           if (deadlineNanos != Long.MAX_VALUE && System.nanoTime() > deadlineNanos) {
@@ -108,11 +141,13 @@ public final class GreedyPlanner {
           }
           long s = timer.earliestStart(path, j, t, t, tj.durationS(), tj.latestStartS());
           long d = s < 0 ? -1 : exposure(j, s, t);
-          if (s < 0 || !requiredStillReachable(path, j, t, s, s + d, done)) {
+          if (s < 0 || (how == Pass.LOOK_AHEAD && !requiredStillReachable(path, j, t, s, s + d, done))) {
             continue;
           }
           double score;
-          if (rule == Rule.BEST_NOW) {
+          if (how == Pass.REQUIRED_FIRST) {
+            score = 1.0 / (1 + s + d); // the earliest end first
+          } else if (rule == Rule.BEST_NOW) {
             if (s > earliest + NOW_WINDOW_S) {
               continue;
             }
@@ -131,7 +166,8 @@ public final class GreedyPlanner {
       if (chosen.size() > backtrackDepth) {
         backtracks = 0; // the plan grew past the last dead end
       }
-      if (best < 0 && !cut && !chosen.isEmpty() && backtracks < MAX_BACKTRACKS && stillOpen(t, done, excluded)) {
+      if (best < 0 && !cut && !chosen.isEmpty() && backtracks < MAX_BACKTRACKS
+          && stillOpen(t, done, excluded, how)) {
         // A dead end: nothing can follow the last choice although requests remain open later on (e.g. an
         // observation ending at the Earth-limb edge leaves the line of sight where every slew out crosses
         // the keep-out). Keep the plan so far, take the last choice back and never make it again.
@@ -176,17 +212,18 @@ public final class GreedyPlanner {
     return new Plan(order, starts, durs);
   }
 
-  /** Fewer required requests missing, then more prize. */
+  /** True when a ranks above b by {@link Score}: fewer required requests missing, then more prize (transitions not compared). */
   private boolean better(Plan a, Plan b) {
-    int ma = a.requiredMissing(problem);
-    int mb = b.requiredMissing(problem);
-    return ma != mb ? ma < mb : a.prize(problem) > b.prize(problem);
+    return new Score(a.requiredMissing(problem), a.prize(problem), 0)
+        .betterThan(new Score(b.requiredMissing(problem), b.prize(problem), 0));
   }
 
-  /** True when some schedulable request not yet planned nor excluded may still start after {@code t}. */
-  private boolean stillOpen(long t, boolean[] done, boolean[] excluded) {
+  /** True when some schedulable request the pass considers, not yet planned nor excluded, may still start after {@code t}. */
+  private boolean stillOpen(long t, boolean[] done, boolean[] excluded, Pass how) {
     for (int j = 0; j < problem.size(); j++) {
-      if (!done[j] && !excluded[j] && problem.task(j).schedulable() && problem.task(j).latestStartS() > t) {
+      Task tj = problem.task(j);
+      if (!done[j] && !excluded[j] && tj.schedulable() && tj.latestStartS() > t
+          && (how != Pass.REQUIRED_FIRST || tj.required())) {
         return true;
       }
     }
