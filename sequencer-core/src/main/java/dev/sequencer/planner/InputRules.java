@@ -6,14 +6,13 @@ import dev.sequencer.model.FlexibleExposure;
 import dev.sequencer.model.Request;
 import dev.sequencer.model.Scenario;
 import dev.sequencer.sequence.problem.Task;
-import dev.sequencer.slew.Transitions;
 import java.util.ArrayList;
 import java.util.List;
 
 /**
  * The rules a scenario must meet to be planned, beyond the file format's: whole-second durations (and
  * flexible minimum exposures and steps), priorities and values the integer objective can hold (at most
- * {@link Task#MAX_PRIORITY}), and no flexible exposure with time-dependent transitions. One owner: the
+ * {@link Task#MAX_PRIORITY}). One owner: the
  * planner, {@code inspect} and {@code replan} all apply these, so "valid" means the same everywhere.
  * Every problem is reported at once, with its JSON path, as a {@link ScenarioException}.
  */
@@ -66,29 +65,6 @@ public final class InputRules {
         problems.add(new Problem(path + ".utility[" + q + "][1]", "the planner takes values up to 1e9 (was " + v
             + ")", Double.toString(v)));
       }
-    }
-  }
-
-  /** Flexible requests need time-independent transitions (the model's time buckets hold one duration). */
-  static void checkTransitions(Scenario s, Transitions transitions, String source) {
-    if (!transitions.timeDependent()) {
-      return;
-    }
-    List<Problem> problems = new ArrayList<>();
-    for (int i = 0; i < s.requests().size(); i++) {
-      Request r = s.requests().get(i);
-      if (r.isFlexible()) {
-        problems.add(new Problem("requests[" + i + "] (id \"" + r.id() + "\").minDurationS", "flexible exposures need "
-            + "time-independent transitions (fixed, matrix, or eigenaxis between fixed RA/Dec targets); this "
-            + "scenario's transitions depend on time" + (s.slew().keepOutDuringSlew()
-            && s.observer() instanceof dev.sequencer.model.OrbitObserver && s.constraints() != null
-            && s.constraints().earthLimbMinDeg() != null
-            ? " (the Earth-limb keep-out during slews moves with the orbit; \"slew\": {\"keepOutDuringSlew\": false} "
-            + "turns it off)" : ""), null));
-      }
-    }
-    if (!problems.isEmpty()) {
-      throw new ScenarioException(source, problems);
     }
   }
 }

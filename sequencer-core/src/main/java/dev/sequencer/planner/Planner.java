@@ -115,7 +115,6 @@ public final class Planner {
     InputRules.check(s, "scenario");
     preloadSolver();
     Geometry g = geometry(s, ctx);
-    InputRules.checkTransitions(s, g.transitions(), "scenario");
     PlanningProblem problem = PlanningProblem.of(s, g.windows(), g.transitions());
     PlanValidator validator = validator(g, ctx);
     SequencerResult result = new Sequencer().plan(problem,
@@ -166,7 +165,6 @@ public final class Planner {
     InputRules.check(s, "scenario");
     preloadSolver();
     Geometry g = geometry(s, ctx);
-    InputRules.checkTransitions(s, g.transitions(), "scenario");
     return new Prepared(g, PlanningProblem.of(s, g.windows(), g.transitions()), validator(g, ctx));
   }
 
@@ -180,7 +178,6 @@ public final class Planner {
     InputRules.check(s, "scenario");
     preloadSolver();
     Geometry g = geometry(s, ctx);
-    InputRules.checkTransitions(s, g.transitions(), "scenario");
     PlanningProblem problem = PlanningProblem.of(s, g.windows(), g.transitions());
     ReplanOptions o = options.withSequencer(options.sequencer().withClock(clock)).withValidator(validator(g, ctx));
     ReplanResult r = new Replanner().replan(problem, previous, now, done, failed, o);

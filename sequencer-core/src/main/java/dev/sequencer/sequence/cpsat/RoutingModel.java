@@ -416,19 +416,20 @@ public final class RoutingModel {
 
     /**
      * Adds, per bucket pair (q of A, r of B): next[A->B] and inBucket[A][q] and inBucket[B][r] imply
-     * startS[B] >= startS[A] + dur(A) + cost_qr(A, B); an impossible pair is forbidden outright.
+     * startS[B] >= endS[A] + cost_qr(A, B) (endS = startS + dur for a fixed request, the exposure's end for a
+     * flexible one, whose bucket costs cover every exposure); an impossible pair is forbidden outright.
      */
     private void addBucketedTransition(int a, int b, Literal lit, long baseCost) {
       List<BoolVar> ya = new ArrayList<>(inBucket.get(a).values());
       List<BoolVar> yb = new ArrayList<>(inBucket.get(b).values());
       long[][] c = bucketCosts(a, b);
-      LinearExpr gap = LinearExpr.newBuilder().add(startS.get(b)).addTerm(startS.get(a), -1).build();
       for (int i = 0; i < ya.size(); i++) {
         for (int j = 0; j < yb.size(); j++) {
           if (c[i][j] < 0) {
             model.addBoolOr(new Literal[] {lit.not(), ya.get(i).not(), yb.get(j).not()});
           } else if (c[i][j] > baseCost) {
-            model.addGreaterOrEqual(gap, dur(a) + c[i][j]).onlyEnforceIf(new Literal[] {lit, ya.get(i), yb.get(j)});
+            model.addGreaterOrEqual(startS.get(b), endPlus(a, c[i][j]))
+                .onlyEnforceIf(new Literal[] {lit, ya.get(i), yb.get(j)});
           }
         }
       }

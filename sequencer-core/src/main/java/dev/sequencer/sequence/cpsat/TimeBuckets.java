@@ -90,13 +90,13 @@ public final class TimeBuckets {
   /**
    * Whole seconds bounding the transition from request {@code from} (or {@link Transitions#START}) to
    * {@code to} when the start of {@code from} lies in [fromLo, fromHi] (so it ends in that range plus
-   * its duration; for START, {@code fromLo = fromHi} is the departure itself) and the start of {@code to}
-   * in [toLo, toHi]; {@link #IMPOSSIBLE} when no such pair of times can hold the transition.
+   * its duration — for a flexible request, plus its shortest to its longest exposure; for START,
+   * {@code fromLo = fromHi} is the departure itself) and the start of {@code to} in [toLo, toHi];
+   * {@link #IMPOSSIBLE} when no such pair of times can hold the transition.
    */
   long cost(int from, long fromLo, long fromHi, int to, long toLo, long toHi) {
-    long dur = from == Transitions.START ? 0 : problem.task(from).durationS();
-    long depMin = fromLo + dur;
-    long depMax = fromHi + dur;
+    long depMin = fromLo + (from == Transitions.START ? 0 : problem.task(from).durationS());
+    long depMax = fromHi + (from == Transitions.START ? 0 : problem.task(from).maxDurationS());
     if (toHi < depMin) {
       return IMPOSSIBLE;
     }
