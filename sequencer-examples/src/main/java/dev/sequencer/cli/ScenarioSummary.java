@@ -35,6 +35,7 @@ final class ScenarioSummary {
     out.add("constraints " + constraints(s.constraints()));
     out.addAll(ownConstraints(s, 10));
     out.add("slew        " + slew(s.slew()));
+    out.add("keep-outs   " + duringSlews(s));
     Map<String, Integer> kinds = new LinkedHashMap<>();
     double requested = 0;
     int required = 0;
@@ -78,6 +79,33 @@ final class ScenarioSummary {
     return union <= 0 ? String.format(Locale.ROOT, "observable  no request is ever observable (%.0f s requested)",
         requested) : String.format(Locale.ROOT, "observable  %.0f s in which some request is observable (the "
         + "constraints' time, e.g. darkness); requested %.0f s: %.0f%% of it", union, requested, 100 * requested / union);
+  }
+
+  /**
+   * Which keep-outs hold during slews (spec A3): the Sun's for every observer and, from orbit, the Earth
+   * limb's, for slews that follow a path (eigenaxis, alt-az); said plainly when off or when nothing applies.
+   */
+  static String duringSlews(Scenario s) {
+    boolean path = s.slew() instanceof SlewSettings.Eigenaxis || s.slew() instanceof SlewSettings.AltAz;
+    if (!path) {
+      return "during slews: none (a " + s.slew().model() + " slew has no path; the constraints hold during "
+          + "observations)";
+    }
+    if (!s.slew().keepOutDuringSlew()) {
+      return "during slews: off (\"keepOutDuringSlew\": false): a slew may pass through the Sun's keep-out";
+    }
+    List<String> on = new ArrayList<>();
+    dev.sequencer.model.Constraints c = s.constraints();
+    if (s.observer() != null && c != null && c.sunSeparationMinDeg() != null) {
+      on.add("Sun >= " + num(c.sunSeparationMinDeg()) + " deg");
+    }
+    if (s.observer() instanceof dev.sequencer.model.OrbitObserver && c != null && c.earthLimbMinDeg() != null
+        && s.slew() instanceof SlewSettings.Eigenaxis) {
+      on.add("Earth limb >= " + num(c.earthLimbMinDeg()) + " deg");
+    }
+    return on.isEmpty() ? "during slews: on, but the scenario sets no Sun separation"
+        + (s.observer() instanceof dev.sequencer.model.OrbitObserver ? " or Earth limb" : "") + " to keep"
+        : "during slews: " + String.join(", ", on) + " along every slew path (detours where needed)";
   }
 
   /** The slew model in the file's own terms. */

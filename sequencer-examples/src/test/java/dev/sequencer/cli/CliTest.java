@@ -57,6 +57,22 @@ class CliTest {
   }
 
   @Test
+  void inspectSaysWhichKeepOutsHoldDuringSlews(@TempDir Path dir) throws Exception {
+    // Spec A3: the keep-outs during slews are on by default; inspect says which, and says so when off.
+    Path leo = Path.of("src/main/resources/scenarios/leo-telescope-day.json");
+    Run on = run("inspect", leo.toString());
+    assertEquals(0, on.code(), on.out() + on.err());
+    assertTrue(on.out().contains("keep-outs   during slews: Sun >= 50 deg, Earth limb >= 20 deg along every slew "
+        + "path"), on.out());
+    Path off = dir.resolve("off.json");
+    Files.writeString(off, Files.readString(leo).replace("\"model\": \"eigenaxis\",",
+        "\"model\": \"eigenaxis\", \"keepOutDuringSlew\": false,"));
+    Run r = run("inspect", off.toString());
+    assertEquals(0, r.code(), r.out() + r.err());
+    assertTrue(r.out().contains("keep-outs   during slews: off"), r.out());
+  }
+
+  @Test
   void inspectBrokenScenarioListsEveryProblemWithPathAndExitsTwo(@TempDir Path dir) throws Exception {
     Path bad = dir.resolve("bad.json");
     Files.writeString(bad, "{\"format\":1,\"horizon\":{\"start\":\"2031-01-01T00:00:00Z\",\"end\":\"2030-01-01T00:00:00Z\"},"
