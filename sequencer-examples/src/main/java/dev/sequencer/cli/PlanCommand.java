@@ -149,14 +149,11 @@ final class PlanCommand implements Callable<Integer> {
    * slews took most of the limit, so the plan may hold far less than the same scenario with a longer limit.
    */
   static void warnIfBaselineCut(PrintWriter out, SequencerResult result) {
-    if (!result.stats().has(Note.Kind.BASELINE_CUT)) {
+    List<Note> cut = result.stats().notes().stream().filter(n -> n.kind() == Note.Kind.BASELINE_CUT).toList();
+    if (cut.isEmpty()) {
       return;
     }
-    for (Note n : result.stats().notes()) {
-      if (n.kind() == Note.Kind.BASELINE_CUT) {
-        out.println("warning: " + n.text());
-      }
-    }
+    cut.forEach(n -> out.println("warning: " + n.text()));
     out.println("warning: the time limit was too short for this scenario's baseline plan; raise --time-limit "
         + "(or use --reproducible, which has no wall-clock limit) for a fuller plan");
   }
