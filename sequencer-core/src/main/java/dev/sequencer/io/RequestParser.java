@@ -12,6 +12,7 @@ import dev.sequencer.model.Target;
 import dev.sequencer.model.TimeWindow;
 import dev.sequencer.model.Tle;
 import dev.sequencer.model.UtilityPoint;
+import dev.sequencer.model.Visits;
 import java.time.Instant;
 import java.util.ArrayList;
 import java.util.HashMap;
@@ -20,13 +21,13 @@ import java.util.Map;
 
 /**
  * Reads the {@code requests} array: ids, targets (checked against the observer kind), fixed or
- * flexible durations, priorities, allowed windows (clipped to the horizon with a warning) and the
- * request's own constraints.
+ * flexible durations, priorities, allowed windows (clipped to the horizon with a warning), the
+ * request's own constraints, its visits and configuration (A4, A5).
  */
 final class RequestParser {
   static final List<String> REQUEST =
       List.of("id", "target", "durationS", "priority", "required", "windows", "minDurationS", "maxDurationS",
-          "durationStepS", "utility", "constraints");
+          "durationStepS", "utility", "constraints", "visits", "configuration");
   static final List<String> FLEXIBLE = List.of("minDurationS", "maxDurationS", "durationStepS", "utility");
   static final List<String> TLE_TARGET = List.of("tle");
   static final List<String> EARTH_POINT = List.of("latitudeDeg", "longitudeDeg", "altitudeM");
@@ -104,10 +105,14 @@ final class RequestParser {
     Boolean required = f.bool("required", false);
     List<TimeWindow> windows = windows(f);
     ConstraintOverrides constraints = new ConstraintsParser(p).request(f, scenarioConstraints);
+    StructureParser structure = new StructureParser(p);
+    Visits visits = structure.visits(f);
+    String configuration = structure.configuration(f);
     if (id == null) {
       return null;
     }
-    return new Request(id, target, durationS, priority, Boolean.TRUE.equals(required), windows, flex, constraints);
+    return new Request(id, target, durationS, priority, Boolean.TRUE.equals(required), windows, flex, constraints,
+        visits, configuration);
   }
 
   private Target target(Fields f) {

@@ -6,12 +6,14 @@ import dev.sequencer.model.AzEl;
 import dev.sequencer.model.AzElPointing;
 import dev.sequencer.model.Constraints;
 import dev.sequencer.model.GroundSite;
+import dev.sequencer.model.Group;
 import dev.sequencer.model.KeplerianElements;
 import dev.sequencer.model.Observer;
 import dev.sequencer.model.OrbitObserver;
 import dev.sequencer.model.OrbitSpec;
 import dev.sequencer.model.Pointing;
 import dev.sequencer.model.RaDec;
+import dev.sequencer.model.Reconfiguration;
 import dev.sequencer.model.Refraction;
 import dev.sequencer.model.Request;
 import dev.sequencer.model.Scenario;
@@ -25,7 +27,8 @@ import java.util.List;
 /** Reads the scenario's top level, horizon, observer, constraints, start pointing and solver settings. */
 final class ScenarioParser {
   static final List<String> TOP =
-      List.of("format", "name", "horizon", "observer", "constraints", "slew", "startPointing", "requests", "solver");
+      List.of("format", "name", "horizon", "observer", "constraints", "slew", "startPointing", "requests", "solver",
+          "groups", "reconfiguration", "startConfiguration");
   static final List<String> HORIZON = List.of("start", "end");
   static final List<String> OBSERVER = List.of("ground", "orbit");
   static final List<String> GROUND = List.of("latitudeDeg", "longitudeDeg", "altitudeM", "horizonMask", "refraction");
@@ -65,10 +68,16 @@ final class ScenarioParser {
     List<Request> requests =
         requestNodes == null ? null : new RequestParser(p, horizon, kind[0], constraints).parse(requestNodes, top.path("requests"));
     SolverSettings solver = solver(top);
+    StructureParser structure = new StructureParser(p);
+    List<Group> groups = structure.groups(top, requests);
+    Reconfiguration reconfiguration = structure.reconfiguration(top);
+    String startConfiguration = top.text("startConfiguration", false);
+    structure.checkLabels(top, reconfiguration, startConfiguration == null ? "" : startConfiguration, requests);
     if (p.count() > 0) {
       return null;
     }
-    return new Scenario(format, name, horizon, observer, constraints, slew, startPointing, requests, solver);
+    return new Scenario(format, name, horizon, observer, constraints, slew, startPointing, requests, solver, groups,
+        reconfiguration, startConfiguration);
   }
 
   private TimeWindow horizon(Fields top) {

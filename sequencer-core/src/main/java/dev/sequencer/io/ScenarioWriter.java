@@ -14,7 +14,10 @@ import dev.sequencer.model.OrbitObserver;
 import dev.sequencer.model.OrbitingTarget;
 import dev.sequencer.model.Pointing;
 import dev.sequencer.model.RaDec;
+import dev.sequencer.model.Group;
+import dev.sequencer.model.Reconfiguration;
 import dev.sequencer.model.Request;
+import dev.sequencer.model.Visits;
 import dev.sequencer.model.Scenario;
 import dev.sequencer.model.SlewSettings;
 import dev.sequencer.model.SolverSettings;
@@ -55,6 +58,7 @@ public final class ScenarioWriter {
     if (s.solver() != null) {
       o.set("solver", solver(s.solver()));
     }
+    structure(s, o);
     return JsonOut.pretty(o);
   }
 
@@ -230,7 +234,63 @@ public final class ScenarioWriter {
     if (!r.constraints().isEmpty()) {
       o.set("constraints", constraints(r.constraints()));
     }
+    if (!r.visits().equals(Visits.ONCE)) {
+      Visits v = r.visits();
+      ObjectNode vo = o.putObject("visits");
+      vo.put("count", v.count());
+      vo.set("minSeparationS", JsonOut.number(v.minSeparationS()));
+      if (v.maxSeparationS() != null) {
+        vo.set("maxSeparationS", JsonOut.number(v.maxSeparationS()));
+      }
+      vo.put("onePerWindow", v.onePerWindow());
+      vo.put("allOrNothing", v.allOrNothing());
+    }
+    if (!r.configuration().isEmpty()) {
+      o.put("configuration", r.configuration());
+    }
     return o;
+  }
+
+  /** Groups, reconfiguration and start configuration (A5), when the scenario has them. */
+  private static void structure(Scenario s, ObjectNode o) {
+    if (!s.groups().isEmpty()) {
+      ArrayNode a = o.putArray("groups");
+      for (Group g : s.groups()) {
+        ObjectNode go = a.addObject();
+        go.put("id", g.id());
+        ArrayNode m = go.putArray("members");
+        g.members().forEach(m::add);
+        go.put("allOrNothing", g.allOrNothing());
+        go.put("ordered", g.ordered());
+        if (g.maxGapS() != null) {
+          go.set("maxGapS", JsonOut.number(g.maxGapS()));
+        }
+        if (g.sameResource()) {
+          go.put("sameResource", true);
+        }
+      }
+    }
+    Reconfiguration re = s.reconfiguration();
+    if (!re.equals(Reconfiguration.NONE)) {
+      ObjectNode ro = o.putObject("reconfiguration");
+      if (re.labels().isEmpty()) {
+        ro.set("seconds", JsonOut.number(re.constantS()));
+      } else {
+        ArrayNode l = ro.putArray("labels");
+        re.labels().forEach(l::add);
+        ArrayNode rows = ro.putArray("seconds");
+        for (double[] row : re.table()) {
+          ArrayNode r = rows.addArray();
+          for (double v : row) {
+            r.add(JsonOut.number(v));
+          }
+        }
+      }
+      ro.put("concurrentWithSlew", re.concurrentWithSlew());
+    }
+    if (!s.startConfiguration().isEmpty()) {
+      o.put("startConfiguration", s.startConfiguration());
+    }
   }
 
   /** Windows as [[start, end], ...]; shared with the windows file. */

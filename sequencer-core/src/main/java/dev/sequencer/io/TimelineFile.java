@@ -26,8 +26,8 @@ public final class TimelineFile {
   static final List<String> TOP = List.of("format", "status", "objective", "bound", "observations", "unscheduled");
   static final List<String> OBJECTIVE = List.of("priority", "slewSeconds");
   static final List<String> OBSERVATION =
-      List.of("id", "start", "end", "slewSeconds", "value", "state", "slewStart", "slewVia");
-  static final List<String> UNSCHEDULED = List.of("id", "reason");
+      List.of("id", "start", "end", "slewSeconds", "value", "state", "slewStart", "slewVia", "visit");
+  static final List<String> UNSCHEDULED = List.of("id", "reason", "visitsMissing");
   static final List<String> STATES = List.of(Observation.DONE, Observation.RUNNING, Observation.PLANNED);
 
   private TimelineFile() {}
@@ -47,6 +47,9 @@ public final class TimelineFile {
     for (Observation ob : t.observations()) {
       ObjectNode e = obs.addObject();
       e.put("id", ob.id());
+      if (ob.visit() != null) {
+        e.put("visit", ob.visit());
+      }
       e.put("start", JsonOut.instant(ob.start()));
       e.put("end", JsonOut.instant(ob.end()));
       e.set("slewSeconds", JsonOut.number(ob.slewSeconds()));
@@ -71,6 +74,9 @@ public final class TimelineFile {
       ObjectNode e = uns.addObject();
       e.put("id", u.id());
       e.put("reason", u.reason());
+      if (u.visitsMissing() != null) {
+        e.put("visitsMissing", u.visitsMissing());
+      }
     }
     return JsonOut.pretty(o);
   }
@@ -139,7 +145,8 @@ public final class TimelineFile {
         continue;
       }
       int before = p.count();
-      String id = id(f, "observations[" + i + "]", p, seen);
+      Integer visit = f.integer("visit", false, Range.closed(1, Integer.MAX_VALUE));
+      String id = id(f, "observations[" + i + "]", p, seen, visit == null ? "" : "#" + visit);
       Instant start = f.instant("start", true);
       Instant end = f.instant("end", true);
       Double slew = f.number("slewSeconds", true, Range.NON_NEGATIVE);
@@ -166,7 +173,7 @@ public final class TimelineFile {
         previousStart = start;
       }
       if (p.count() == before) {
-        out.add(new Observation(id, start, end, slew, value, state, slewStart, via));
+        out.add(new Observation(id, start, end, slew, value, state, slewStart, via, visit));
       }
     }
     return out;
@@ -209,21 +216,26 @@ public final class TimelineFile {
         continue;
       }
       int before = p.count();
-      String id = id(f, "unscheduled[" + i + "]", p, seen);
+      Integer missing = f.integer("visitsMissing", false, Range.closed(1, Integer.MAX_VALUE));
+      String id = id(f, "unscheduled[" + i + "]", p, seen, missing == null ? "" : "#unscheduled");
       String reason = f.text("reason", true);
       if (p.count() == before) {
-        out.add(new Unscheduled(id, reason));
+        out.add(new Unscheduled(id, reason, missing));
       }
     }
     return out;
   }
 
-  /** The entry's id, reported when missing, empty or already used elsewhere in the file. */
-  private static String id(Fields f, String where, Problems p, Map<String, String> seen) {
+  /**
+   * The entry's id, reported when missing, empty or already used elsewhere in the file; {@code part}
+   * tells entries of one request apart that may share its id (visits {@code "#2"}, the unscheduled entry of
+   * a request with visits missing).
+   */
+  private static String id(Fields f, String where, Problems p, Map<String, String> seen, String part) {
     JsonNode n = f.get("id", true);
     String id = n == null ? null : Values.id(n, f.path("id"), p);
     if (id != null) {
-      String first = seen.putIfAbsent(id, where);
+      String first = seen.putIfAbsent(id + part, where);
       if (first != null) {
         p.add(f.path("id"), "duplicate id, already used by " + first, id);
       }

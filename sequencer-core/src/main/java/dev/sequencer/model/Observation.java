@@ -13,9 +13,11 @@ import java.util.Objects;
  * departs ({@code null}: any departure within the gap that keeps the minima), and {@code slewVia} the
  * directions an eigenaxis slew passes through (empty: the direct great-circle arc); then the slew is a
  * chain of rest-to-rest legs through them and {@code slewSeconds} is the sum of the legs plus one settle.
+ * {@code visit} (A4): the visit number of a request observed several times (1, 2, … in time order),
+ * {@code null} otherwise. With configurations (A5) {@code slewSeconds} is the whole transition.
  */
 public record Observation(String id, Instant start, Instant end, double slewSeconds, Double value, String state,
-    Instant slewStart, List<RaDec> slewVia) {
+    Instant slewStart, List<RaDec> slewVia, Integer visit) {
   /** Re-planning states of the spec's extension. */
   public static final String DONE = "done";
   public static final String RUNNING = "running";
@@ -33,6 +35,20 @@ public record Observation(String id, Instant start, Instant end, double slewSeco
     if (slewStart != null && slewStart.isAfter(start)) {
       throw new IllegalArgumentException("observation " + id + ": slewStart " + slewStart + " is after start " + start);
     }
+    if (visit != null && visit < 1) {
+      throw new IllegalArgumentException("observation " + id + ": visit must be >= 1 (was " + visit + ")");
+    }
+  }
+
+  /** An observation that is not one of several visits. */
+  public Observation(String id, Instant start, Instant end, double slewSeconds, Double value, String state,
+      Instant slewStart, List<RaDec> slewVia) {
+    this(id, start, end, slewSeconds, value, state, slewStart, slewVia, null);
+  }
+
+  /** A copy with this visit number (A4; {@code null}: not one of several visits). */
+  public Observation withVisit(Integer newVisit) {
+    return new Observation(id, start, end, slewSeconds, value, state, slewStart, slewVia, newVisit);
   }
 
   /** An observation with no slew departure instant and a direct slew. */
@@ -42,7 +58,7 @@ public record Observation(String id, Instant start, Instant end, double slewSeco
 
   /** A copy with the slew's departure instant and waypoints (spec A3). */
   public Observation withSlew(Instant departure, List<RaDec> via) {
-    return new Observation(id, start, end, slewSeconds, value, state, departure, via);
+    return new Observation(id, start, end, slewSeconds, value, state, departure, via, visit);
   }
 
   /** A planned fixed-duration observation. */

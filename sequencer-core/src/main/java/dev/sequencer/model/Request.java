@@ -11,7 +11,8 @@ import java.util.Objects;
  * {@code null} only when the scenario has no observer. {@code windows} is empty when the file gives none
  * (then only the computed visibility limits the request). {@code constraints} holds the request's own
  * constraint fields, applied over the scenario's by {@link Scenario#constraintsFor}; never null
- * ({@link ConstraintOverrides#none()} when the file gives none).
+ * ({@link ConstraintOverrides#none()} when the file gives none). {@code visits} (A4) is {@link Visits#ONCE}
+ * when the file gives none; {@code configuration} (A5) is the instrument set-up label, {@code ""} by default.
  */
 public record Request(
     String id,
@@ -21,13 +22,23 @@ public record Request(
     boolean required,
     List<TimeWindow> windows,
     FlexibleExposure flexible,
-    ConstraintOverrides constraints) {
+    ConstraintOverrides constraints,
+    Visits visits,
+    String configuration) {
   public Request {
     Objects.requireNonNull(id, "id");
     Checks.finiteOrNull("durationS", durationS);
     Checks.finiteOrNull("priority", priority);
     windows = List.copyOf(windows);
     constraints = constraints == null ? ConstraintOverrides.none() : constraints;
+    visits = visits == null ? Visits.ONCE : visits;
+    configuration = configuration == null ? "" : configuration;
+  }
+
+  /** A request observed once, in the default configuration. */
+  public Request(String id, Target target, Double durationS, Double priority, boolean required,
+      List<TimeWindow> windows, FlexibleExposure flexible, ConstraintOverrides constraints) {
+    this(id, target, durationS, priority, required, windows, flexible, constraints, Visits.ONCE, "");
   }
 
   /** A request with no constraints of its own (it inherits the scenario's). */
@@ -43,17 +54,36 @@ public record Request(
 
   /** A copy with these allowed windows. */
   public Request withWindows(List<TimeWindow> newWindows) {
-    return new Request(id, target, durationS, priority, required, newWindows, flexible, constraints);
+    return new Request(id, target, durationS, priority, required, newWindows, flexible, constraints, visits, configuration);
   }
 
   /** A copy with the required flag set. */
   public Request withRequired(boolean newRequired) {
-    return new Request(id, target, durationS, priority, newRequired, windows, flexible, constraints);
+    return new Request(id, target, durationS, priority, newRequired, windows, flexible, constraints, visits,
+        configuration);
   }
 
   /** A copy with these constraint fields of its own. */
   public Request withConstraints(ConstraintOverrides newConstraints) {
-    return new Request(id, target, durationS, priority, required, windows, flexible, newConstraints);
+    return new Request(id, target, durationS, priority, required, windows, flexible, newConstraints, visits,
+        configuration);
+  }
+
+  /** A copy with these visits (A4). */
+  public Request withVisits(Visits newVisits) {
+    return new Request(id, target, durationS, priority, required, windows, flexible, constraints, newVisits,
+        configuration);
+  }
+
+  /** A copy with this configuration label (A5). */
+  public Request withConfiguration(String newConfiguration) {
+    return new Request(id, target, durationS, priority, required, windows, flexible, constraints, visits,
+        newConfiguration);
+  }
+
+  /** True when the request asks for more than one visit (A4). */
+  public boolean hasVisits() {
+    return visits.count() > 1 || visits.allOrNothing();
   }
 
   /** True for the flexible-exposure extension. */

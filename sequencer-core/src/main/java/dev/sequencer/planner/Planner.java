@@ -185,6 +185,7 @@ public final class Planner {
       Set<String> failed, ReplanOptions options) {
     Budget clock = Budget.startingNow(options.sequencer().timeLimitS());
     InputRules.check(s, "scenario");
+    InputRules.checkReplannable(s, "scenario");
     preloadSolver();
     Geometry g = geometry(s, ctx);
     PlanningProblem problem = PlanningProblem.of(s, g.windows(), g.transitions());

@@ -10,8 +10,9 @@ import dev.sequencer.sequence.timing.ExactTimer;
  * insertion search, every CP-SAT solution, every LNS round, the exposure moves, exact repair) offers its
  * plans here, and this is the only place that decides which one wins.
  *
- * <p>An offered plan is first timed exactly ({@link ExactTimer#compact}: earliest exact starts, or the
- * plan's own starts when its exact legs fit only there), then ranked by its {@link Score} with the exact
+ * <p>An offered plan is first timed exactly ({@link ExactTimer#timeKeepingRules}: earliest exact starts, or
+ * the plan's own starts when its exact legs fit only there, with what breaks a rule between tasks — visits,
+ * groups — left out), then ranked by its {@link Score} with the exact
  * legs. So the incumbent is always a plan that holds under the exact slews, progress reports the plan the
  * run would return, and the returned plan is never worse than any plan reported during the run. A plan
  * that cannot beat the incumbent on its required requests and prize alone is rejected before timing.
@@ -52,13 +53,7 @@ final class Incumbent {
         return false; // timing can only keep or lose observations: it cannot beat the incumbent
       }
     }
-    ExactTimer.Timed timed = timer.compact(plan);
-    if (timed.dropped().length > 0) {
-      ExactTimer.Timed asGiven = timer.verify(plan);
-      if (asGiven != null && asGiven.score(problem).betterThan(timed.score(problem))) {
-        timed = asGiven;
-      }
-    }
+    ExactTimer.Timed timed = timer.timeKeepingRules(plan);
     Score score = timed.score(problem);
     if (best != null && !score.betterThan(best.score())) {
       return false;

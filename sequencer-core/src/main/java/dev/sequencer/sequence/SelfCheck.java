@@ -1,6 +1,7 @@
 package dev.sequencer.sequence;
 
 import dev.sequencer.model.FlexibleExposure;
+import dev.sequencer.model.Group;
 import dev.sequencer.model.Observation;
 import dev.sequencer.model.Request;
 import dev.sequencer.model.RequestWindows;
@@ -9,7 +10,9 @@ import dev.sequencer.model.TimeWindow;
 import dev.sequencer.model.Timeline;
 import dev.sequencer.model.Unscheduled;
 import dev.sequencer.slew.Transitions;
+import dev.sequencer.validate.RequestRules;
 import dev.sequencer.validate.TimelineCheck;
+import dev.sequencer.validate.Violation;
 import java.time.Duration;
 import java.time.Instant;
 import java.util.ArrayList;
@@ -34,8 +37,9 @@ import org.slf4j.LoggerFactory;
  * value there); observations in time order without overlap; each gap (from the previous end, or from
  * the horizon start for the first) at least the exact transition recomputed with
  * {@link Transitions#exactS} at the plan's own departure times; each reported {@code slewSeconds} equal
- * to that exact transition; every required request observed; every request exactly once (observed or
- * unscheduled) and no unknown ids; totals (priority, slew seconds) equal to the sums.
+ * to that exact transition; every required request observed; every request listed as the format says
+ * (observed once or up to its visits, unscheduled when some visit is missing) with the visits' and groups'
+ * rules ({@link RequestRules}, with the planner's windows for one-per-window) and no unknown ids; totals (priority, slew seconds) equal to the sums.
  *
  * <p>Tolerance {@link #TOLERANCE_S} = 1 ms on every time comparison: timeline instants are exact to the
  * nanosecond, but transition models are floating-point and the sequencer works in whole seconds with a
@@ -60,6 +64,7 @@ public final class SelfCheck implements TimelineCheck {
   private final Transitions transitions;
   private final Instant now;
   private final boolean checkRequired;
+  private final List<Group> groups;
 
   /**
    * A validator for these requests (scenario order = transition index), their visibility windows
@@ -67,11 +72,18 @@ public final class SelfCheck implements TimelineCheck {
    */
   public SelfCheck(TimeWindow horizon, List<Request> requests, List<RequestWindows> windows,
       Transitions transitions) {
-    this(horizon, requests, windows, transitions, null, true);
+    this(horizon, requests, List.of(), windows, transitions, null, true);
   }
 
-  private SelfCheck(TimeWindow horizon, List<Request> requests, List<RequestWindows> windows,
+  /** As {@link #SelfCheck(TimeWindow, List, List, Transitions)}, with the scenario's groups (A5). */
+  public SelfCheck(TimeWindow horizon, List<Request> requests, List<Group> groups, List<RequestWindows> windows,
+      Transitions transitions) {
+    this(horizon, requests, groups, windows, transitions, null, true);
+  }
+
+  private SelfCheck(TimeWindow horizon, List<Request> requests, List<Group> groups, List<RequestWindows> windows,
       Transitions transitions, Instant now, boolean checkRequired) {
+    this.groups = List.copyOf(groups);
     this.now = now;
     this.checkRequired = checkRequired;
     this.horizon = Objects.requireNonNull(horizon, "horizon");
@@ -96,7 +108,8 @@ public final class SelfCheck implements TimelineCheck {
   public SelfCheck withNow(Instant newNow) {
     List<RequestWindows> w = new ArrayList<>();
     windows.forEach((id, list) -> w.add(new RequestWindows(id, list)));
-    return new SelfCheck(horizon, requests, w, transitions, Objects.requireNonNull(newNow, "now"), checkRequired);
+    return new SelfCheck(horizon, requests, groups, w, transitions, Objects.requireNonNull(newNow, "now"),
+        checkRequired);
   }
 
   /**
@@ -107,7 +120,7 @@ public final class SelfCheck implements TimelineCheck {
   public SelfCheck withRequiredIgnored() {
     List<RequestWindows> w = new ArrayList<>();
     windows.forEach((id, list) -> w.add(new RequestWindows(id, list)));
-    return new SelfCheck(horizon, requests, w, transitions, now, false);
+    return new SelfCheck(horizon, requests, groups, w, transitions, now, false);
   }
 
   /** All violations of {@code timeline}; empty when it is valid. */
@@ -166,25 +179,25 @@ public final class SelfCheck implements TimelineCheck {
   }
 
   private void checkOncePerRequest(Timeline timeline, List<String> out) {
-    Map<String, Integer> count = new HashMap<>();
     for (Observation o : timeline.observations()) {
-      count.merge(o.id(), 1, Integer::sum);
       if (!index.containsKey(o.id())) {
         out.add("observation " + o.id() + ": unknown request id");
       }
     }
     for (Unscheduled u : timeline.unscheduled()) {
-      count.merge(u.id(), 1, Integer::sum);
       if (!index.containsKey(u.id())) {
         out.add("unscheduled " + u.id() + ": unknown request id");
       }
     }
-    for (Request r : requests) {
-      int c = count.getOrDefault(r.id(), 0);
-      if (c != 1) {
-        out.add("request " + r.id() + " appears " + c + " times in observations and unscheduled (must be exactly once)");
-      }
+    RequestRules rules = new RequestRules(requests, groups, this::sameWindow, checkRequired);
+    for (Violation v : rules.check(timeline)) {
+      out.add(v.message());
     }
+  }
+
+  /** One of the planner's windows of r holds both observations and everything between them. */
+  private boolean sameWindow(Request r, Observation first, Observation second) {
+    return windows.getOrDefault(r.id(), List.of()).stream().anyMatch(w -> w.contains(first.start(), second.end()));
   }
 
   /** With a re-planning instant: done/running observations start by it, planned ones at or after it. */

@@ -2,6 +2,7 @@ package dev.sequencer.sequence;
 
 import com.google.ortools.sat.CpSolverStatus;
 import dev.sequencer.model.PlanStatus;
+import dev.sequencer.model.Request;
 import dev.sequencer.model.Unscheduled;
 import dev.sequencer.sequence.Incumbent.Source;
 import dev.sequencer.sequence.SequencerResult.Planned;
@@ -607,8 +608,10 @@ public final class Sequencer {
         Task t = problem.task(plan.order()[q]);
         long s = plan.startS()[q];
         long e = plan.endS(q);
-        planned.add(new Planned(t.id(), problem.instant(s), problem.instant(e), s, e, timed.legS()[q],
-            t.flexible() ? plan.value(problem, q) : null));
+        int k = plan.order()[q];
+        boolean visits = problem.requests().get(problem.structure().requestOf(k)).hasVisits();
+        planned.add(new Planned(problem.requestId(k), problem.instant(s), problem.instant(e), s, e, timed.legS()[q],
+            t.flexible() ? plan.value(problem, q) : null, visits ? problem.structure().visitOf(k) : null));
       }
       note(Note.Kind.SOURCE, "returned plan found by " + best.source().name().toLowerCase(Locale.ROOT).replace('_', ' ')
           + ".");
@@ -640,20 +643,26 @@ public final class Sequencer {
     /** The one validation of the returned plan: a violation is a bug, and no invalid plan is handed out. */
     private void check(SequencerResult result) {
       ResultCheck v = options.validator() != null ? options.validator() : ResultCheck.of(
-          new SelfCheck(problem.horizon(), problem.requests(), problem.windows(), problem.transitions()));
+          new SelfCheck(problem.horizon(), problem.requests(), problem.groups(), problem.windows(),
+              problem.requestTransitions()));
       List<String> violations = v.violations(result);
       if (!violations.isEmpty()) {
         throw new IllegalStateException("the sequencer produced an invalid plan (a bug): " + violations);
       }
     }
 
-    /** Each request left out, with its reason; "lost to conflicts" only for requests exact repair could not insert. */
+    /**
+     * Each request left out, with its reason; "lost to conflicts" only for requests exact repair could not
+     * insert. A request with visits (A4) is listed once, with the visits it misses, when any is missing.
+     */
     private List<Unscheduled> unscheduled(ExactTimer.Timed timed) {
       boolean[] in = timed.plan().membership(problem.size());
       java.util.Set<Integer> failed = repaired == null ? java.util.Set.of() : new java.util.HashSet<>(repaired.failed());
       java.util.Set<Integer> noGain = repaired == null ? java.util.Set.of() : new java.util.HashSet<>(repaired.noGain());
       ExactRepair reasons = new ExactRepair(problem, timer);
       List<Unscheduled> out = new ArrayList<>();
+      java.util.Map<Integer, Integer> missing = new java.util.LinkedHashMap<>();
+      java.util.Map<Integer, String> why = new java.util.HashMap<>();
       for (int k = 0; k < problem.size(); k++) {
         Task t = problem.task(k);
         if (in[k]) {
@@ -669,8 +678,13 @@ public final class Sequencer {
         } else {
           reason = Reasons.NOT_RECHECKED;
         }
-        out.add(new Unscheduled(t.id(), reason));
+        int r = problem.structure().requestOf(k);
+        if (missing.merge(r, 1, Integer::sum) == 1) {
+          why.put(r, Reasons.withRules(problem, k, timed.plan(), reason));
+        }
       }
+      missing.forEach((r, n) -> out.add(new Unscheduled(problem.requests().get(r).id(), why.get(r),
+          problem.requests().get(r).hasVisits() ? n : null)));
       return out;
     }
 
@@ -681,8 +695,15 @@ public final class Sequencer {
 
     private List<Unscheduled> all(String reason) {
       List<Unscheduled> out = new ArrayList<>();
-      for (Task t : problem.tasks()) {
-        out.add(new Unscheduled(t.id(), t.schedulable() ? reason : t.emptyReason()));
+      java.util.Set<Integer> listed = new java.util.HashSet<>();
+      for (int k = 0; k < problem.size(); k++) {
+        Task t = problem.task(k);
+        int r = problem.structure().requestOf(k);
+        if (listed.add(r)) {
+          Request q = problem.requests().get(r);
+          out.add(new Unscheduled(q.id(), t.schedulable() ? reason : t.emptyReason(),
+              q.hasVisits() ? q.visits().count() : null));
+        }
       }
       return out;
     }

@@ -39,10 +39,16 @@ public record SequencerResult(
 
   /**
    * One scheduled request: start and end (instants and seconds from the horizon start), the exact
-   * transition before it and, for a flexible request, the value collected ({@code null} otherwise).
+   * transition before it, for a flexible request the value collected ({@code null} otherwise) and, for a
+   * request with visits (A4), the visit number (1, 2, … in time order; {@code null} otherwise).
    */
   public record Planned(String id, Instant start, Instant end, long startS, long endS, double transitionS,
-      Double value) {}
+      Double value, Integer visit) {
+    /** A request observed once. */
+    public Planned(String id, Instant start, Instant end, long startS, long endS, double transitionS, Double value) {
+      this(id, start, end, startS, endS, transitionS, value, null);
+    }
+  }
 
   /**
    * Statistics: arcs kept in the main model and arcs that are time-feasible at all, model build and solve
@@ -120,7 +126,7 @@ public record SequencerResult(
   public Timeline toTimeline() {
     List<Observation> obs = new ArrayList<>();
     for (Planned p : observations) {
-      obs.add(new Observation(p.id(), p.start(), p.end(), p.transitionS(), p.value(), null));
+      obs.add(new Observation(p.id(), p.start(), p.end(), p.transitionS(), p.value(), null).withVisit(p.visit()));
     }
     Double bound = Double.isNaN(boundPriority) ? null : boundPriority;
     return new Timeline(status, totalPriority, totalTransitionS, bound, obs, unscheduled);

@@ -29,13 +29,15 @@ import org.slf4j.LoggerFactory;
  * scales, Earth frames, and its Sun and Moon series, since the offline Orekit context has no JPL files) and
  * Orekit itself.
  *
- * <p>Checks, each reported as a {@link Violation} of its {@link Kind}: every request exactly once (observed
- * or unscheduled) and no unknown ids; every observation inside the horizon and inside one of the request's
+ * <p>Checks, each reported as a {@link Violation} of its {@link Kind}: every request listed as the format
+ * says (observed once, or up to its visits, and unscheduled when some visit is missing: {@link RequestRules},
+ * which also checks the visits' and groups' rules) and no unknown ids; every observation inside the horizon and inside one of the request's
  * own {@code windows}; its duration the request's (flexible requests: a grid exposure in [min, max] carrying
  * the curve's value); observations in time order without overlap; every constraint of the request at the
  * observation's start, end, every 5 s between and at the margins' local minima ({@link ObservationCheck});
- * each gap at least the slew the validator computes from the previous observation's end pointing (or the
- * start pointing) to the next one's start pointing, and each {@code slewSeconds} equal to it; the alt-az
+ * each gap at least the transition (the slew the validator computes from the previous observation's end pointing (or the
+ * start pointing) to the next one's start pointing, with the configuration change of A5), and each
+ * {@code slewSeconds} equal to it; the alt-az
  * cable wrap; {@code slewStart} inside its gap; the keep-outs along every slew (A3, {@link SlewKeepOut});
  * every required request observed; the totals equal the sums.
  *
@@ -175,26 +177,32 @@ public final class PlanValidator implements TimelineCheck {
   }
 
   private void checkOncePerRequest(Timeline timeline, List<Violation> out) {
-    Map<String, Integer> count = new HashMap<>();
     for (Observation o : timeline.observations()) {
-      count.merge(o.id(), 1, Integer::sum);
       if (!byId.containsKey(o.id())) {
         out.add(Violation.of(Kind.UNKNOWN_REQUEST, o.id(), o.start(), "observation " + o.id() + ": unknown request id"));
       }
     }
     for (Unscheduled u : timeline.unscheduled()) {
-      count.merge(u.id(), 1, Integer::sum);
       if (!byId.containsKey(u.id())) {
         out.add(Violation.of(Kind.UNKNOWN_REQUEST, u.id(), null, "unscheduled " + u.id() + ": unknown request id"));
       }
     }
-    for (Request r : scenario.requests()) {
-      int c = count.getOrDefault(r.id(), 0);
-      if (c != 1) {
-        out.add(Violation.of(Kind.NOT_LISTED_ONCE, r.id(), null, c, 1, "request " + r.id() + " appears " + c
-            + " times in observations and unscheduled (must be exactly once)"));
-      }
+    RequestRules rules = new RequestRules(scenario.requests(), scenario.groups(), this::sameWindow, checkRequired);
+    out.addAll(rules.check(timeline));
+  }
+
+  /**
+   * Two observations of {@code r} lie in one visibility window when every constraint of the request holds
+   * from the first one's start to the second one's end (sampled and refined as inside an observation,
+   * {@link ObservationCheck}) and one of the request's own windows holds that whole interval. A dip out of
+   * visibility shorter than the sampling can resolve would count as the same window: the check errs on the
+   * side of reporting.
+   */
+  private boolean sameWindow(Request r, Observation first, Observation second) {
+    if (!r.windows().isEmpty() && r.windows().stream().noneMatch(w -> w.contains(first.start(), second.end()))) {
+      return false;
     }
+    return new ObservationCheck(sky).violations(r, first.start(), second.end()).isEmpty();
   }
 
   /** With a re-planning instant: done/running observations start by it, planned ones at or after it. */
@@ -301,14 +309,19 @@ public final class PlanValidator implements TimelineCheck {
       }
       Instant gapStart = k == 0 ? scenario.horizon().start() : obs.get(k - 1).end();
       double gap = seconds(gapStart, o.start());
-      if (gap < leg.seconds() - TOLERANCE_S) {
-        out.add(Violation.of(Kind.GAP_TOO_SHORT, o.id(), o.start(), gap, leg.seconds(), String.format(Locale.ROOT,
-            "observation %s: gap after %s is %.3f s, shorter than the slew %.3f s", o.id(), from, gap, leg.seconds())));
+      String fromConfiguration = k == 0 ? scenario.startConfiguration() : req.get(k - 1).configuration();
+      double change = RequestRules.changeS(scenario.reconfiguration(), fromConfiguration, req.get(k).configuration());
+      double transition = RequestRules.transitionS(scenario.reconfiguration(), leg.seconds(), change);
+      String what = change > 0 ? String.format(Locale.ROOT, "the transition (slew %.3f s, configuration change "
+          + "%.3f s)", leg.seconds(), change) : "the slew";
+      if (gap < transition - TOLERANCE_S) {
+        out.add(Violation.of(Kind.GAP_TOO_SHORT, o.id(), o.start(), gap, transition, String.format(Locale.ROOT,
+            "observation %s: gap after %s is %.3f s, shorter than %s %.3f s", o.id(), from, gap, what, transition)));
       }
-      if (Math.abs(o.slewSeconds() - leg.seconds()) > TOLERANCE_S) {
-        out.add(Violation.of(Kind.SLEW_SECONDS, o.id(), o.start(), o.slewSeconds(), leg.seconds(), String.format(
-            Locale.ROOT, "observation %s: slewSeconds is %.3f, but the slew from %s takes %.3f s", o.id(),
-            o.slewSeconds(), from, leg.seconds())));
+      if (Math.abs(o.slewSeconds() - transition) > TOLERANCE_S) {
+        out.add(Violation.of(Kind.SLEW_SECONDS, o.id(), o.start(), o.slewSeconds(), transition, String.format(
+            Locale.ROOT, "observation %s: slewSeconds is %.3f, but %s from %s takes %.3f s", o.id(),
+            o.slewSeconds(), what, from, transition)));
       }
       if (o.slewStart() != null && (o.slewStart().isBefore(gapStart.minusNanos((long) (TOLERANCE_S * 1e9)))
           || seconds(o.slewStart(), o.start()) < leg.seconds() - TOLERANCE_S)) {

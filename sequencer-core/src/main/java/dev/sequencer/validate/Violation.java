@@ -86,7 +86,23 @@ public record Violation(Kind kind, String requestId, Instant instant, double val
     /** Keep-outs during slews (A3): the slew's path comes closer to the Sun than sunSeparationMinDeg. */
     SLEW_SUN_SEPARATION("deg"),
     /** Keep-outs during slews (A3): the slew's path comes closer to the Earth's limb than earthLimbMinDeg. */
-    SLEW_EARTH_LIMB("deg");
+    SLEW_EARTH_LIMB("deg"),
+    /** Visits (A4): more observations than visits.count, a missing or wrong visit number, or visits of a request observed once. */
+    VISIT_COUNT(""),
+    /** Visits (A4): a visit starts too soon or too late after the previous visit's start (value and limit: seconds). */
+    VISIT_SEPARATION("s"),
+    /** Visits (A4): two visits in one visibility window when onePerWindow. */
+    VISIT_SAME_WINDOW(""),
+    /** Visits (A4): some but not all visits of an all-or-nothing request, or of a required one (value: visits held). */
+    VISITS_INCOMPLETE(""),
+    /** Visits (A4): a request with visits missing is not listed as unscheduled with the right visitsMissing. */
+    VISITS_MISSING_LISTED(""),
+    /** Groups (A5): an all-or-nothing group with some members (or visits) scheduled and some not. */
+    GROUP_INCOMPLETE(""),
+    /** Groups (A5): an ordered group's member starts before the previous scheduled member ends (value: seconds early). */
+    GROUP_ORDER("s"),
+    /** Groups (A5): an ordered group's member starts more than maxGapS after the previous member's end (value, limit: s). */
+    GROUP_GAP("s");
 
     private final String unit;
 

@@ -115,11 +115,12 @@ final class PlanCommand implements Callable<Integer> {
   static void print(PrintWriter out, SequencerResult result, Timeline t, List<RequestVisibility> visibility) {
     out.printf(Locale.ROOT, "%-12s %-24s %-24s %8s %8s%n", "id", "start", "end", "dur [s]", "slew [s]");
     for (Observation o : t.observations()) {
-      out.printf(Locale.ROOT, "%-12s %-24s %-24s %8.0f %8.1f%n", o.id(), o.start(), o.end(), o.durationS(),
-          o.slewSeconds());
+      out.printf(Locale.ROOT, "%-12s %-24s %-24s %8.0f %8.1f%n", o.visit() == null ? o.id() : o.id() + " #" + o.visit(),
+          o.start(), o.end(), o.durationS(), o.slewSeconds());
     }
     for (Unscheduled u : t.unscheduled()) {
-      out.printf(Locale.ROOT, "%-12s not scheduled: %s%n", u.id(), Explained.of(u, visibility));
+      out.printf(Locale.ROOT, "%-12s %s: %s%n", u.id(), u.visitsMissing() == null ? "not scheduled"
+          : u.visitsMissing() + " visit(s) not scheduled", Explained.of(u, visibility));
     }
     double busy = t.observations().stream().mapToDouble(o -> o.durationS() + o.slewSeconds()).sum();
     double span = t.observations().isEmpty() ? 0

@@ -16,12 +16,13 @@ import java.util.Optional;
  * start and end (ISO-8601 UTC), duration and transition before it (seconds), priority, and the pointing at
  * the start (RA/Dec, and azimuth/elevation at a ground site; empty cells where {@link PlanGeometry} gives
  * none), the start and end again as "yyyy-MM-dd HH:mm:ss" UTC (which spreadsheets parse as dates), then one
- * line per unscheduled request with its reason. Comma separated, '.' decimals; fields containing a comma,
+ * line per unscheduled request with its reason; last the visit number (A4; for an unscheduled request with
+ * visits, how many are missing), the configuration label and the group (A5). Comma separated, '.' decimals; fields containing a comma,
  * quote or line break are quoted (RFC 4180).
  */
 final class PlanCsv {
   static final String HEADER = "id,start,end,duration_s,transition_before_s,priority,ra_deg,dec_deg,azimuth_deg,elevation_deg,"
-      + "start_utc,end_utc,scheduled,reason";
+      + "start_utc,end_utc,scheduled,reason,visit,visits_missing,configuration,group";
   /** "2031-10-14 18:02:11": the form spreadsheets read as a date and time (ISO-8601's 'T' and 'Z' they often do not). */
   private static final java.time.format.DateTimeFormatter SHEET = java.time.format.DateTimeFormatter
       .ofPattern("yyyy-MM-dd HH:mm:ss", Locale.ROOT).withZone(java.time.ZoneOffset.UTC);
@@ -51,14 +52,24 @@ final class PlanCsv {
           .append(rd.map(p -> num(p.decDeg(), 5)).orElse("")).append(',')
           .append(ae.map(p -> num(p.azimuthDeg(), 4)).orElse("")).append(',')
           .append(ae.map(p -> num(p.elevationDeg(), 4)).orElse("")).append(',')
-          .append(SHEET.format(o.start())).append(',').append(SHEET.format(o.end())).append(",yes,\n");
+          .append(SHEET.format(o.start())).append(',').append(SHEET.format(o.end())).append(",yes,,")
+          .append(o.visit() == null ? "" : o.visit().toString()).append(",,").append(structure(g, o.id())).append('\n');
     }
     for (dev.sequencer.model.Unscheduled u : t.unscheduled()) {
       Double priority = g.scenario().request(u.id()).map(Request::priority).orElse(null);
       b.append(quote(u.id())).append(",,,,,").append(priority == null ? "" : num(priority, 6)).append(",,,,,,,no,")
-          .append(quote(reasons.getOrDefault(u.id(), u.reason()))).append('\n');
+          .append(quote(reasons.getOrDefault(u.id(), u.reason()))).append(",,")
+          .append(u.visitsMissing() == null ? "" : u.visitsMissing().toString()).append(',').append(structure(g, u.id()))
+          .append('\n');
     }
     return b.toString();
+  }
+
+  /** The request's configuration label and group id (A5), as two cells. */
+  private static String structure(PlanGeometry g, String id) {
+    String configuration = g.scenario().request(id).map(Request::configuration).orElse("");
+    String group = g.scenario().groupOf(id).map(dev.sequencer.model.Group::id).orElse("");
+    return quote(configuration) + "," + quote(group);
   }
 
   /** Writes the CSV to {@code file} atomically (temporary file, then move). */

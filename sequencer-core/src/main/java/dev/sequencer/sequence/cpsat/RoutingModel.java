@@ -18,6 +18,7 @@ import dev.sequencer.sequence.problem.PlanningProblem;
 import dev.sequencer.sequence.problem.Prizes;
 import dev.sequencer.sequence.problem.Span;
 import dev.sequencer.sequence.problem.StartRange;
+import dev.sequencer.sequence.problem.Structure;
 import dev.sequencer.sequence.problem.Task;
 import dev.sequencer.sequence.timing.ArcCosts;
 import dev.sequencer.slew.Transitions;
@@ -185,6 +186,7 @@ public final class RoutingModel {
       this.buckets = TimeBuckets.wanted(problem, spec.nodes().length) && bucketsPerRequest > 1 ? new TimeBuckets(problem)
           : null;
       addVariables();
+      addStructure();
       addCircuitWithTransitions();
       addRedundantNoOverlap();
       if (flex.stream().anyMatch(java.util.Objects::nonNull)) {
@@ -437,6 +439,160 @@ public final class RoutingModel {
 
     private long earliest(int a) {
       return domains.get(a)[0][0];
+    }
+
+    /**
+     * Adds the rules between tasks ({@link Structure}, format additions A4 and A5), each exactly:
+     * <ul>
+     * <li>visits v and v + 1 of one request: present[v+1] ⇒ present[v] (symmetry break: the visits held are
+     * the first ones) and, when both are present, startS[v+1] ≥ startS[v] + minSeparationS and
+     * startS[v+1] ≤ startS[v] + maxSeparationS; all-or-nothing visits: present[v] = present[1];
+     * one per window: a literal per (visit, span) that holds the whole observation, exactly one of them
+     * when present, and at most one visit per span;</li>
+     * <li>all-or-nothing groups: every member task's presence equals the first member's;</li>
+     * <li>ordered groups: for members i &lt; j both present, startS[j] ≥ endS[i]; with a maximum gap,
+     * startS[j] ≤ endS[i] + maxGapS when i and j are present and no member between them is.</li>
+     * </ul>
+     * The rules only restrict which plans are feasible; the objective is untouched, so the lexicographic
+     * objective stays exact. In the whole problem a task without a start (not in the model) is absent;
+     * in a slice of the timeline (the large-neighbourhood search) a rule that reaches a task outside the
+     * slice is left out, and the incumbent ({@link Structure#prune}) keeps the rules of what the slice
+     * returns.
+     */
+    private void addStructure() {
+      Structure st = problem.structure();
+      if (st.isEmpty()) {
+        return;
+      }
+      java.util.Map<Integer, Integer> pos = new java.util.HashMap<>();
+      for (int a = 0; a < nodes.size(); a++) {
+        pos.put(nodes.get(a), a);
+      }
+      boolean whole = spec.from() == Transitions.START && spec.to() < 0 && spec.departS() == 0;
+      for (Structure.VisitRule rule : st.visits()) {
+        Literal[] p = presence(rule.tasks(), pos, whole);
+        if (p == null) {
+          continue;
+        }
+        int[] t = rule.tasks();
+        for (int i = 0; i + 1 < t.length; i++) {
+          Integer a = pos.get(t[i]);
+          Integer b = pos.get(t[i + 1]);
+          model.addImplication(p[i + 1], p[i]);
+          if (rule.allOrNothing()) {
+            model.addEquality(p[i + 1], p[i]);
+          }
+          if (a != null && b != null) {
+            model.addGreaterOrEqual(startS.get(b), LinearExpr.affine(startS.get(a), 1, rule.minSeparationS()))
+                .onlyEnforceIf(present.get(b));
+            if (rule.hasMax()) {
+              model.addLessOrEqual(startS.get(b), LinearExpr.affine(startS.get(a), 1, rule.maxSeparationS()))
+                  .onlyEnforceIf(present.get(b));
+            }
+          }
+        }
+        if (rule.onePerWindow()) {
+          addOnePerWindow(t, pos);
+        }
+      }
+      for (Structure.GroupRule g : st.groups()) {
+        int[] all = java.util.Arrays.stream(g.members()).flatMapToInt(java.util.Arrays::stream).toArray();
+        Literal[] p = presence(all, pos, whole);
+        if (p == null) {
+          continue;
+        }
+        if (g.allOrNothing()) {
+          for (int i = 1; i < p.length; i++) {
+            model.addEquality(p[i], p[0]);
+          }
+        }
+        if (!g.ordered()) {
+          continue;
+        }
+        int[] m = java.util.Arrays.stream(g.members()).mapToInt(x -> x[0]).toArray(); // ordered members: one visit
+        for (int j = 1; j < m.length; j++) {
+          Integer b = pos.get(m[j]);
+          if (b == null) {
+            continue;
+          }
+          for (int i = j - 1; i >= 0; i--) {
+            Integer a = pos.get(m[i]);
+            if (a == null) {
+              continue;
+            }
+            model.addGreaterOrEqual(startS.get(b), endPlus(a, 0))
+                .onlyEnforceIf(new Literal[] {present.get(a), present.get(b)});
+            if (g.hasMaxGap()) {
+              List<Literal> when = new ArrayList<>(List.of(present.get(a), present.get(b)));
+              for (int between = i + 1; between < j; between++) {
+                Integer c = pos.get(m[between]);
+                if (c != null) {
+                  when.add(present.get(c).not());
+                }
+              }
+              model.addLessOrEqual(startS.get(b), endPlus(a, g.maxGapS())).onlyEnforceIf(when.toArray(new Literal[0]));
+            }
+          }
+        }
+      }
+    }
+
+    /**
+     * The presence literals of {@code tasks}: the model's, or constant false for a task without a start in
+     * the whole problem; null when some task lies outside a slice (the rule is then left to the incumbent).
+     */
+    private Literal[] presence(int[] tasks, java.util.Map<Integer, Integer> pos, boolean whole) {
+      Literal[] out = new Literal[tasks.length];
+      for (int i = 0; i < tasks.length; i++) {
+        Integer a = pos.get(tasks[i]);
+        if (a != null) {
+          out[i] = present.get(a);
+        } else if (whole && !problem.task(tasks[i]).schedulable()) {
+          out[i] = absent();
+        } else {
+          return null;
+        }
+      }
+      return out;
+    }
+
+    private BoolVar absentLiteral;
+
+    private Literal absent() {
+      if (absentLiteral == null) {
+        absentLiteral = model.newBoolVar("absent");
+        model.addEquality(absentLiteral, 0);
+      }
+      return absentLiteral;
+    }
+
+    /** One per window: inWindow[v][w] ⇒ span w holds visit v; Σ_w inWindow[v][w] = present[v]; Σ_v inWindow[v][w] ≤ 1. */
+    private void addOnePerWindow(int[] tasks, java.util.Map<Integer, Integer> pos) {
+      java.util.Map<Span, List<Literal>> bySpan = new java.util.LinkedHashMap<>();
+      for (int k : tasks) {
+        Integer a = pos.get(k);
+        if (a == null) {
+          continue;
+        }
+        Task t = problem.task(k);
+        List<Literal> mine = new ArrayList<>();
+        for (Span sp : t.spans()) {
+          if (sp.toS() - sp.fromS() < t.durationS()) {
+            continue;
+          }
+          BoolVar y = model.newBoolVar("inWindow[" + t.id() + "][" + sp.fromS() + "]");
+          model.addGreaterOrEqual(startS.get(a), sp.fromS()).onlyEnforceIf(y);
+          model.addLessOrEqual(endPlus(a, 0), sp.toS()).onlyEnforceIf(y);
+          mine.add(y);
+          bySpan.computeIfAbsent(sp, x -> new ArrayList<>()).add(y);
+        }
+        model.addEquality(LinearExpr.sum(mine.toArray(new Literal[0])), present.get(a));
+      }
+      for (List<Literal> ys : bySpan.values()) {
+        if (ys.size() > 1) {
+          model.addAtMostOne(ys);
+        }
+      }
     }
 
     private long latest(int a) {

@@ -1,10 +1,13 @@
 package dev.sequencer.sequence.problem;
 
 import dev.sequencer.model.FlexibleExposure;
+import dev.sequencer.model.Group;
 import dev.sequencer.model.Request;
 import dev.sequencer.model.RequestWindows;
 import dev.sequencer.model.Scenario;
 import dev.sequencer.model.TimeWindow;
+import dev.sequencer.model.Visits;
+import dev.sequencer.slew.Reconfigured;
 import dev.sequencer.slew.Transitions;
 import java.time.Duration;
 import java.time.Instant;
@@ -15,8 +18,9 @@ import java.util.Map;
 import java.util.Objects;
 
 /**
- * The planner's input in whole seconds from the horizon start: the tasks (one per request, in scenario
- * order = transition index), the transition times, the prizes the objective collects, and the requests
+ * The planner's input in whole seconds from the horizon start: the tasks (one per request and visit, in
+ * scenario order; task index = transition index), the transition times, the rules between tasks
+ * ({@link Structure}: visits and groups), the prizes the objective collects, and the requests
  * and windows as given (for the validator and the timeline).
  *
  * <p>Spans are the visibility windows rounded inward (start up, end down), so any observation inside one
@@ -32,9 +36,22 @@ public final class PlanningProblem {
   private final List<Request> requests;
   private final List<RequestWindows> windows;
   private final Prizes prizes;
+  private final Structure structure;
+  private final Transitions requestTransitions;
+  private final List<Group> groups;
 
   private PlanningProblem(Instant horizonStart, long horizonS, List<Task> tasks, Transitions transitions, int lastIndex,
       TimeWindow horizon, List<Request> requests, List<RequestWindows> windows, Prizes prizes) {
+    this(horizonStart, horizonS, tasks, transitions, lastIndex, horizon, requests, windows, prizes,
+        Structure.none(tasks.size()), transitions, List.of());
+  }
+
+  private PlanningProblem(Instant horizonStart, long horizonS, List<Task> tasks, Transitions transitions, int lastIndex,
+      TimeWindow horizon, List<Request> requests, List<RequestWindows> windows, Prizes prizes, Structure structure,
+      Transitions requestTransitions, List<Group> groups) {
+    this.groups = List.copyOf(groups);
+    this.structure = Objects.requireNonNull(structure, "structure");
+    this.requestTransitions = requestTransitions;
     this.horizonStart = Objects.requireNonNull(horizonStart, "horizonStart");
     this.horizon = horizon;
     this.requests = List.copyOf(requests);
@@ -58,9 +75,15 @@ public final class PlanningProblem {
     this.prizes = prizes != null ? prizes : Prizes.of(this.tasks);
   }
 
-  /** Builds the problem from the scenario's requests, their visibility windows (any order, by id) and transitions. */
+  /**
+   * Builds the problem from the scenario's requests, their visibility windows (any order, by id) and slew
+   * transitions (file order): the configuration changes (A5) are folded into the transitions
+   * ({@link Reconfigured}), each visit (A4) becomes a task and the groups (A5) become {@link Structure} rules.
+   */
   public static PlanningProblem of(Scenario scenario, List<RequestWindows> windows, Transitions transitions) {
-    return of(scenario.horizon(), scenario.requests(), windows, transitions);
+    Transitions withChanges = Reconfigured.of(transitions, scenario.reconfiguration(),
+        scenario.requests().stream().map(Request::configuration).toList(), scenario.startConfiguration());
+    return of(scenario.horizon(), scenario.requests(), scenario.groups(), windows, withChanges);
   }
 
   /**
@@ -70,6 +93,16 @@ public final class PlanningProblem {
    */
   public static PlanningProblem of(
       TimeWindow horizon, List<Request> requests, List<RequestWindows> windows, Transitions transitions) {
+    return of(horizon, requests, List.of(), windows, transitions);
+  }
+
+  /**
+   * As {@link #of(TimeWindow, List, List, Transitions)}, with groups: request r with {@code visits.count} = n
+   * becomes n tasks (ids {@code r#1} … {@code r#n}, each with the request's duration, windows, value and
+   * required flag), and {@code transitions} (one per request) are re-indexed by task.
+   */
+  public static PlanningProblem of(TimeWindow horizon, List<Request> requests, List<Group> groups,
+      List<RequestWindows> windows, Transitions transitions) {
     Map<String, RequestWindows> byId = new HashMap<>();
     for (RequestWindows w : windows) {
       byId.put(w.id(), w);
@@ -77,20 +110,56 @@ public final class PlanningProblem {
     Instant t0 = horizon.start();
     long horizonS = (long) Math.floor(horizon.durationS());
     List<Task> tasks = new ArrayList<>();
+    List<Integer> requestOf = new ArrayList<>();
+    List<Integer> visitOf = new ArrayList<>();
+    List<Structure.VisitRule> visitRules = new ArrayList<>();
+    Map<String, int[]> tasksOf = new HashMap<>();
     for (int k = 0; k < requests.size(); k++) {
       Request r = requests.get(k);
       String where = "requests[" + k + "] (id \"" + r.id() + "\")";
       RequestWindows rw = byId.get(r.id());
       List<TimeWindow> intervals = rw == null ? List.of() : rw.intervals();
       List<Span> spans = spans(t0, horizonS, intervals);
+      Task one;
       if (r.isFlexible()) {
-        tasks.add(flexibleTask(r, where, spans));
-        continue;
+        one = flexibleTask(r, where, spans);
+      } else {
+        long dur = whole(r.durationS(), where + ".durationS");
+        one = Task.fixedInSpans(r.id(), dur, r.priority(), r.required(), spans);
       }
-      long dur = whole(r.durationS(), where + ".durationS");
-      tasks.add(Task.fixedInSpans(r.id(), dur, r.priority(), r.required(), spans));
+      Visits v = r.visits();
+      int[] mine = new int[v.count()];
+      for (int i = 0; i < v.count(); i++) {
+        mine[i] = tasks.size();
+        tasks.add(v.count() == 1 ? one : one.withId(r.id() + "#" + (i + 1)));
+        requestOf.add(k);
+        visitOf.add(i + 1);
+      }
+      tasksOf.put(r.id(), mine);
+      if (r.hasVisits()) {
+        visitRules.add(new Structure.VisitRule(k, mine, (long) Math.ceil(v.minSeparationS() - 1e-9),
+            v.maxSeparationS() == null ? -1 : (long) Math.floor(v.maxSeparationS() + 1e-9), v.onePerWindow(),
+            v.allOrNothing()));
+      }
     }
-    return new PlanningProblem(t0, horizonS, tasks, transitions, -1, horizon, requests, windows, null);
+    List<Structure.GroupRule> groupRules = new ArrayList<>();
+    for (Group g : groups) {
+      int[][] members = new int[g.members().size()][];
+      for (int i = 0; i < members.length; i++) {
+        members[i] = tasksOf.get(g.members().get(i));
+        if (members[i] == null) {
+          throw new IllegalArgumentException("group " + g.id() + ": no request \"" + g.members().get(i) + "\"");
+        }
+      }
+      groupRules.add(new Structure.GroupRule(g.id(), members, g.allOrNothing(), g.ordered(),
+          g.maxGapS() == null ? -1 : (long) Math.floor(g.maxGapS() + 1e-9)));
+    }
+    int[] rq = requestOf.stream().mapToInt(Integer::intValue).toArray();
+    Structure structure = new Structure(rq, visitOf.stream().mapToInt(Integer::intValue).toArray(), visitRules,
+        groupRules);
+    Transitions byTask = tasks.size() == requests.size() ? transitions : new TaskTransitions(transitions, rq);
+    return new PlanningProblem(t0, horizonS, tasks, byTask, -1, horizon, requests, windows, null, structure,
+        transitions, groups);
   }
 
   /**
@@ -175,7 +244,7 @@ public final class PlanningProblem {
    */
   public PlanningProblem withMustBeLast(String id) {
     return new PlanningProblem(horizonStart, horizonS, tasks, transitions, indexOf(id), horizon, requests, windows,
-        prizes);
+        prizes, structure, requestTransitions, groups);
   }
 
   /** A copy whose objective collects {@code newPrizes} (re-planning adds stability bonuses). */
@@ -184,7 +253,7 @@ public final class PlanningProblem {
       throw new IllegalArgumentException("prizes: " + newPrizes.size() + " tasks, but the problem has " + tasks.size());
     }
     return new PlanningProblem(horizonStart, horizonS, tasks, transitions, lastIndex, horizon, requests, windows,
-        newPrizes);
+        newPrizes, structure, requestTransitions, groups);
   }
 
   /** A copy with these tasks (same ids, same order) and everything else as is. */
@@ -196,7 +265,7 @@ public final class PlanningProblem {
       }
     }
     return new PlanningProblem(horizonStart, horizonS, newTasks, transitions, lastIndex, horizon, requests, windows,
-        null);
+        null, structure, requestTransitions, groups);
   }
 
   /** Index of the request with this id; throws when unknown. */
@@ -265,9 +334,29 @@ public final class PlanningProblem {
     return tasks.size();
   }
 
-  /** Transition times between requests. */
+  /** Transition times between tasks (= between requests when no request has visits). */
   public Transitions transitions() {
     return transitions;
+  }
+
+  /** Transition times between requests (file order), configuration changes included. */
+  public Transitions requestTransitions() {
+    return requestTransitions;
+  }
+
+  /** The groups as given (A5). */
+  public List<Group> groups() {
+    return groups;
+  }
+
+  /** The rules between tasks: visits and groups (A4, A5). */
+  public Structure structure() {
+    return structure;
+  }
+
+  /** The id of the request task k observes. */
+  public String requestId(int k) {
+    return requests.get(structure.requestOf(k)).id();
   }
 
   /** What the objective collects. */

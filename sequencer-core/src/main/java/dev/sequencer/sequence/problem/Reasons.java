@@ -24,4 +24,44 @@ public final class Reasons {
   public static final String INFEASIBLE = "not planned: the required requests are infeasible";
 
   private Reasons() {}
+
+  /**
+   * {@code reason} for task k with what the rules between tasks add (A4, A5): for a member of an ordered
+   * group whose every start lies before the earliest end of the previous member, "group G incomplete: X has
+   * no window after Y"; for a member of an all-or-nothing group, the group's name and which members the
+   * plan lacks.
+   */
+  public static String withRules(PlanningProblem p, int k, Plan plan, String reason) {
+    Structure st = p.structure();
+    Structure.GroupRule g = st.groupOf(k);
+    if (g == null) {
+      return reason;
+    }
+    int i = st.memberOf(k);
+    if (g.ordered()) {
+      for (int j = 0; j < g.members().length; j++) {
+        int a = g.members()[j][0];
+        int b = g.members()[Math.min(j + 1, g.members().length - 1)][0];
+        if (j + 1 < g.members().length && p.task(a).schedulable() && p.task(b).schedulable()
+            && p.task(b).latestStartS() < p.task(a).earliestStartS() + p.task(a).durationS()) {
+          return "group " + g.id() + " incomplete: " + p.requestId(b) + " has no window after " + p.requestId(a);
+        }
+      }
+    }
+    if (!g.allOrNothing()) {
+      return reason;
+    }
+    boolean[] in = plan.membership(p.size());
+    java.util.List<String> lacking = new java.util.ArrayList<>();
+    for (int[] member : g.members()) {
+      for (int t : member) {
+        if (!in[t] && !lacking.contains(p.requestId(t))) {
+          lacking.add(p.requestId(t));
+        }
+      }
+    }
+    String self = p.requestId(g.members()[i][0]);
+    return "group " + g.id() + " (all or nothing) not scheduled: " + String.join(", ", lacking)
+        + " not in the plan; " + self + ": " + reason;
+  }
 }

@@ -107,6 +107,11 @@ public final class Task {
     return new Task(id, value, flexible, minDurationS, stepS, values, spans, null);
   }
 
+  /** A copy with another id (a visit of a request observed several times). */
+  public Task withId(String newId) {
+    return new Task(newId, required, flexible, minDurationS, stepS, values, spans, null);
+  }
+
   public String id() {
     return id;
   }

@@ -108,7 +108,7 @@ public final class Replanner {
       this.failed = failed;
       this.options = options;
       TimelineCheck v = options.validator() != null ? options.validator()
-          : new SelfCheck(full.horizon(), full.requests(), full.windows(), full.transitions());
+          : new SelfCheck(full.horizon(), full.requests(), full.groups(), full.windows(), full.requestTransitions());
       this.validator = v.withNow(now);
       for (int k = 0; k < full.size(); k++) {
         index.put(full.task(k).id(), k);

@@ -4,6 +4,7 @@ import dev.sequencer.sequence.problem.Plan;
 import dev.sequencer.sequence.problem.PlanningProblem;
 import dev.sequencer.sequence.problem.Reasons;
 import dev.sequencer.sequence.problem.Score;
+import dev.sequencer.sequence.problem.Structure;
 import dev.sequencer.sequence.problem.Span;
 import dev.sequencer.sequence.problem.Task;
 import dev.sequencer.sequence.timing.ExactTimer;
@@ -121,7 +122,9 @@ public final class ExactRepair {
           continue;
         }
       }
-      java.util.Optional<Plan> candidate = tryAt(plan, paths, q, k);
+      java.util.Optional<Plan> candidate = tryAt(plan, paths, q, k)
+          .map(c -> problem.structure().prune(problem, c)) // visits renumbered in time order
+          .filter(c -> c.size() == plan.size() + 1); // an insertion that breaks a rule between tasks is none
       if (candidate.isPresent()) {
         ExactTimer.Timed timed = timer.verify(candidate.get());
         if (timed == null) {
@@ -144,7 +147,17 @@ public final class ExactRepair {
     for (int g : optionsToTry(t)) {
       long d = t.durationS(g);
       long latest = t.latestFittingStart(Long.MAX_VALUE / 4, d);
-      long s = timer.earliestStart(paths[q], k, departS, departS, d, latest);
+      long from = departS;
+      Structure rules = problem.structure();
+      if (!rules.isEmpty()) { // visits' separations and ordered groups' gaps after the observations before q
+        long[] ends = new long[q];
+        for (int i = 0; i < q; i++) {
+          ends[i] = plan.endS(i);
+        }
+        from = Math.max(from, rules.earliestStartS(k, plan.order(), plan.startS(), ends, q));
+        latest = Math.min(latest, rules.latestStartS(k, plan.order(), plan.startS(), ends, q));
+      }
+      long s = timer.earliestStart(paths[q], k, departS, from, d, latest);
       if (s < 0) {
         continue;
       }

@@ -3,6 +3,7 @@ package dev.sequencer.sequence.search;
 import dev.sequencer.sequence.problem.Plan;
 import dev.sequencer.sequence.problem.PlanningProblem;
 import dev.sequencer.sequence.problem.Score;
+import dev.sequencer.sequence.problem.Structure;
 import dev.sequencer.sequence.problem.Task;
 import dev.sequencer.sequence.timing.ExactTimer;
 import dev.sequencer.slew.Transitions.Path;
@@ -62,6 +63,7 @@ public final class GreedyPlanner {
   private final ExactTimer timer;
   private final int[] required;
   private final Rule rule;
+  private final Structure rules;
   private boolean cut;
 
   public GreedyPlanner(PlanningProblem problem, ExactTimer timer) {
@@ -72,6 +74,7 @@ public final class GreedyPlanner {
     this.problem = problem;
     this.timer = timer;
     this.rule = java.util.Objects.requireNonNull(rule, "rule");
+    this.rules = problem.structure();
     this.required = java.util.stream.IntStream.range(0, problem.size())
         .filter(k -> problem.task(k).required() && problem.task(k).schedulable()).toArray();
   }
@@ -127,6 +130,7 @@ public final class GreedyPlanner {
       long bestStart = -1;
       long bestDur = -1;
       double bestScore = -1;
+      List<long[]> bestBlock = null;
       for (int pass = 0; pass < 2 && best < 0; pass++) {
         long earliest = rule == Rule.BEST_NOW ? earliestStart(path, t, done, pass) : -1;
         for (int j = 0; j < n && !cut; j++) {
@@ -139,13 +143,41 @@ public final class GreedyPlanner {
             cut = true; // the choice in progress is not finished: it is not made
             break;
           }
-          long s = timer.earliestStart(path, j, t, t, tj.durationS(), tj.latestStartS());
+          long from = t;
+          long latest = tj.latestStartS();
+          if (!rules.isEmpty()) {
+            if (!rulesAllow(j, done)) {
+              continue;
+            }
+            int m = fill(chosen);
+            from = Math.max(t, rules.earliestStartS(j, co, cs, ce, m));
+            latest = Math.min(latest, rules.latestStartS(j, co, cs, ce, m));
+          }
+          long s = timer.earliestStart(path, j, t, from, tj.durationS(), latest);
           long d = s < 0 ? -1 : exposure(j, s, t);
           if (s < 0 || (how == Pass.LOOK_AHEAD && !requiredStillReachable(path, j, t, s, s + d, done))) {
             continue;
           }
+          List<long[]> block = null;
+          Structure.GroupRule chain = rules.isEmpty() ? null : rules.groupOf(j);
+          if (chain != null && chain.ordered() && chain.allOrNothing()) {
+            if (rules.memberOf(j) > 0) {
+              continue; // the chain's later members come with its first one
+            }
+            block = chainAfter(chain, path, j, t, s, d, done);
+            if (block == null) {
+              continue;
+            }
+          }
           double score;
-          if (how == Pass.REQUIRED_FIRST) {
+          if (block != null) {
+            double value = 0;
+            for (long[] b : block) {
+              value += problem.task((int) b[0]).valueFor(b[2]);
+            }
+            long blockEnd = block.get(block.size() - 1)[1] + block.get(block.size() - 1)[2];
+            score = how == Pass.REQUIRED_FIRST ? 1.0 / (1 + blockEnd) : value / Math.max(1, blockEnd - t);
+          } else if (how == Pass.REQUIRED_FIRST) {
             score = 1.0 / (1 + s + d); // the earliest end first
           } else if (rule == Rule.BEST_NOW) {
             if (s > earliest + NOW_WINDOW_S) {
@@ -160,6 +192,7 @@ public final class GreedyPlanner {
             bestStart = s;
             bestDur = d;
             bestScore = score;
+            bestBlock = block;
           }
         }
       }
@@ -185,18 +218,98 @@ public final class GreedyPlanner {
       if (best < 0 || cut) {
         break;
       }
-      done[best] = true;
-      chosen.add(new long[] {best, bestStart, bestDur});
-      pathsBefore.add(path);
-      timesBefore.add(t);
-      path = path.then(best, t, bestStart);
-      t = bestStart + bestDur;
+      List<long[]> steps = bestBlock != null ? bestBlock : List.of(new long[] {best, bestStart, bestDur});
+      for (long[] step : steps) {
+        done[(int) step[0]] = true;
+        chosen.add(step);
+        pathsBefore.add(path);
+        timesBefore.add(t);
+        path = path.then((int) step[0], t, step[1]);
+        t = step[1] + step[2];
+      }
       if (best == problem.mustBeLastIndex()) {
         break;
       }
     }
     Plan result = toPlan(chosen);
     return kept != null && better(kept, result) ? kept : result;
+  }
+
+  /**
+   * The rules between tasks ({@link Structure}) as greedy keeps them while it builds: visits in order (visit
+   * v + 1 only after visit v), members of an ordered group in list order; separations and gaps bound each
+   * candidate's start; an ordered all-or-nothing group (a calibration chain) is taken as one step
+   * ({@link #chainAfter}), scored by its total value per second used. Other all-or-nothing rules and one
+   * visit per window are left to the incumbent's {@link Structure#prune}, which drops what greedy could not
+   * complete.
+   */
+  private boolean rulesAllow(int j, boolean[] done) {
+    Structure.VisitRule v = rules.visitRuleOf(j);
+    if (v != null) {
+      for (int q = 0; q < v.tasks().length && v.tasks()[q] != j; q++) {
+        if (!done[v.tasks()[q]]) {
+          return false;
+        }
+      }
+    }
+    Structure.GroupRule g = rules.groupOf(j);
+    if (g != null && g.ordered()) {
+      for (int i = rules.memberOf(j) + 1; i < g.members().length; i++) {
+        if (done[g.members()[i][0]]) {
+          return false;
+        }
+      }
+    }
+    return true;
+  }
+
+  /**
+   * An ordered all-or-nothing group taken as one step: its first member j at [s, s + d], then each later
+   * member at its earliest exact start after the previous one's end and within the group's gap; null when
+   * some member does not fit (then greedy does not start the chain: half a chain would be dropped).
+   */
+  private List<long[]> chainAfter(Structure.GroupRule chain, Path path, int j, long t, long s, long d,
+      boolean[] done) {
+    List<long[]> block = new ArrayList<>();
+    block.add(new long[] {j, s, d});
+    Path p = path.then(j, t, s);
+    long end = s + d;
+    for (int i = 1; i < chain.members().length; i++) {
+      int k = chain.members()[i][0];
+      Task tk = problem.task(k);
+      if (done[k] || !tk.schedulable()) {
+        return null;
+      }
+      long latest = chain.hasMaxGap() ? Math.min(tk.latestStartS(), end + chain.maxGapS()) : tk.latestStartS();
+      long sk = timer.earliestStart(p, k, end, end, tk.durationS(), latest);
+      if (sk < 0) {
+        return null;
+      }
+      block.add(new long[] {k, sk, tk.durationS()});
+      p = p.then(k, end, sk);
+      end = sk + tk.durationS();
+    }
+    return block;
+  }
+
+  private int[] co = new int[0];
+  private long[] cs = new long[0];
+  private long[] ce = new long[0];
+
+  /** The chosen observations as arrays for the rules' start bounds; returns how many. */
+  private int fill(List<long[]> chosen) {
+    int m = chosen.size();
+    if (co.length < m) {
+      co = new int[2 * m];
+      cs = new long[2 * m];
+      ce = new long[2 * m];
+    }
+    for (int q = 0; q < m; q++) {
+      co[q] = (int) chosen.get(q)[0];
+      cs[q] = chosen.get(q)[1];
+      ce[q] = chosen.get(q)[1] + chosen.get(q)[2];
+    }
+    return m;
   }
 
   private static Plan toPlan(List<long[]> chosen) {

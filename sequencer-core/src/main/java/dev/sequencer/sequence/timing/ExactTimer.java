@@ -3,10 +3,12 @@ package dev.sequencer.sequence.timing;
 import dev.sequencer.sequence.problem.Plan;
 import dev.sequencer.sequence.problem.PlanningProblem;
 import dev.sequencer.sequence.problem.Score;
+import dev.sequencer.sequence.problem.Structure;
 import dev.sequencer.sequence.problem.Task;
 import dev.sequencer.slew.Transitions;
 import dev.sequencer.slew.Transitions.Path;
 import java.util.ArrayList;
+import java.util.Arrays;
 import java.util.List;
 
 /**
@@ -148,50 +150,86 @@ public final class ExactTimer {
   }
 
   private Timed place(int[] order, long[] durS, long[] given) {
+    Structure rules = problem.structure();
     Path path = start();
-    List<long[]> kept = new ArrayList<>(); // {k, start, duration}
-    List<Double> legs = new ArrayList<>();
+    int n = order.length;
+    int[] ko = new int[n];
+    long[] ks = new long[n];
+    long[] kd = new long[n];
+    long[] ke = new long[n];
+    double[] kl = new double[n];
+    int m = 0;
     List<Integer> dropped = new ArrayList<>();
     long end = 0;
-    for (int q = 0; q < order.length; q++) {
+    for (int q = 0; q < n; q++) {
       int k = order[q];
       long d = durS[q];
       Task t = problem.task(k);
       long latest = t.latestFittingStart(Long.MAX_VALUE / 4, d);
+      long from = end;
+      if (!rules.isEmpty()) {
+        from = Math.max(end, rules.earliestStartS(k, ko, ks, ke, m));
+        latest = Math.min(latest, rules.latestStartS(k, ko, ks, ke, m));
+      }
       long s;
-      if (given != null && given[q] >= end) {
-        s = earliestStart(path, k, end, end, d, given[q]);
-        if (s < 0 && fitsAt(path, k, end, given[q], d)) {
+      if (given != null && given[q] >= from) {
+        s = earliestStart(path, k, end, from, d, Math.min(given[q], latest));
+        if (s < 0 && given[q] <= latest && fitsAt(path, k, end, given[q], d)) {
           s = given[q];
         }
         if (s < 0) {
           s = earliestStart(path, k, end, given[q] + 1, d, latest);
         }
       } else {
-        s = earliestStart(path, k, end, end, d, latest);
+        s = earliestStart(path, k, end, from, d, latest);
       }
       if (s < 0) {
         dropped.add(k);
         continue;
       }
-      double leg = path.legS(k, end, s);
-      kept.add(new long[] {k, s, d});
-      legs.add(leg);
+      kl[m] = path.legS(k, end, s);
+      ko[m] = k;
+      ks[m] = s;
+      kd[m] = d;
+      ke[m] = s + d;
+      m++;
       path = path.then(k, end, s);
       end = s + d;
     }
-    int m = kept.size();
-    int[] o = new int[m];
-    long[] st = new long[m];
-    long[] du = new long[m];
-    double[] lg = new double[m];
-    for (int q = 0; q < m; q++) {
-      o[q] = (int) kept.get(q)[0];
-      st[q] = kept.get(q)[1];
-      du[q] = kept.get(q)[2];
-      lg[q] = legs.get(q);
+    return new Timed(new Plan(Arrays.copyOf(ko, m), Arrays.copyOf(ks, m), Arrays.copyOf(kd, m)), Arrays.copyOf(kl, m),
+        dropped.stream().mapToInt(Integer::intValue).toArray());
+  }
+
+  /**
+   * {@code plan} timed exactly and keeping the rules between tasks ({@link Structure}: visits, groups): the
+   * compaction (which respects the separations and gaps as it places each observation) or the plan at its
+   * own starts, whichever ranks higher, then pruned ({@link Structure#prune}) and re-timed at its own
+   * starts until nothing more is left out. Without rules: {@link #compact}, or the plan as given when
+   * compaction dropped something and the given plan ranks higher.
+   */
+  public Timed timeKeepingRules(Plan plan) {
+    Structure rules = problem.structure();
+    Timed timed = compact(rules.prune(problem, plan));
+    if (timed.dropped().length > 0 || !rules.holds(problem, timed.plan())) {
+      Timed asGiven = verify(rules.prune(problem, plan));
+      if (asGiven != null && (!rules.holds(problem, timed.plan())
+          || asGiven.score(problem).betterThan(timed.score(problem)))) {
+        timed = asGiven;
+      }
     }
-    return new Timed(new Plan(o, st, du), lg, dropped.stream().mapToInt(Integer::intValue).toArray());
+    for (int round = 0; !rules.holds(problem, timed.plan()); round++) {
+      Plan kept = rules.prune(problem, timed.plan());
+      Timed again = verify(kept);
+      timed = again != null ? again : compact(kept);
+      if (round > n(plan)) {
+        throw new IllegalStateException("the rules between tasks do not settle on " + plan + " (a bug)");
+      }
+    }
+    return timed;
+  }
+
+  private static int n(Plan p) {
+    return p.size() + 1;
   }
 
   /** The paths after each prefix of {@code plan} as given: element q is the path before observation q. */
