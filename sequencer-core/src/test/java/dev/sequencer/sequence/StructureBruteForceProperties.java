@@ -225,11 +225,7 @@ class StructureBruteForceProperties {
       Reconfiguration re = inst.change();
       change = re.labels().isEmpty() ? re.constantS() : re.table()[re.labels().indexOf(a)][re.labels().indexOf(b)];
     }
-    return re(inst).concurrentWithSlew() ? Math.max(slew, change) : slew + change;
-  }
-
-  private static Reconfiguration re(Instance inst) {
-    return inst.change();
+    return inst.change().concurrentWithSlew() ? Math.max(slew, change) : slew + change;
   }
 
   /** Some choice of windows and starts keeps every timing rule for this sequence. */

@@ -209,27 +209,24 @@ public final class ExactTimer {
    */
   public Timed timeKeepingRules(Plan plan) {
     Structure rules = problem.structure();
-    Timed timed = compact(rules.prune(problem, plan));
-    if (timed.dropped().length > 0 || !rules.holds(problem, timed.plan())) {
-      Timed asGiven = verify(rules.prune(problem, plan));
-      if (asGiven != null && (!rules.holds(problem, timed.plan())
-          || asGiven.score(problem).betterThan(timed.score(problem)))) {
+    Plan kept = rules.prune(problem, plan);
+    Timed timed = compact(kept);
+    boolean holds = rules.holds(problem, timed.plan());
+    if (timed.dropped().length > 0 || !holds) {
+      Timed asGiven = verify(kept);
+      if (asGiven != null && (!holds || asGiven.score(problem).betterThan(timed.score(problem)))) {
         timed = asGiven;
       }
     }
     for (int round = 0; !rules.holds(problem, timed.plan()); round++) {
-      Plan kept = rules.prune(problem, timed.plan());
-      Timed again = verify(kept);
-      timed = again != null ? again : compact(kept);
-      if (round > n(plan)) {
+      Plan pruned = rules.prune(problem, timed.plan());
+      Timed again = verify(pruned);
+      timed = again != null ? again : compact(pruned);
+      if (round > plan.size()) {
         throw new IllegalStateException("the rules between tasks do not settle on " + plan + " (a bug)");
       }
     }
     return timed;
-  }
-
-  private static int n(Plan p) {
-    return p.size() + 1;
   }
 
   /** The paths after each prefix of {@code plan} as given: element q is the path before observation q. */
