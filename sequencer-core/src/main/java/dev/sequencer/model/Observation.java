@@ -14,10 +14,12 @@ import java.util.Objects;
  * directions an eigenaxis slew passes through (empty: the direct great-circle arc); then the slew is a
  * chain of rest-to-rest legs through them and {@code slewSeconds} is the sum of the legs plus one settle.
  * {@code visit} (A4): the visit number of a request observed several times (1, 2, … in time order),
- * {@code null} otherwise. With configurations (A5) {@code slewSeconds} is the whole transition.
+ * {@code null} otherwise. With configurations (A5) {@code slewSeconds} is the whole transition. {@code resource}
+ * (A6): the resource that makes it, {@code null} with one observer; then {@code slewSeconds} is the
+ * transition from the previous observation on the same resource.
  */
 public record Observation(String id, Instant start, Instant end, double slewSeconds, Double value, String state,
-    Instant slewStart, List<RaDec> slewVia, Integer visit) {
+    Instant slewStart, List<RaDec> slewVia, Integer visit, String resource) {
   /** Re-planning states of the spec's extension. */
   public static final String DONE = "done";
   public static final String RUNNING = "running";
@@ -40,6 +42,17 @@ public record Observation(String id, Instant start, Instant end, double slewSeco
     }
   }
 
+  /** An observation of a scenario with one observer (no {@code resource}, A6). */
+  public Observation(String id, Instant start, Instant end, double slewSeconds, Double value, String state,
+      Instant slewStart, List<RaDec> slewVia, Integer visit) {
+    this(id, start, end, slewSeconds, value, state, slewStart, slewVia, visit, null);
+  }
+
+  /** A copy made by this resource (A6; {@code null}: the one observer). */
+  public Observation withResource(String newResource) {
+    return new Observation(id, start, end, slewSeconds, value, state, slewStart, slewVia, visit, newResource);
+  }
+
   /** An observation that is not one of several visits. */
   public Observation(String id, Instant start, Instant end, double slewSeconds, Double value, String state,
       Instant slewStart, List<RaDec> slewVia) {
@@ -48,7 +61,7 @@ public record Observation(String id, Instant start, Instant end, double slewSeco
 
   /** A copy with this visit number (A4; {@code null}: not one of several visits). */
   public Observation withVisit(Integer newVisit) {
-    return new Observation(id, start, end, slewSeconds, value, state, slewStart, slewVia, newVisit);
+    return new Observation(id, start, end, slewSeconds, value, state, slewStart, slewVia, newVisit, resource);
   }
 
   /** An observation with no slew departure instant and a direct slew. */
@@ -58,7 +71,7 @@ public record Observation(String id, Instant start, Instant end, double slewSeco
 
   /** A copy with the slew's departure instant and waypoints (spec A3). */
   public Observation withSlew(Instant departure, List<RaDec> via) {
-    return new Observation(id, start, end, slewSeconds, value, state, departure, via, visit);
+    return new Observation(id, start, end, slewSeconds, value, state, departure, via, visit, resource);
   }
 
   /** A planned fixed-duration observation. */

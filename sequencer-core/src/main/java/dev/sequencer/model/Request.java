@@ -12,7 +12,8 @@ import java.util.Objects;
  * (then only the computed visibility limits the request). {@code constraints} holds the request's own
  * constraint fields, applied over the scenario's by {@link Scenario#constraintsFor}; never null
  * ({@link ConstraintOverrides#none()} when the file gives none). {@code visits} (A4) is {@link Visits#ONCE}
- * when the file gives none; {@code configuration} (A5) is the instrument set-up label, {@code ""} by default.
+ * when the file gives none; {@code configuration} (A5) is the instrument set-up label, {@code ""} by default;
+ * {@code resources} (A6) the resources allowed to observe it, empty for all.
  */
 public record Request(
     String id,
@@ -24,8 +25,10 @@ public record Request(
     FlexibleExposure flexible,
     ConstraintOverrides constraints,
     Visits visits,
-    String configuration) {
+    String configuration,
+    List<String> resources) {
   public Request {
+    resources = resources == null ? List.of() : List.copyOf(resources);
     Objects.requireNonNull(id, "id");
     Checks.finiteOrNull("durationS", durationS);
     Checks.finiteOrNull("priority", priority);
@@ -33,6 +36,13 @@ public record Request(
     constraints = constraints == null ? ConstraintOverrides.none() : constraints;
     visits = visits == null ? Visits.ONCE : visits;
     configuration = configuration == null ? "" : configuration;
+  }
+
+  /** A request any resource may observe (A6). */
+  public Request(String id, Target target, Double durationS, Double priority, boolean required,
+      List<TimeWindow> windows, FlexibleExposure flexible, ConstraintOverrides constraints, Visits visits,
+      String configuration) {
+    this(id, target, durationS, priority, required, windows, flexible, constraints, visits, configuration, List.of());
   }
 
   /** A request observed once, in the default configuration. */
@@ -54,31 +64,43 @@ public record Request(
 
   /** A copy with these allowed windows. */
   public Request withWindows(List<TimeWindow> newWindows) {
-    return new Request(id, target, durationS, priority, required, newWindows, flexible, constraints, visits, configuration);
+    return new Request(id, target, durationS, priority, required, newWindows, flexible, constraints, visits,
+        configuration, resources);
   }
 
   /** A copy with the required flag set. */
   public Request withRequired(boolean newRequired) {
     return new Request(id, target, durationS, priority, newRequired, windows, flexible, constraints, visits,
-        configuration);
+        configuration, resources);
   }
 
   /** A copy with these constraint fields of its own. */
   public Request withConstraints(ConstraintOverrides newConstraints) {
     return new Request(id, target, durationS, priority, required, windows, flexible, newConstraints, visits,
-        configuration);
+        configuration, resources);
   }
 
   /** A copy with these visits (A4). */
   public Request withVisits(Visits newVisits) {
     return new Request(id, target, durationS, priority, required, windows, flexible, constraints, newVisits,
-        configuration);
+        configuration, resources);
   }
 
   /** A copy with this configuration label (A5). */
   public Request withConfiguration(String newConfiguration) {
     return new Request(id, target, durationS, priority, required, windows, flexible, constraints, visits,
-        newConfiguration);
+        newConfiguration, resources);
+  }
+
+  /** A copy with these allowed resources (A6; empty: all). */
+  public Request withResources(List<String> newResources) {
+    return new Request(id, target, durationS, priority, required, windows, flexible, constraints, visits,
+        configuration, newResources);
+  }
+
+  /** True when resource {@code id} may observe this request (A6). */
+  public boolean allows(String resourceId) {
+    return resources.isEmpty() || resources.contains(resourceId);
   }
 
   /** True when the request asks for more than one visit (A4). */
