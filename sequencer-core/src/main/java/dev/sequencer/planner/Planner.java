@@ -63,8 +63,22 @@ public final class Planner {
 
   /** Windows and transitions of {@code s}; bad input (a slew model the observer cannot drive) as a {@link ScenarioException}. */
   public static Geometry geometry(Scenario s, AstroContext ctx) {
+    if (s.hasResources()) {
+      List<Geometry> each = new java.util.ArrayList<>();
+      for (dev.sequencer.model.Resource r : s.resources()) {
+        Scenario view = s.forResource(r);
+        each.add(geometry(view, view.withRequests(s.requests().stream().filter(q -> q.allows(r.id())).toList()),
+            ctx));
+      }
+      return Geometry.ofResources(s, each);
+    }
+    return geometry(s, s, ctx);
+  }
+
+  /** The windows of {@code visible}'s requests and the transitions of all of {@code s}'s (same observer and slew). */
+  private static Geometry geometry(Scenario s, Scenario visible, AstroContext ctx) {
     long t0 = System.nanoTime();
-    List<RequestVisibility> visibility = new VisibilityCalculator(ctx).compute(s);
+    List<RequestVisibility> visibility = new VisibilityCalculator(ctx).compute(visible);
     List<RequestWindows> windows = visibility.stream().map(RequestVisibility::toWindows).toList();
     long t1 = System.nanoTime();
     Transitions transitions;
@@ -113,18 +127,43 @@ public final class Planner {
   public static PlanOutcome plan(Scenario s, AstroContext ctx, SequencerOptions options) {
     Budget clock = Budget.startingNow(options.timeLimitS());
     InputRules.check(s, "scenario");
+    InputRules.checkResources(s, "scenario");
     preloadSolver();
     Geometry g = geometry(s, ctx);
-    PlanningProblem problem = PlanningProblem.of(s, g.windows(), g.transitions());
+    PlanningProblem problem = problem(s, g);
     PlanValidator validator = validator(g, ctx);
     SequencerResult result = new Sequencer().plan(problem,
-        options.withClock(clock).withValidator(check(validator, s, g.transitions())));
+        options.withClock(clock).withValidator(check(validator, s, g)));
     Map<String, Double> phases = new LinkedHashMap<>();
     phases.put("windows", g.windowsS());
     phases.put("transitions", g.transitionsS());
     result.stats().phaseS().forEach((k, v) -> phases.merge(k, v, Double::sum));
-    return new PlanOutcome(g, result, SlewPaths.annotate(s, g.transitions(), result.toTimeline()), phases,
-        clock.elapsedS());
+    return new PlanOutcome(g, result, annotate(s, g, result.toTimeline()), phases, clock.elapsedS());
+  }
+
+  /**
+   * The planning problem of {@code s}: with one observer {@link PlanningProblem#of(Scenario, List, Transitions)};
+   * with several resources (A6) {@link PlanningProblem#ofSections}, each resource's transitions with its own
+   * configuration change times folded in.
+   */
+  static PlanningProblem problem(Scenario s, Geometry g) {
+    if (!g.hasResources()) {
+      return PlanningProblem.of(s, g.windows(), g.transitions());
+    }
+    List<String> ids = s.resources().stream().map(dev.sequencer.model.Resource::id).toList();
+    List<List<dev.sequencer.model.RequestWindows>> windows = g.resources().stream().map(Geometry::windows).toList();
+    List<String> configurations = s.requests().stream().map(dev.sequencer.model.Request::configuration).toList();
+    List<Transitions> transitions = g.resources().stream()
+        .map(r -> dev.sequencer.slew.Reconfigured.of(r.transitions(), r.scenario().reconfiguration(), configurations,
+            s.startConfiguration()))
+        .toList();
+    return PlanningProblem.ofSections(s.horizon(), s.requests(), ids, windows, transitions);
+  }
+
+  /** The timeline with its slews' departures and waypoints (spec A3), per resource when there are several. */
+  static Timeline annotate(Scenario s, Geometry g, Timeline t) {
+    return g.hasResources() ? SlewPaths.annotate(s, g.transitionsPerResource(), t)
+        : SlewPaths.annotate(s, g.transitions(), t);
   }
 
   /**
@@ -136,12 +175,12 @@ public final class Planner {
   }
 
   /** As {@link #check(PlanValidator)}, on the timeline as it is written: with its slews' departures and waypoints. */
-  static ResultCheck check(PlanValidator validator, Scenario s, Transitions transitions) {
+  static ResultCheck check(PlanValidator validator, Scenario s, Geometry g) {
     return new ResultCheck() {
       @Override
       public List<String> violations(SequencerResult r) {
         Timeline t = r.toTimeline();
-        return validator.violations(s == null ? t : SlewPaths.annotate(s, transitions, t));
+        return validator.violations(s == null ? t : annotate(s, g, t));
       }
 
       @Override
@@ -172,9 +211,10 @@ public final class Planner {
    */
   public static Prepared prepare(Scenario s, AstroContext ctx) {
     InputRules.check(s, "scenario");
+    InputRules.checkResources(s, "scenario");
     preloadSolver();
     Geometry g = geometry(s, ctx);
-    return new Prepared(g, PlanningProblem.of(s, g.windows(), g.transitions()), validator(g, ctx));
+    return new Prepared(g, problem(s, g), validator(g, ctx));
   }
 
   /**

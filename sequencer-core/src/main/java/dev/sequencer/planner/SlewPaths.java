@@ -57,6 +57,32 @@ final class SlewPaths {
     return new Timeline(t.status(), t.priority(), t.slewSeconds(), t.bound(), out, t.unscheduled());
   }
 
+  /**
+   * {@link #annotate(Scenario, Transitions, Timeline)} for several resources (A6): each resource's
+   * observations, in time order, with its own view of the scenario and its transitions ({@code perResource}
+   * in the file order of the resources); the timeline's order is kept.
+   */
+  static Timeline annotate(Scenario s, List<Transitions> perResource, Timeline t) {
+    List<Observation> out = new ArrayList<>(t.observations());
+    for (int r = 0; r < s.resources().size(); r++) {
+      String id = s.resources().get(r).id();
+      List<Integer> at = new ArrayList<>();
+      List<Observation> mine = new ArrayList<>();
+      for (int q = 0; q < out.size(); q++) {
+        if (id.equals(out.get(q).resource())) {
+          at.add(q);
+          mine.add(out.get(q));
+        }
+      }
+      Timeline part = annotate(s.forResource(s.resources().get(r)), perResource.get(r),
+          new Timeline(t.status(), 0, 0, null, mine, List.of()));
+      for (int i = 0; i < at.size(); i++) {
+        out.set(at.get(i), part.observations().get(i));
+      }
+    }
+    return new Timeline(t.status(), t.priority(), t.slewSeconds(), t.bound(), out, t.unscheduled());
+  }
+
   private static double seconds(Instant origin, Instant t) {
     return java.time.Duration.between(origin, t).toNanos() * 1e-9;
   }

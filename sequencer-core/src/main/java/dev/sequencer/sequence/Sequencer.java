@@ -16,6 +16,7 @@ import dev.sequencer.sequence.cpsat.TimeBuckets;
 import dev.sequencer.sequence.problem.Plan;
 import dev.sequencer.sequence.problem.PlanningProblem;
 import dev.sequencer.sequence.problem.Reasons;
+import dev.sequencer.sequence.problem.Sections;
 import dev.sequencer.sequence.problem.Task;
 import dev.sequencer.sequence.search.DeadlineOrders;
 import dev.sequencer.sequence.search.ExactRepair;
@@ -604,14 +605,25 @@ public final class Sequencer {
         }
       }
       List<Planned> planned = new ArrayList<>();
+      Sections sections = problem.sections();
       for (int q = 0; q < plan.size(); q++) {
         Task t = problem.task(plan.order()[q]);
-        long s = plan.startS()[q];
-        long e = plan.endS(q);
         int k = plan.order()[q];
+        if (problem.isMarker(k)) {
+          continue;
+        }
+        long s = sections == null ? plan.startS()[q] : sections.localS(k, plan.startS()[q]);
+        long e = sections == null ? plan.endS(q) : sections.localS(k, plan.endS(q));
         boolean visits = problem.requests().get(problem.structure().requestOf(k)).hasVisits();
         planned.add(new Planned(problem.requestId(k), problem.instant(s), problem.instant(e), s, e, timed.legS()[q],
-            t.flexible() ? plan.value(problem, q) : null, visits ? problem.structure().visitOf(k) : null));
+            t.flexible() ? plan.value(problem, q) : null, visits ? problem.structure().visitOf(k) : null,
+            sections == null ? null : sections.resourceId(sections.sectionOf(k))));
+      }
+      if (sections != null) {
+        // One timeline in time order; observations starting together follow the resources' file order.
+        List<String> ids = sections.resourceIds();
+        planned.sort(java.util.Comparator.comparingLong(Planned::startS)
+            .thenComparingInt(p -> ids.indexOf(p.resource())));
       }
       note(Note.Kind.SOURCE, "returned plan found by " + best.source().name().toLowerCase(Locale.ROOT).replace('_', ' ')
           + ".");
@@ -642,8 +654,9 @@ public final class Sequencer {
 
     /** The one validation of the returned plan: a violation is a bug, and no invalid plan is handed out. */
     private void check(SequencerResult result) {
-      ResultCheck v = options.validator() != null ? options.validator() : ResultCheck.of(
-          new SelfCheck(problem.horizon(), problem.requests(), problem.groups(), problem.windows(),
+      ResultCheck v = options.validator() != null ? options.validator() : ResultCheck.of(problem.sections() != null
+          ? new SectionsCheck(problem.horizon(), problem.requests(), problem.sections())
+          : new SelfCheck(problem.horizon(), problem.requests(), problem.groups(), problem.windows(),
               problem.requestTransitions()));
       List<String> violations = v.violations(result);
       if (!violations.isEmpty()) {
@@ -661,11 +674,13 @@ public final class Sequencer {
       java.util.Set<Integer> noGain = repaired == null ? java.util.Set.of() : new java.util.HashSet<>(repaired.noGain());
       ExactRepair reasons = new ExactRepair(problem, timer);
       List<Unscheduled> out = new ArrayList<>();
-      java.util.Map<Integer, Integer> missing = new java.util.LinkedHashMap<>();
+      java.util.Map<Integer, Integer> missing = new java.util.TreeMap<>(); // file order
       java.util.Map<Integer, String> why = new java.util.HashMap<>();
+      Sections sections = problem.sections();
       for (int k = 0; k < problem.size(); k++) {
         Task t = problem.task(k);
-        if (in[k]) {
+        if (in[k] || problem.isMarker(k) || sections != null && (heldElsewhere(sections, k, in)
+            || !t.schedulable() && otherOptionSchedulable(sections, k))) {
           continue;
         }
         String reason;
@@ -688,24 +703,51 @@ public final class Sequencer {
       return out;
     }
 
+    /** True when another option of k's request (several resources) is in the plan. */
+    private boolean heldElsewhere(Sections sections, int k, boolean[] in) {
+      for (int o : sections.options(sections.unitOf(k))) {
+        if (in[o]) {
+          return true;
+        }
+      }
+      return false;
+    }
+
+    /**
+     * True when some option of k's request other than k can be scheduled: the reason given is then that
+     * option's (a request never visible from one resource is listed with what kept it off the others).
+     */
+    private boolean otherOptionSchedulable(Sections sections, int k) {
+      for (int o : sections.options(sections.unitOf(k))) {
+        if (o != k && problem.task(o).schedulable()) {
+          return true;
+        }
+      }
+      return false;
+    }
+
     private Stats stats(Source source) {
       return new Stats(arcsKept, arcs == null ? 0 : arcs.feasibleArcCount(), buildS, solveS, incumbent.offers(),
           lnsRounds, lnsImprovements, minIgnoringNaN(lpBound, ngBound), source.name(), ownPriority, notes, phases);
     }
 
+    /** Every request with {@code reason} (or why it cannot be scheduled at all), in file order. */
     private List<Unscheduled> all(String reason) {
-      List<Unscheduled> out = new ArrayList<>();
-      java.util.Set<Integer> listed = new java.util.HashSet<>();
+      java.util.Map<Integer, Unscheduled> listed = new java.util.TreeMap<>();
       for (int k = 0; k < problem.size(); k++) {
         Task t = problem.task(k);
         int r = problem.structure().requestOf(k);
-        if (listed.add(r)) {
+        if (problem.isMarker(k) || problem.sections() != null && !t.schedulable()
+            && otherOptionSchedulable(problem.sections(), k)) {
+          continue;
+        }
+        if (!listed.containsKey(r)) {
           Request q = problem.requests().get(r);
-          out.add(new Unscheduled(q.id(), t.schedulable() ? reason : t.emptyReason(),
+          listed.put(r, new Unscheduled(q.id(), t.schedulable() ? reason : t.emptyReason(),
               q.hasVisits() ? q.visits().count() : null));
         }
       }
-      return out;
+      return new ArrayList<>(listed.values());
     }
 
     /** INFEASIBLE: proven, and explained by {@link RequiredConflicts} within the time left (at least 0.2 s). */

@@ -40,13 +40,21 @@ public record SequencerResult(
   /**
    * One scheduled request: start and end (instants and seconds from the horizon start), the exact
    * transition before it, for a flexible request the value collected ({@code null} otherwise) and, for a
-   * request with visits (A4), the visit number (1, 2, … in time order; {@code null} otherwise).
+   * request with visits (A4), the visit number (1, 2, … in time order; {@code null} otherwise), and with
+   * several resources (A6) the resource that makes it ({@code null} with one; seconds and the transition are
+   * then that resource's own).
    */
   public record Planned(String id, Instant start, Instant end, long startS, long endS, double transitionS,
-      Double value, Integer visit) {
+      Double value, Integer visit, String resource) {
     /** A request observed once. */
     public Planned(String id, Instant start, Instant end, long startS, long endS, double transitionS, Double value) {
-      this(id, start, end, startS, endS, transitionS, value, null);
+      this(id, start, end, startS, endS, transitionS, value, null, null);
+    }
+
+    /** An observation of a scenario with one resource. */
+    public Planned(String id, Instant start, Instant end, long startS, long endS, double transitionS, Double value,
+        Integer visit) {
+      this(id, start, end, startS, endS, transitionS, value, visit, null);
     }
   }
 
@@ -126,7 +134,8 @@ public record SequencerResult(
   public Timeline toTimeline() {
     List<Observation> obs = new ArrayList<>();
     for (Planned p : observations) {
-      obs.add(new Observation(p.id(), p.start(), p.end(), p.transitionS(), p.value(), null).withVisit(p.visit()));
+      obs.add(new Observation(p.id(), p.start(), p.end(), p.transitionS(), p.value(), null).withVisit(p.visit())
+          .withResource(p.resource()));
     }
     Double bound = Double.isNaN(boundPriority) ? null : boundPriority;
     return new Timeline(status, totalPriority, totalTransitionS, bound, obs, unscheduled);

@@ -3,6 +3,7 @@ package dev.sequencer.sequence.cpsat;
 import com.google.ortools.sat.CpSolverStatus;
 import dev.sequencer.sequence.problem.Plan;
 import dev.sequencer.sequence.problem.PlanningProblem;
+import dev.sequencer.sequence.problem.Sections;
 import dev.sequencer.sequence.problem.StartRange;
 import dev.sequencer.sequence.problem.Task;
 import dev.sequencer.sequence.timing.ArcCosts;
@@ -127,11 +128,24 @@ public final class NeighbourhoodSearch {
     for (int q = a; q < b; q++) {
       free.add(current.order()[q]);
     }
+    boolean[] fixedElsewhere = new boolean[problem.size()];
+    Sections sections = problem.sections();
+    if (sections != null) {
+      // Several resources: a request observed outside the slice (on any resource) is not offered again.
+      for (int q = 0; q < current.size(); q++) {
+        int u = sections.unitOf(current.order()[q]);
+        if ((q < a || q >= b) && u >= 0) {
+          for (int o : sections.options(u)) {
+            fixedElsewhere[o] = true;
+          }
+        }
+      }
+    }
     List<Integer> candidates = new ArrayList<>();
     double[] score = new double[problem.size()];
     for (int k = 0; k < problem.size(); k++) {
       Task t = problem.task(k);
-      if (planned[k] || !t.schedulable() || (hasSuccessor && k == problem.mustBeLastIndex())
+      if (planned[k] || fixedElsewhere[k] || !t.schedulable() || (hasSuccessor && k == problem.mustBeLastIndex())
           || !startsBetween(t, departS, arriveByS)) {
         continue;
       }

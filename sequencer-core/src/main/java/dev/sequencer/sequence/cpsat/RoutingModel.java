@@ -16,6 +16,7 @@ import com.google.ortools.util.Domain;
 import dev.sequencer.sequence.problem.Plan;
 import dev.sequencer.sequence.problem.PlanningProblem;
 import dev.sequencer.sequence.problem.Prizes;
+import dev.sequencer.sequence.problem.Sections;
 import dev.sequencer.sequence.problem.Span;
 import dev.sequencer.sequence.problem.StartRange;
 import dev.sequencer.sequence.problem.Structure;
@@ -469,6 +470,9 @@ public final class RoutingModel {
         pos.put(nodes.get(a), a);
       }
       boolean whole = spec.from() == Transitions.START && spec.to() < 0 && spec.departS() == 0;
+      if (st.sections() != null) {
+        addUnits(st.sections(), pos, whole);
+      }
       for (Structure.VisitRule rule : st.visits()) {
         Literal[] p = presence(rule.tasks(), pos, whole);
         if (p == null) {
@@ -533,6 +537,37 @@ public final class RoutingModel {
               model.addLessOrEqual(startS.get(b), endPlus(a, g.maxGapS())).onlyEnforceIf(when.toArray(new Literal[0]));
             }
           }
+        }
+      }
+    }
+
+    /**
+     * Several resources ({@link Sections}): the options of one request in the model are alternatives, at most
+     * one present; exactly one for a required request when the model holds all its options (the whole
+     * problem, or a slice that holds them all; otherwise the incumbent's rules decide).
+     */
+    private void addUnits(Sections sec, java.util.Map<Integer, Integer> pos, boolean whole) {
+      for (int u = 0; u < sec.unitCount(); u++) {
+        List<Literal> in = new ArrayList<>();
+        boolean all = true;
+        for (int k : sec.options(u)) {
+          Integer a = pos.get(k);
+          if (a != null) {
+            in.add(present.get(a));
+          } else {
+            all &= whole && !problem.task(k).schedulable();
+          }
+        }
+        if (sec.unitRequired(u) && all) {
+          if (in.isEmpty()) {
+            BoolVar contradiction = model.newBoolVar("unit[" + u + "]");
+            model.addEquality(contradiction, 1);
+            model.addEquality(contradiction, 0);
+          } else {
+            model.addExactlyOne(in);
+          }
+        } else if (in.size() > 1) {
+          model.addAtMostOne(in);
         }
       }
     }

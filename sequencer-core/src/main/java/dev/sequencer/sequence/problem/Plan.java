@@ -91,7 +91,7 @@ public record Plan(int[] order, long[] startS, long[] durationS) {
     for (int k = 0; k < p.size(); k++) {
       missing += p.task(k).required() && !in[k] ? 1 : 0;
     }
-    return missing;
+    return p.sections() == null ? missing : missing + p.sections().unitsMissing(in);
   }
 
   /** {@code in[k]} is true when request k is observed. */

@@ -72,7 +72,11 @@ public final class PlanningProblem {
             + "\" already used by requests[" + prev + "]");
       }
     }
-    this.prizes = prizes != null ? prizes : Prizes.of(this.tasks);
+    boolean[] markers = new boolean[this.tasks.size()];
+    for (int k = 0; k < markers.length; k++) {
+      markers[k] = structure.sections() != null && structure.sections().isMarker(k);
+    }
+    this.prizes = prizes != null ? prizes : Prizes.of(this.tasks, markers);
   }
 
   /**
@@ -356,7 +360,24 @@ public final class PlanningProblem {
 
   /** The id of the request task k observes. */
   public String requestId(int k) {
-    return requests.get(structure.requestOf(k)).id();
+    int r = structure.requestOf(k);
+    return r < 0 ? tasks.get(k).id() : requests.get(r).id();
+  }
+
+  /** The resources' sections (A6), or null for a problem with one resource. */
+  public Sections sections() {
+    return structure.sections();
+  }
+
+  /** True when task k is a section marker (A6), not an observation. */
+  public boolean isMarker(int k) {
+    return structure.sections() != null && structure.sections().isMarker(k);
+  }
+
+  /** The instant of planner seconds {@code s} on task k's own resource clock. */
+  public Instant instant(int k, long s) {
+    Sections sec = structure.sections();
+    return horizonStart.plusSeconds(sec == null ? s : sec.localS(k, s));
   }
 
   /** What the objective collects. */
@@ -376,6 +397,111 @@ public final class PlanningProblem {
 
   /** Sum of the largest value of every schedulable request: always a valid bound on total priority. */
   public double trivialBound() {
-    return tasks.stream().filter(Task::schedulable).mapToDouble(Task::priority).sum();
+    Sections sec = structure.sections();
+    if (sec == null) {
+      return tasks.stream().filter(Task::schedulable).mapToDouble(Task::priority).sum();
+    }
+    double sum = 0;
+    for (int u = 0; u < sec.unitCount(); u++) {
+      double best = 0;
+      for (int k : sec.options(u)) {
+        best = tasks.get(k).schedulable() ? Math.max(best, tasks.get(k).priority()) : best;
+      }
+      sum += best;
+    }
+    return sum;
+  }
+
+  /** Seconds between two sections' offsets: the horizon, so that a section ends where the next starts. */
+  private static long sectionLengthS(long horizonS) {
+    return horizonS;
+  }
+
+  /**
+   * Builds the problem of several resources (A6) as {@link Sections}: per resource r (in {@code resourceIds}
+   * order) the windows of the requests it may observe ({@code windows.get(r)}, by id; a request without an
+   * entry is not observable there) and its transitions indexed by request ({@code transitions.get(r)},
+   * configuration changes folded in). Each request becomes one option per resource that has an entry for it,
+   * named {@code id@resource}; sections 1… open with a marker task. Requests with visits and groups are not
+   * supported here (the caller refuses them).
+   */
+  public static PlanningProblem ofSections(TimeWindow horizon, List<Request> requests, List<String> resourceIds,
+      List<List<RequestWindows>> windows, List<Transitions> transitions) {
+    int m = resourceIds.size();
+    if (windows.size() != m || transitions.size() != m) {
+      throw new IllegalArgumentException("ofSections: " + m + " resources, " + windows.size() + " window lists, "
+          + transitions.size() + " transition models");
+    }
+    Instant t0 = horizon.start();
+    long horizonS = (long) Math.floor(horizon.durationS());
+    long length = sectionLengthS(horizonS);
+    long[] offsets = new long[m];
+    for (int r = 1; r < m; r++) {
+      offsets[r] = offsets[r - 1] + length;
+    }
+    List<Map<String, RequestWindows>> byId = new ArrayList<>();
+    for (List<RequestWindows> ws : windows) {
+      Map<String, RequestWindows> map = new HashMap<>();
+      for (RequestWindows w : ws) {
+        map.put(w.id(), w);
+      }
+      byId.add(map);
+    }
+    List<Task> tasks = new ArrayList<>();
+    List<Integer> sectionOf = new ArrayList<>();
+    List<Boolean> marker = new ArrayList<>();
+    List<Integer> requestOf = new ArrayList<>();
+    boolean[] required = new boolean[requests.size()];
+    boolean[] anywhere = new boolean[requests.size()];
+    for (int r = 0; r < m; r++) {
+      for (int k = 0; k < requests.size(); k++) {
+        anywhere[k] |= byId.get(r).containsKey(requests.get(k).id());
+      }
+    }
+    for (int r = 0; r < m; r++) {
+      if (r > 0) {
+        tasks.add(Task.marker("|" + resourceIds.get(r) + "|", offsets[r]));
+        sectionOf.add(r);
+        marker.add(true);
+        requestOf.add(-1);
+      }
+      for (int k = 0; k < requests.size(); k++) {
+        Request q = requests.get(k);
+        RequestWindows rw = byId.get(r).get(q.id());
+        if (rw == null && (anywhere[k] || r > 0)) {
+          continue; // a request no resource may observe keeps one option, never visible, to be listed
+        }
+        if (q.hasVisits()) {
+          throw new IllegalArgumentException("requests[" + k + "]: visits with several resources are not supported");
+        }
+        String where = "requests[" + k + "] (id \"" + q.id() + "\")";
+        List<Span> spans = new ArrayList<>();
+        for (Span sp : spans(t0, horizonS, rw == null ? List.of() : rw.intervals())) {
+          spans.add(new Span(sp.fromS() + offsets[r], sp.toS() + offsets[r]));
+        }
+        Task one = q.isFlexible() ? flexibleTask(q, where, spans)
+            : Task.fixedInSpans(q.id(), whole(q.durationS(), where + ".durationS"), q.priority(), false, spans);
+        tasks.add(one.withRequired(false).withId(q.id() + "@" + resourceIds.get(r)));
+        sectionOf.add(r);
+        marker.add(false);
+        requestOf.add(k);
+        required[k] = q.required();
+      }
+    }
+    int n = tasks.size();
+    int[] sec = sectionOf.stream().mapToInt(Integer::intValue).toArray();
+    boolean[] mk = new boolean[n];
+    for (int k = 0; k < n; k++) {
+      mk[k] = marker.get(k);
+    }
+    int[] rq = requestOf.stream().mapToInt(Integer::intValue).toArray();
+    Sections sections = new Sections(resourceIds, offsets, sec, mk, rq, required).withInputs(windows, transitions);
+    int[] one = new int[n];
+    java.util.Arrays.fill(one, 1);
+    Structure structure = new Structure(rq, one, List.of(), List.of(), sections);
+    Transitions byTask = new SectionTransitions(transitions, sections, rq);
+    Prizes prizes = Prizes.of(tasks, mk);
+    return new PlanningProblem(t0, offsets[m - 1] + horizonS, tasks, byTask, -1, horizon, requests, List.of(),
+        prizes, structure, byTask, List.of());
   }
 }

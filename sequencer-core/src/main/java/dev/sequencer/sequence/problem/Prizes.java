@@ -43,11 +43,22 @@ public final class Prizes {
 
   /** The plain objective of these tasks: scaled values, no bonus. */
   public static Prizes of(List<Task> tasks) {
+    return of(tasks, new boolean[tasks.size()]);
+  }
+
+  /**
+   * The plain objective of these tasks, with the tasks marked in {@code none} collecting nothing (the section
+   * markers of several resources, {@link Sections}); the scale is chosen from the other tasks.
+   */
+  public static Prizes of(List<Task> tasks, boolean[] none) {
     long chosen = -1;
     for (long f = 1; f <= 1000 && chosen < 0; f *= 10) {
       boolean all = true;
       for (int k = 0; k < tasks.size() && all; k++) {
         Task t = tasks.get(k);
+        if (none[k]) {
+          continue;
+        }
         for (int g = 0; g < t.optionCount() && all; g++) {
           all = whole(t.value(g) * f);
         }
@@ -64,7 +75,7 @@ public final class Prizes {
       scaled[k] = new long[t.optionCount()];
       for (int g = 0; g < t.optionCount(); g++) {
         long v = Math.round(t.value(g) * factor);
-        scaled[k][g] = t.flexible() ? v : Math.max(1, v);
+        scaled[k][g] = none[k] ? 0 : t.flexible() ? v : Math.max(1, v);
       }
     }
     return new Prizes(factor, rounded, 1, scaled, new long[tasks.size()], Map.of());

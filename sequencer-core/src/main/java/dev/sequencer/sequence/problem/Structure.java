@@ -57,8 +57,17 @@ public final class Structure {
   private final int[] visitRuleOf;
   private final int[] groupOf;
   private final int[] memberOf;
+  private final Sections sections;
 
+  /** Rules without resources (A6). */
   public Structure(int[] requestOf, int[] visitOf, List<VisitRule> visits, List<GroupRule> groups) {
+    this(requestOf, visitOf, visits, groups, null);
+  }
+
+  /** Rules of a problem whose tasks are options on several resources ({@code sections}; null for one). */
+  public Structure(int[] requestOf, int[] visitOf, List<VisitRule> visits, List<GroupRule> groups,
+      Sections sections) {
+    this.sections = sections;
     this.requestOf = requestOf.clone();
     this.visitOf = visitOf.clone();
     this.visits = List.copyOf(visits);
@@ -88,7 +97,12 @@ public final class Structure {
 
   /** True when no rule ties tasks together. */
   public boolean isEmpty() {
-    return visits.isEmpty() && groups.isEmpty();
+    return visits.isEmpty() && groups.isEmpty() && sections == null;
+  }
+
+  /** The resources' sections (A6), or null with one resource. */
+  public Sections sections() {
+    return sections;
   }
 
   /** Number of tasks. */
@@ -96,7 +110,7 @@ public final class Structure {
     return requestOf.length;
   }
 
-  /** Index (scenario order) of the request task k observes. */
+  /** Index (scenario order) of the request task k observes; -1 for a section marker ({@link Sections}). */
   public int requestOf(int k) {
     return requestOf[k];
   }
@@ -184,7 +198,8 @@ public final class Structure {
   /**
    * The plan with its visits numbered in time order and every observation that breaks a rule left out:
    * walking in time order, a visit that starts too soon or too late after the previous kept visit, or in
-   * the same span as a kept visit (one per window), is dropped; then requests with all-or-nothing visits
+   * the same span as a kept visit (one per window), is dropped (and, with several resources, every option of
+   * a request after its first); then requests with all-or-nothing visits
    * that lack some; then, per ordered group in list order, a member that starts before the previous kept
    * member ends or after its maximum gap; then all-or-nothing groups that lack some member's visits.
    * Returns {@code plan} itself when it keeps every rule. Starts are unchanged, so a plan that was timed
@@ -199,6 +214,16 @@ public final class Structure {
     int[] order = plan.order().clone();
     boolean[] keep = new boolean[n];
     Arrays.fill(keep, true);
+    if (sections != null) {
+      boolean[] held = new boolean[sections.unitCount()];
+      for (int q = 0; q < n; q++) {
+        int u = sections.unitOf(order[q]);
+        if (u >= 0) {
+          keep[q] = !held[u];
+          held[u] = true;
+        }
+      }
+    }
     for (VisitRule rule : visits) {
       int next = 0;
       int last = -1;

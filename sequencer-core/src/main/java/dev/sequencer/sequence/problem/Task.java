@@ -36,9 +36,16 @@ public final class Task {
   private final List<Span> spans;
   private final List<StartRange> starts;
   private final String emptyReason;
+  private final boolean marker;
 
   private Task(String id, boolean required, boolean flexible, long minDurationS, long stepS, double[] values,
       List<Span> spans, String noWindowReason) {
+    this(id, required, flexible, minDurationS, stepS, values, spans, noWindowReason, false);
+  }
+
+  private Task(String id, boolean required, boolean flexible, long minDurationS, long stepS, double[] values,
+      List<Span> spans, String noWindowReason, boolean marker) {
+    this.marker = marker;
     this.id = Objects.requireNonNull(id, "id");
     this.required = required;
     this.flexible = flexible;
@@ -56,7 +63,7 @@ public final class Task {
       throw new IllegalArgumentException("request " + id + ": no exposure option");
     }
     for (double v : values) {
-      if (!Double.isFinite(v) || v < 0 || (!flexible && !(v > 0))) {
+      if (!Double.isFinite(v) || v < 0 || (!flexible && !marker && !(v > 0))) {
         throw new IllegalArgumentException("request " + id + ": " + (flexible ? "values must be finite numbers >= 0"
             : "priority must be a finite number > 0") + ", got " + v);
       }
@@ -102,14 +109,22 @@ public final class Task {
     return new Task(id, required, true, minDurationS, stepS, values, spans, null);
   }
 
+  /**
+   * A section marker of several resources ({@link Sections}): required, zero length, worth nothing, pinned at
+   * {@code atS}. Only {@link PlanningProblem#ofSections} makes them.
+   */
+  static Task marker(String id, long atS) {
+    return new Task(id, true, false, 0, 1, new double[] {0}, List.of(new Span(atS, atS)), null, true);
+  }
+
   /** A copy with another required flag. */
   public Task withRequired(boolean value) {
-    return new Task(id, value, flexible, minDurationS, stepS, values, spans, null);
+    return new Task(id, value, flexible, minDurationS, stepS, values, spans, null, marker);
   }
 
   /** A copy with another id (a visit of a request observed several times). */
   public Task withId(String newId) {
-    return new Task(newId, required, flexible, minDurationS, stepS, values, spans, null);
+    return new Task(newId, required, flexible, minDurationS, stepS, values, spans, null, marker);
   }
 
   public String id() {

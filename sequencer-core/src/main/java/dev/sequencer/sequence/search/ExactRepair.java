@@ -4,6 +4,7 @@ import dev.sequencer.sequence.problem.Plan;
 import dev.sequencer.sequence.problem.PlanningProblem;
 import dev.sequencer.sequence.problem.Reasons;
 import dev.sequencer.sequence.problem.Score;
+import dev.sequencer.sequence.problem.Sections;
 import dev.sequencer.sequence.problem.Structure;
 import dev.sequencer.sequence.problem.Span;
 import dev.sequencer.sequence.problem.Task;
@@ -48,12 +49,27 @@ public final class ExactRepair {
   public record Result(Plan plan, List<Integer> inserted, List<Integer> failed, List<Integer> noGain,
       List<Integer> untried) {}
 
+  /** True when another option of k's request (several resources) is in the plan. */
+  private static boolean mateIn(Sections sections, int k, boolean[] in) {
+    if (sections == null || sections.unitOf(k) < 0) {
+      return false;
+    }
+    for (int o : sections.options(sections.unitOf(k))) {
+      if (in[o]) {
+        return true;
+      }
+    }
+    return false;
+  }
+
   /** Inserts what fits into {@code plan} (exact-feasible, as from {@link ExactTimer}) until {@code deadlineNanos}. */
   public Result repair(Plan plan, long deadlineNanos) {
     boolean[] in = plan.membership(problem.size());
     List<Integer> candidates = new ArrayList<>();
+    Sections sections = problem.sections();
     for (int k = 0; k < problem.size(); k++) {
-      if (!in[k] && problem.task(k).schedulable()) {
+      if (!in[k] && problem.task(k).schedulable()
+          && !mateIn(sections, k, in)) {
         candidates.add(k);
       }
     }

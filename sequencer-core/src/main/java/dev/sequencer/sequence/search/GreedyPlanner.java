@@ -3,6 +3,7 @@ package dev.sequencer.sequence.search;
 import dev.sequencer.sequence.problem.Plan;
 import dev.sequencer.sequence.problem.PlanningProblem;
 import dev.sequencer.sequence.problem.Score;
+import dev.sequencer.sequence.problem.Sections;
 import dev.sequencer.sequence.problem.Structure;
 import dev.sequencer.sequence.problem.Task;
 import dev.sequencer.sequence.timing.ExactTimer;
@@ -79,6 +80,12 @@ public final class GreedyPlanner {
         .filter(k -> problem.task(k).required() && problem.task(k).schedulable()).toArray();
   }
 
+  /** True when task j is required: itself, or as an option of a required request on several resources. */
+  private boolean mustHave(int j) {
+    Sections sec = rules.sections();
+    return problem.task(j).required() || sec != null && sec.unitOf(j) >= 0 && sec.unitRequired(sec.unitOf(j));
+  }
+
   /** The greedy plan (maybe missing required requests; the caller's score says so). */
   public Plan plan() {
     return plan(Long.MAX_VALUE);
@@ -136,7 +143,7 @@ public final class GreedyPlanner {
         for (int j = 0; j < n && !cut; j++) {
           Task tj = problem.task(j);
           if (done[j] || excluded[j] || !tj.schedulable() || (pass == 0) == (j == problem.mustBeLastIndex())
-              || (how == Pass.REQUIRED_FIRST && !tj.required())) {
+              || (how == Pass.REQUIRED_FIRST && !mustHave(j))) {
             continue;
           }
           if (deadlineNanos != Long.MAX_VALUE && System.nanoTime() > deadlineNanos) {
@@ -244,6 +251,14 @@ public final class GreedyPlanner {
    * complete.
    */
   private boolean rulesAllow(int j, boolean[] done) {
+    Sections sec = rules.sections();
+    if (sec != null && sec.unitOf(j) >= 0) {
+      for (int k : sec.options(sec.unitOf(j))) {
+        if (k != j && done[k]) {
+          return false; // the request is observed on another resource already
+        }
+      }
+    }
     Structure.VisitRule v = rules.visitRuleOf(j);
     if (v != null) {
       for (int q = 0; q < v.tasks().length && v.tasks()[q] != j; q++) {
@@ -336,7 +351,7 @@ public final class GreedyPlanner {
     for (int j = 0; j < problem.size(); j++) {
       Task tj = problem.task(j);
       if (!done[j] && !excluded[j] && tj.schedulable() && tj.latestStartS() > t
-          && (how != Pass.REQUIRED_FIRST || tj.required())) {
+          && (how != Pass.REQUIRED_FIRST || mustHave(j))) {
         return true;
       }
     }

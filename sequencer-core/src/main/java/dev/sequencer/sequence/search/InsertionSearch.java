@@ -3,6 +3,7 @@ package dev.sequencer.sequence.search;
 import dev.sequencer.sequence.problem.Plan;
 import dev.sequencer.sequence.problem.PlanningProblem;
 import dev.sequencer.sequence.problem.Score;
+import dev.sequencer.sequence.problem.Sections;
 import dev.sequencer.sequence.problem.Task;
 import dev.sequencer.sequence.timing.ArcCosts;
 import dev.sequencer.slew.Transitions;
@@ -214,6 +215,20 @@ public final class InsertionSearch {
     return any;
   }
 
+  /** True when another option of k's request (several resources, {@link Sections}) is planned. */
+  private boolean mateHeld(int k) {
+    Sections sections = problem.sections();
+    if (sections == null || sections.unitOf(k) < 0) {
+      return false;
+    }
+    for (int o : sections.options(sections.unitOf(k))) {
+      if (o != k && seq.planned(o)) {
+        return true;
+      }
+    }
+    return false;
+  }
+
   /** Inserts the best (priority² / time used) fitting pair until none fits; requests marked in {@code skip} wait. */
   private void insertAll(boolean[] skip) {
     int last = problem.mustBeLastIndex();
@@ -225,7 +240,8 @@ public final class InsertionSearch {
       boolean bestRequired = false; // a fitting required request goes before any optional one
       int maxPos = last >= 0 && seq.planned(last) ? seq.positionOf(last) : m;
       for (int k = 0; k < n; k++) {
-        if (seq.planned(k) || !schedulable[k] || (skip != null && skip[k]) || (bestRequired && !required[k])) {
+        if (seq.planned(k) || !schedulable[k] || (skip != null && skip[k]) || (bestRequired && !required[k])
+            || mateHeld(k)) {
           continue;
         }
         double p = priority[k];
