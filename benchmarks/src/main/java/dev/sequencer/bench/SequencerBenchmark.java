@@ -35,11 +35,15 @@ public final class SequencerBenchmark {
     Locale.setDefault(Locale.ROOT);
     switch (args[0]) {
       case "dumas" -> dumas(Double.parseDouble(args[1]), args.length > 2 ? args[2] : "n");
+      case "network" -> network(Integer.parseInt(args[1]), Integer.parseInt(args[2]), Double.parseDouble(args[3]),
+          Long.parseLong(args[4]));
+      case "team1" -> teamOne(Double.parseDouble(args[1]), Integer.parseInt(args[2]), args.length > 3 ? args[3] : "");
+      case "team" -> team(Double.parseDouble(args[1]), args.length > 2 ? args[2] : "");
       case "optw" -> optw(Double.parseDouble(args[1]), args.length > 2 ? args[2] : "");
       case "optwbound" -> optwBound(Double.parseDouble(args[1]), Integer.parseInt(args[2]), args.length > 3 ? args[3] : "");
       case "night" -> night(Integer.parseInt(args[1]), Double.parseDouble(args[2]), Long.parseLong(args[3]),
           args.length > 4 ? args[4] : "full");
-      default -> throw new IllegalArgumentException("usage: dumas <timeLimitS> [prefix] | optw <timeLimitS> [prefix] | optwbound <timeLimitS> <ngSize> [prefix] | night <n> <timeLimitS> <seed> [variant]");
+      default -> throw new IllegalArgumentException("usage: dumas <timeLimitS> [prefix] | team <timeLimitS> [prefix] | team1 <timeLimitS> <m> [prefix] | network <n> <sites> <timeLimitS> <seed> | optw <timeLimitS> [prefix] | optwbound <timeLimitS> <ngSize> [prefix] | night <n> <timeLimitS> <seed> [variant]");
     }
   }
 
@@ -117,6 +121,73 @@ public final class SequencerBenchmark {
         100 * gaps.get(gaps.size() - 1), timeLimitS);
   }
 
+  /**
+   * Team orienteering with time windows (several identical resources, A6): every case of team-proven.csv
+   * (2-series, m = 2–4, optimum = every customer's profit), planned by CP-SAT and by greedy (each resource in
+   * turn, the common practice); prints both against the proven value with the bound and gap.
+   */
+  private static void team(double timeLimitS, String prefix) throws Exception {
+    Path folder = OptwInstance.folder();
+    if (folder == null) {
+      throw new IllegalStateException("shared/benchmarks/optw not found");
+    }
+    int reached = 0;
+    int cases = 0;
+    double worstGap = 0;
+    for (String line : java.nio.file.Files.readAllLines(folder.resolve("team-proven.csv"))) {
+      String[] f = line.split(",");
+      if (f[0].equals("instance") || !f[0].startsWith(prefix)) {
+        continue;
+      }
+      int m = Integer.parseInt(f[1]);
+      double proven = Double.parseDouble(f[2]);
+      OptwInstance inst = OptwInstance.read(folder.resolve("solomon-2").resolve(f[0] + ".txt"));
+      PlanningProblem p = inst.toTeamProblem(m);
+      SequencerResult g = new Sequencer().plan(p, SequencerOptions.defaults()
+          .withSolver(SequencerOptions.Solver.GREEDY).withTimeLimitS(timeLimitS));
+      long t0 = System.nanoTime();
+      SequencerResult r = new Sequencer().plan(p, SequencerOptions.defaults().withTimeLimitS(timeLimitS).withWorkers(2));
+      double s = (System.nanoTime() - t0) * 1e-9;
+      boolean ok = r.hasPlan() && r.totalPriority() >= proven - 1e-9;
+      reached += ok ? 1 : 0;
+      cases++;
+      worstGap = Math.max(worstGap, r.gap());
+      System.out.printf("%-6s m=%d %-9s priority %6.0f proven %6.0f %s greedy %6.0f bound %7.1f gap %5.1f%% %6.2f s%n",
+          f[0], m, r.status(), r.totalPriority(), proven, ok ? "OK  " : "MISS", g.totalPriority(), r.boundPriority(),
+          100 * r.gap(), s);
+    }
+    System.out.printf("team: %d/%d at the proven optimum, worst reported gap %.1f%% (limit %.0f s, 2 workers)%n",
+        reached, cases, 100 * worstGap, timeLimitS);
+  }
+
+  /**
+   * The 1-series OPTW instances with {@code m} identical resources (TOPTW, no published values here): CP-SAT's
+   * collected profit against greedy (each resource in turn) and against its own reported bound.
+   */
+  private static void teamOne(double timeLimitS, int m, String prefix) throws Exception {
+    List<Double> gaps = new ArrayList<>();
+    List<Double> ratios = new ArrayList<>();
+    for (Path f : optwFiles(prefix)) {
+      OptwInstance inst = OptwInstance.read(f);
+      PlanningProblem p = inst.toTeamProblem(m);
+      SequencerResult g = new Sequencer().plan(p, SequencerOptions.defaults()
+          .withSolver(SequencerOptions.Solver.GREEDY).withTimeLimitS(timeLimitS));
+      long t0 = System.nanoTime();
+      SequencerResult r = new Sequencer().plan(p, SequencerOptions.defaults().withTimeLimitS(timeLimitS).withWorkers(2));
+      double s = (System.nanoTime() - t0) * 1e-9;
+      gaps.add(r.gap());
+      ratios.add(r.totalPriority() / g.totalPriority());
+      System.out.printf("%-6s m=%d %-9s priority %6.0f greedy %6.0f (ratio %.3f) bound %7.1f gap %5.1f%% %6.2f s%n",
+          inst.name(), m, r.status(), r.totalPriority(), g.totalPriority(), r.totalPriority() / g.totalPriority(),
+          r.boundPriority(), 100 * r.gap(), s);
+    }
+    gaps.sort(Double::compare);
+    ratios.sort(Double::compare);
+    System.out.printf("team1 m=%d: %d instances, CP-SAT/greedy median %.3f (min %.3f), reported gap median %.1f%%, "
+        + "worst %.1f%% (limit %.0f s, 2 workers)%n", m, gaps.size(), ratios.get(ratios.size() / 2), ratios.get(0),
+        100 * gaps.get(gaps.size() / 2), 100 * gaps.get(gaps.size() - 1), timeLimitS);
+  }
+
   /** The bounds alone on every OPTW instance: LP and ng-route DP with the published value as the floor and with none. */
   private static void optwBound(double timeLimitS, int ngSize, String prefix) throws Exception {
     Map<String, double[]> published = OptwInstance.published(OptwInstance.folder().resolve("best-known.csv"));
@@ -137,6 +208,61 @@ public final class SequencerBenchmark {
             r.elementary() ? " elementary" : "", s);
       }
     }
+  }
+
+  /**
+   * One synthetic night on a network of {@code sites} identical telescopes ({@link NightScenario#network}):
+   * the joint plan (CP-SAT over all sites, the whole time limit) against planning each site in turn (the
+   * common practice: site 1 with CP-SAT on every request, site 2 on what is left, …, each with an equal share
+   * of the time limit) and against greedy (which on the joint problem also fills one site after the other).
+   */
+  private static void network(int n, int sites, double timeLimitS, long seed) {
+    PlanningProblem[] p = NightScenario.network(n, sites, seed);
+    double inTurn = 0;
+    java.util.Set<String> taken = new java.util.HashSet<>();
+    long t0 = System.nanoTime();
+    for (int r = 0; r < sites; r++) {
+      PlanningProblem site = p[r];
+      List<dev.sequencer.model.Request> left = site.requests().stream().filter(q -> !taken.contains(q.id())).toList();
+      List<dev.sequencer.model.RequestWindows> w = site.windows().stream().filter(x -> !taken.contains(x.id())).toList();
+      List<Integer> keep = new ArrayList<>();
+      for (int k = 0; k < site.requests().size(); k++) {
+        if (!taken.contains(site.requests().get(k).id())) {
+          keep.add(k);
+        }
+      }
+      PlanningProblem rest = PlanningProblem.of(site.horizon(), left, w, subset(site.transitions(), keep));
+      SequencerResult one = new Sequencer().plan(rest,
+          SequencerOptions.defaults().withTimeLimitS(timeLimitS / sites).withWorkers(2).withSeed((int) seed));
+      one.observations().forEach(o -> taken.add(o.id()));
+      inTurn += one.totalPriority();
+    }
+    double inTurnS = (System.nanoTime() - t0) * 1e-9;
+    SequencerResult greedy = new Sequencer().plan(p[sites],
+        SequencerOptions.defaults().withSolver(SequencerOptions.Solver.GREEDY).withTimeLimitS(timeLimitS));
+    long t1 = System.nanoTime();
+    SequencerResult joint = new Sequencer().plan(p[sites],
+        SequencerOptions.defaults().withTimeLimitS(timeLimitS).withWorkers(2).withSeed((int) seed));
+    double jointS = (System.nanoTime() - t1) * 1e-9;
+    System.out.printf("network n=%d sites=%d seed=%d limit=%.0fs: joint %s priority %.0f (bound %.1f, gap %.1f%%, "
+            + "%.1f s), each site in turn %.0f (%.1f s, joint/in-turn %.3f), greedy %.0f (joint/greedy %.3f)%n",
+        n, sites, seed, timeLimitS, joint.status(), joint.totalPriority(), joint.boundPriority(), 100 * joint.gap(),
+        jointS, inTurn, inTurnS, joint.totalPriority() / inTurn, greedy.totalPriority(),
+        joint.totalPriority() / greedy.totalPriority());
+  }
+
+  /** The matrix transitions of {@code t} restricted to the requests {@code keep} (in that order). */
+  private static dev.sequencer.slew.Transitions subset(dev.sequencer.slew.Transitions t, List<Integer> keep) {
+    int m = keep.size();
+    double[][] table = new double[m][m];
+    double[] fromStart = new double[m];
+    for (int i = 0; i < m; i++) {
+      fromStart[i] = t.boundS(dev.sequencer.slew.Transitions.START, keep.get(i), 0, 0);
+      for (int j = 0; j < m; j++) {
+        table[i][j] = i == j ? 0 : t.boundS(keep.get(i), keep.get(j), 0, 0);
+      }
+    }
+    return dev.sequencer.slew.Transitions.matrix(table, fromStart);
   }
 
   private static void night(int n, double timeLimitS, long seed, String variant) {

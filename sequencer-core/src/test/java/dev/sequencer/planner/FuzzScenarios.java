@@ -260,6 +260,39 @@ public final class FuzzScenarios {
     return s.withRequests(s.requests().stream().map(r -> r.withRequired(required.contains(r.id()))).toList());
   }
 
+  /**
+   * The same requests on 2 or 3 resources (format addition A6): the scenario's own observer, slew model and
+   * start pointing as the first; the others a ground site moved by a few degrees (a network: other sky,
+   * a night shifted by up to an hour) with a stricter elevation minimum, or for a spacecraft a twin on the
+   * same orbit with a stricter Sun keep-out, or without an observer the same table; each request restricted
+   * to one random resource one time in five.
+   */
+  public static Scenario withResources(Scenario s, Random rnd) {
+    int m = 2 + rnd.nextInt(2);
+    List<dev.sequencer.model.Resource> resources = new ArrayList<>();
+    resources.add(new dev.sequencer.model.Resource("r1", s.observer(), s.slew(), s.startPointing(), null, null));
+    for (int r = 2; r <= m; r++) {
+      Observer o = s.observer();
+      Constraints own = Constraints.none();
+      if (o instanceof GroundSite g) {
+        o = new GroundSite(Math.max(-80, Math.min(80, g.latitudeDeg() + (rnd.nextDouble() * 12 - 6))),
+            norm(g.longitudeDeg() + rnd.nextDouble() * 30 - 15), g.altitudeM(), g.horizonMask(), g.refraction());
+        double min = s.constraints().elevationMinDeg() == null ? 10 : s.constraints().elevationMinDeg();
+        own = Constraints.builder().elevationMinDeg(min + 5).build();
+      } else if (o instanceof OrbitObserver && s.constraints().sunSeparationMinDeg() != null) {
+        own = Constraints.builder().sunSeparationMinDeg(s.constraints().sunSeparationMinDeg() + 10).build();
+      }
+      resources.add(new dev.sequencer.model.Resource("r" + r, o, s.slew(), s.startPointing(),
+          dev.sequencer.model.ConstraintOverrides.setting(own), null));
+    }
+    List<Request> requests = new ArrayList<>();
+    for (Request q : s.requests()) {
+      requests.add(rnd.nextInt(5) == 0 ? q.withResources(List.of("r" + (1 + rnd.nextInt(m)))) : q);
+    }
+    return new Scenario(s.format(), s.name() + " on " + m + " resources", s.horizon(), null, s.constraints(),
+        s.slew(), null, requests, s.solver(), s.groups(), s.reconfiguration(), s.startConfiguration(), resources);
+  }
+
   /** A mask with a raised sector (up to 25° above the elevation limit) that binds for some targets, across 0°/360° one time in three. */
   private static List<AzEl> mask(Random rnd, double elevationMin) {
     double centre = rnd.nextInt(3) == 0 ? 0 : rnd.nextInt(360);

@@ -62,6 +62,45 @@ public final class NightScenario {
         Transitions.matrix(m, fromStart));
   }
 
+  /**
+   * The same night seen from {@code sites} telescopes of one network (several resources, A6): the requests,
+   * positions and slew table of {@link #generate} (identical telescopes), and per site its own 2–3 windows
+   * per request drawn as in {@link #generate} from a seed of its own (a site at another longitude sees each
+   * target at other times); one request in five is not visible from a site at all. Same (n, sites, seed),
+   * same problem. {@code result[r]} is the problem of site r alone; {@code result[sites]} the joint one.
+   */
+  public static PlanningProblem[] network(int n, int sites, long seed) {
+    PlanningProblem base = generate(n, seed);
+    List<String> ids = new ArrayList<>();
+    List<List<RequestWindows>> windows = new ArrayList<>();
+    List<Transitions> transitions = new ArrayList<>();
+    PlanningProblem[] out = new PlanningProblem[sites + 1];
+    for (int r = 0; r < sites; r++) {
+      Random rnd = new Random(seed * 31 + r + 1);
+      List<RequestWindows> mine = new ArrayList<>();
+      for (Request q : base.requests()) {
+        if (rnd.nextInt(5) == 0) {
+          continue;
+        }
+        int count = 2 + rnd.nextInt(2);
+        List<TimeWindow> w = new ArrayList<>();
+        long slot = NIGHT_S / count;
+        for (int i = 0; i < count; i++) {
+          long len = Math.min(1800 + rnd.nextInt(3 * 3600 - 1800), slot - 60);
+          long a = i * slot + rnd.nextInt((int) Math.max(1, slot - len));
+          w.add(new TimeWindow(T0.plusSeconds(a), T0.plusSeconds(a + len)));
+        }
+        mine.add(new RequestWindows(q.id(), w));
+      }
+      ids.add("site" + (r + 1));
+      windows.add(mine);
+      transitions.add(base.transitions());
+      out[r] = PlanningProblem.of(base.horizon(), base.requests(), mine, base.transitions());
+    }
+    out[sites] = PlanningProblem.ofSections(base.horizon(), base.requests(), ids, windows, transitions);
+    return out;
+  }
+
   private static double slew(double[] a, double[] b) {
     double dot = Math.max(-1, Math.min(1, a[0] * b[0] + a[1] * b[1] + a[2] * b[2]));
     double angleDeg = Math.toDegrees(Math.acos(dot));

@@ -97,6 +97,23 @@ public record OptwInstance(String name, double[] x, double[] y, long[] service, 
         Transitions.matrix(m, fromStart));
   }
 
+  /**
+   * The team version (TOPTW): {@code resources} identical resources sharing the depot, each with the same
+   * windows and travel table as {@link #toProblem}, as several resources (format addition A6).
+   */
+  public PlanningProblem toTeamProblem(int resources) {
+    PlanningProblem one = toProblem();
+    List<String> ids = new ArrayList<>();
+    List<List<RequestWindows>> windows = new ArrayList<>();
+    List<Transitions> transitions = new ArrayList<>();
+    for (int r = 0; r < resources; r++) {
+      ids.add("v" + (r + 1));
+      windows.add(one.windows());
+      transitions.add(one.transitions());
+    }
+    return PlanningProblem.ofSections(one.horizon(), one.requests(), ids, windows, transitions);
+  }
+
   /** Published values by instance: {objective, 1 when proven optimal}, from best-known.csv. */
   public static Map<String, double[]> published(Path csv) throws IOException {
     Map<String, double[]> out = new LinkedHashMap<>();

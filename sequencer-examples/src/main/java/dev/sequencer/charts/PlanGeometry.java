@@ -47,6 +47,17 @@ public final class PlanGeometry {
         FastMath.toRadians(site.latitudeDeg()), FastMath.toRadians(site.longitudeDeg()), site.altitudeM()));
   }
 
+  /**
+   * The geometry of resource {@code id} of a scenario with several resources (A6): its own observer over the
+   * same requests; this geometry itself for {@code null} (one observer) or an unknown id.
+   */
+  public PlanGeometry forResource(String id) {
+    if (id == null) {
+      return this;
+    }
+    return scenario.resource(id).map(r -> new PlanGeometry(scenario.forResource(r), ctx)).orElse(this);
+  }
+
   /** The scenario. */
   public Scenario scenario() {
     return scenario;

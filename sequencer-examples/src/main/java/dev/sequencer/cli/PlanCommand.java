@@ -113,10 +113,12 @@ final class PlanCommand implements Callable<Integer> {
    * when {@code visibility} (in request order, or null) says.
    */
   static void print(PrintWriter out, SequencerResult result, Timeline t, List<RequestVisibility> visibility) {
-    out.printf(Locale.ROOT, "%-12s %-24s %-24s %8s %8s%n", "id", "start", "end", "dur [s]", "slew [s]");
+    boolean resources = t.observations().stream().anyMatch(o -> o.resource() != null);
+    out.printf(Locale.ROOT, "%-12s %-24s %-24s %8s %8s%s%n", "id", "start", "end", "dur [s]", "slew [s]",
+        resources ? "  resource" : "");
     for (Observation o : t.observations()) {
-      out.printf(Locale.ROOT, "%-12s %-24s %-24s %8.0f %8.1f%n", o.visit() == null ? o.id() : o.id() + " #" + o.visit(),
-          o.start(), o.end(), o.durationS(), o.slewSeconds());
+      out.printf(Locale.ROOT, "%-12s %-24s %-24s %8.0f %8.1f%s%n", o.visit() == null ? o.id() : o.id() + " #" + o.visit(),
+          o.start(), o.end(), o.durationS(), o.slewSeconds(), resources ? "  " + o.resource() : "");
     }
     for (Unscheduled u : t.unscheduled()) {
       out.printf(Locale.ROOT, "%-12s %s: %s%n", u.id(), u.visitsMissing() == null ? "not scheduled"

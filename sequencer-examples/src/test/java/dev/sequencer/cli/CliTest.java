@@ -159,7 +159,7 @@ class CliTest {
     Path scenario = dir.resolve("demo-night.json");
     Files.copy(DEMO, scenario);
     assertEquals(0, run("check", scenario.toString(), out.resolve("timeline.json").toString()).code());
-    // One CSV line per observation, in timeline order, each with 18 fields and the observation's start (ISO-8601
+    // One CSV line per observation, in timeline order, each with 19 fields and the observation's start (ISO-8601
     // and again as "yyyy-MM-dd HH:mm:ss"), then one line per unscheduled request with its reason.
     var timeline = dev.sequencer.io.TimelineFile.read(out.resolve("timeline.json"));
     List<String> csv = Files.readAllLines(out.resolve("plan.csv"));
@@ -168,7 +168,7 @@ class CliTest {
     for (int k = 0; k < timeline.observations().size(); k++) {
       String[] f = csv.get(k + 1).split(",", -1);
       var o = timeline.observations().get(k);
-      assertEquals(18, f.length, csv.get(k + 1));
+      assertEquals(19, f.length, csv.get(k + 1));
       assertEquals(o.id(), f[0]);
       assertEquals(o.start().toString(), f[1]);
       assertEquals(o.start().truncatedTo(java.time.temporal.ChronoUnit.SECONDS).toString().replace("T", " ").replace("Z", ""), f[10]);

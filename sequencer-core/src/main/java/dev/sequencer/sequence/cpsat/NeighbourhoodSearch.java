@@ -117,7 +117,8 @@ public final class NeighbourhoodSearch {
    * The slice's observations plus up to {@link #MAX_CANDIDATES} unscheduled requests that could start in
    * it, the best first by priority per second used (duration plus the cheapest model transition into it
    * from the slice's start or one of its observations), each score scaled by a random factor in [0.5, 1.5)
-   * so that successive rounds on the same slice try different candidates.
+   * so that successive rounds on the same slice try different candidates. With several resources, also the
+   * other options of the slice's observations that could start in it.
    */
   private int[] freeRequests(Plan current, int a, int b, int from, long departS, long arriveByS, boolean hasSuccessor) {
     boolean[] planned = new boolean[problem.size()];
@@ -159,6 +160,19 @@ public final class NeighbourhoodSearch {
     candidates.sort(Comparator.comparingDouble((Integer k) -> -score[k]).thenComparingInt(k -> k));
     for (int q = 0; q < candidates.size() && q < MAX_CANDIDATES; q++) {
       free.add(candidates.get(q));
+    }
+    if (sections != null) {
+      // A slice across a section marker frees the end of one resource and the start of the next: the other
+      // options of its observations there may take them over (the model keeps at most one per request).
+      for (int q = a; q < b; q++) {
+        int u = sections.unitOf(current.order()[q]);
+        for (int o : u < 0 ? new int[0] : sections.options(u)) {
+          if (!planned[o] && !free.contains(o) && problem.task(o).schedulable()
+              && startsBetween(problem.task(o), departS, arriveByS)) {
+            free.add(o);
+          }
+        }
+      }
     }
     return free.stream().mapToInt(Integer::intValue).toArray();
   }
