@@ -1,10 +1,10 @@
 package dev.sequencer.validate;
 
 import dev.sequencer.astro.AstroContext;
-import dev.sequencer.model.Constraints;
 import dev.sequencer.model.FlexibleExposure;
 import dev.sequencer.model.Observation;
 import dev.sequencer.model.Request;
+import dev.sequencer.model.Resource;
 import dev.sequencer.model.Scenario;
 import dev.sequencer.model.TimeWindow;
 import dev.sequencer.model.Timeline;
@@ -41,6 +41,15 @@ import org.slf4j.LoggerFactory;
  * cable wrap; {@code slewStart} inside its gap; the keep-outs along every slew (A3, {@link SlewKeepOut});
  * every required request observed; the totals equal the sums.
  *
+ * <p>Several resources (A6): every observation names a resource of the scenario that its request allows
+ * (with one observer, none names one), and the timeline lists them by start. The observations of each
+ * resource are checked as a one-observer plan ({@link ObserverCheck}, through {@link Scenario#forResource}):
+ * no overlap on the resource, constraints from its observer, each transition from the previous observation
+ * on the same resource; observations of different resources may overlap. Listing, required requests, visits
+ * (one per window over the merged windows of the allowed resources), groups ({@code sameResource} too) and
+ * totals are checked once, over the whole timeline. The re-planning instant, the required flag and the
+ * keep-outs along slews apply to every resource.
+ *
  * <p>Tolerance {@link #TOLERANCE_S} = 1 ms on every time comparison (slew seconds included: the two
  * independent slew computations agree to about 1e-6 s, see the tests); constraints as {@link ObservationCheck}
  * says; priority totals to 1e-9 relative. Thread-safe (one check at a time).
@@ -61,7 +70,8 @@ public final class PlanValidator implements TimelineCheck {
   private final boolean checkRequired;
   private final boolean slewKeepOuts;
   private final Map<String, Request> byId = new HashMap<>();
-  private Sky sky;
+  /** The one observer, or one check per resource in the file's order (A6). */
+  private final List<ObserverCheck> observers;
 
   private PlanValidator(Scenario scenario, AstroContext ctx, Instant now, boolean checkRequired, boolean slewKeepOuts) {
     this.slewKeepOuts = slewKeepOuts;
@@ -72,6 +82,10 @@ public final class PlanValidator implements TimelineCheck {
     for (Request r : scenario.requests()) {
       byId.put(r.id(), r);
     }
+    this.observers = scenario.hasResources()
+        ? scenario.resources().stream().map(r -> new ObserverCheck(r.id(), scenario.forResource(r), ctx, now,
+            slewKeepOuts)).toList()
+        : List.of(new ObserverCheck(null, scenario, ctx, now, slewKeepOuts));
   }
 
   /** The validator of plans for {@code scenario}, computing in {@code ctx}. */
@@ -83,7 +97,8 @@ public final class PlanValidator implements TimelineCheck {
    * A copy for a re-plan made at {@code newNow}: observations in state "done" or "running" must start at or
    * before it, every other (planned) one at or after it. The legs into done and running observations are
    * history and not re-checked (the mount's cable-wrap state is still carried through them); every leg into
-   * a planned observation is, the first one from the end pointing of the last done or running observation.
+   * a planned observation is, the first one from the end pointing of the last done or running observation
+   * (of the same resource, A6).
    */
   @Override
   public PlanValidator withNow(Instant newNow) {
@@ -97,9 +112,9 @@ public final class PlanValidator implements TimelineCheck {
   }
 
   /**
-   * A copy that checks the keep-outs during slews (A3) or not. On by default and in the façade
-   * ({@code Planner}, whose rules {@code sequencer check} shares); off only where a caller knowingly accepts
-   * plans whose slews were not planned around the keep-outs.
+   * A copy that checks the keep-outs during slews (A3) or not, on every resource. On by default and in the
+   * façade ({@code Planner}, whose rules {@code sequencer check} shares); off only where a caller knowingly
+   * accepts plans whose slews were not planned around the keep-outs.
    */
   public PlanValidator withSlewKeepOuts(boolean on) {
     return new PlanValidator(scenario, ctx, now, checkRequired, on);
@@ -119,39 +134,26 @@ public final class PlanValidator implements TimelineCheck {
   /** Every violation of {@code timeline}; empty when it is valid. */
   public synchronized List<Violation> check(Timeline timeline) {
     long t0 = System.nanoTime();
-    if (sky == null) {
-      sky = new Sky(scenario, ctx);
-    }
     List<Violation> out = new ArrayList<>();
     checkOncePerRequest(timeline, out);
     List<Observation> obs = timeline.observations();
+    checkResources(obs, out);
     double prioritySum = 0;
     double slewSum = 0;
-    boolean allKnown = true;
-    ObservationCheck constraints = new ObservationCheck(sky);
-    for (int k = 0; k < obs.size(); k++) {
-      Observation o = obs.get(k);
+    for (Observation o : obs) {
       slewSum += o.slewSeconds();
       Request r = byId.get(o.id());
       if (r == null) {
-        allKnown = false;
         continue;
       }
       prioritySum += r.priority() != null ? r.priority() : o.value() != null ? o.value() : 0;
       checkDuration(o, r, out);
       checkHorizonAndWindows(o, r, out);
       checkNow(o, out);
-      if (k > 0 && o.start().isBefore(obs.get(k - 1).end())) {
-        Observation p = obs.get(k - 1);
-        double overlap = seconds(o.start(), p.end());
-        out.add(Violation.of(Kind.OVERLAP, o.id(), o.start(), overlap, 0, String.format(Locale.ROOT,
-            "observation %s starts at %s, %.3f s before %s ends at %s (overlap or out of time order)", o.id(),
-            o.start(), overlap, p.id(), p.end())));
-      }
-      out.addAll(constraints.violations(r, o.start(), o.end()));
     }
-    if (allKnown) {
-      checkSlews(obs, out);
+    for (ObserverCheck c : observers) {
+      out.addAll(c.check(c.resource() == null ? obs
+          : obs.stream().filter(o -> c.resource().equals(o.resource())).toList()));
     }
     for (Request r : scenario.requests()) {
       if (checkRequired && r.required() && obs.stream().noneMatch(o -> o.id().equals(r.id()))) {
@@ -170,10 +172,6 @@ public final class PlanValidator implements TimelineCheck {
     LOG.debug("check: {} observations, {} violations, in {} ms", obs.size(), out.size(),
         (System.nanoTime() - t0) / 1_000_000);
     return out;
-  }
-
-  private boolean frozen(Observation o) {
-    return now != null && (Observation.DONE.equals(o.state()) || Observation.RUNNING.equals(o.state()));
   }
 
   private void checkOncePerRequest(Timeline timeline, List<Violation> out) {
@@ -196,13 +194,75 @@ public final class PlanValidator implements TimelineCheck {
    * from the first one's start to the second one's end (sampled and refined as inside an observation,
    * {@link ObservationCheck}) and one of the request's own windows holds that whole interval. A dip out of
    * visibility shorter than the sampling can resolve would count as the same window: the check errs on the
-   * side of reporting.
+   * side of reporting. With several resources (A4, A6) the windows of the resources that may observe
+   * {@code r} are merged first ({@link #seenThroughout}).
    */
   private boolean sameWindow(Request r, Observation first, Observation second) {
     if (!r.windows().isEmpty() && r.windows().stream().noneMatch(w -> w.contains(first.start(), second.end()))) {
       return false;
     }
-    return new ObservationCheck(sky).violations(r, first.start(), second.end()).isEmpty();
+    return seenThroughout(r, observers.stream().filter(c -> c.mayObserve(r)).toList(), first.start(), second.end());
+  }
+
+  /**
+   * True when the merged visibility of {@code r} from the observers {@code by} covers [a, b]: one of them
+   * sees it over the whole interval, or each half is covered. An interval of at most one sampling step
+   * ({@link ObservationCheck#STEP_S}) that no single observer covers counts as covered when some observer
+   * sees {@code r} at each of its ends: a gap between two resources' windows narrower than a step is not
+   * resolved, erring on the side of reporting as with one observer.
+   */
+  private static boolean seenThroughout(Request r, List<ObserverCheck> by, Instant a, Instant b) {
+    if (by.stream().anyMatch(c -> c.sees(r, a, b))) {
+      return true;
+    }
+    if (by.size() < 2) {
+      return false;
+    }
+    if (seconds(a, b) <= ObservationCheck.STEP_S) {
+      return by.stream().anyMatch(c -> c.sees(r, a, a)) && by.stream().anyMatch(c -> c.sees(r, b, b));
+    }
+    Instant mid = a.plus(Duration.between(a, b).dividedBy(2));
+    return seenThroughout(r, by, a, mid) && seenThroughout(r, by, mid, b);
+  }
+
+  /**
+   * Resources (A6): with resources every observation names one of them that its request allows, and the
+   * observations are listed by start (those of different resources may overlap, so the per-resource overlap
+   * check cannot see the order); with one observer no observation names a resource.
+   */
+  private void checkResources(List<Observation> obs, List<Violation> out) {
+    List<String> ids = scenario.resources().stream().map(Resource::id).toList();
+    long tol = (long) (TOLERANCE_S * 1e9);
+    for (int k = 0; k < obs.size(); k++) {
+      Observation o = obs.get(k);
+      String at = "observation " + o.id() + " at " + o.start();
+      Request r = byId.get(o.id());
+      if (!scenario.hasResources()) {
+        if (o.resource() != null) {
+          out.add(Violation.of(Kind.RESOURCE_UNKNOWN, o.id(), o.start(), at + ": resource \"" + o.resource()
+              + "\" given, but the scenario has one observer and no resources"));
+        }
+        continue;
+      }
+      if (o.resource() == null) {
+        out.add(Violation.of(Kind.RESOURCE_MISSING, o.id(), o.start(), at + ": no resource, but the scenario's "
+            + "observations are made by its resources " + ids));
+      } else if (!ids.contains(o.resource())) {
+        out.add(Violation.of(Kind.RESOURCE_UNKNOWN, o.id(), o.start(), at + ": resource \"" + o.resource()
+            + "\" is none of the scenario's resources " + ids));
+      } else if (r != null && !r.allows(o.resource())) {
+        out.add(Violation.of(Kind.RESOURCE_NOT_ALLOWED, o.id(), o.start(), at + " is made by resource "
+            + o.resource() + ", but request " + o.id() + " allows only " + r.resources()));
+      }
+      Observation p = k > 0 ? obs.get(k - 1) : null;
+      if (p != null && o.start().isBefore(p.start().minusNanos(tol))) {
+        double early = seconds(o.start(), p.start());
+        out.add(Violation.of(Kind.TIME_ORDER, o.id(), o.start(), early, 0, String.format(Locale.ROOT,
+            "observation %s (resource %s) starts at %s, %.3f s before %s (resource %s), listed before it, starts "
+                + "at %s (observations are listed in time order)", o.id(), o.resource(), o.start(), early, p.id(),
+            p.resource(), p.start())));
+      }
+    }
   }
 
   /** With a re-planning instant: done/running observations start by it, planned ones at or after it. */
@@ -211,7 +271,7 @@ public final class PlanValidator implements TimelineCheck {
       return;
     }
     long tol = (long) (TOLERANCE_S * 1e9);
-    boolean frozen = frozen(o);
+    boolean frozen = ObserverCheck.frozen(o, now);
     if (frozen && o.start().isAfter(now.plusNanos(tol))) {
       out.add(Violation.of(Kind.REPLAN_NOW, o.id(), o.start(), seconds(now, o.start()), 0,
           "observation " + o.id() + " is " + o.state() + " but starts at " + o.start() + ", after now " + now));
@@ -287,60 +347,8 @@ public final class PlanValidator implements TimelineCheck {
         + ", " + o.end() + "] lies inside none of the request's own windows " + r.windows()));
   }
 
-  /** Each gap covers the validator's own slew; slewSeconds equals it; slewStart in the gap; keep-outs (A3). */
-  private void checkSlews(List<Observation> obs, List<Violation> out) {
-    List<Request> req = obs.stream().map(o -> byId.get(o.id())).toList();
-    List<SlewLegs.Leg> legs = new SlewLegs(sky).legs(obs, req);
-    SlewKeepOut keepOut = slewKeepOuts && SlewKeepOut.applies(sky) ? new SlewKeepOut(sky) : null;
-    Violation reported = null;
-    for (int k = 0; k < obs.size(); k++) {
-      Observation o = obs.get(k);
-      SlewLegs.Leg leg = legs.get(k);
-      if (frozen(o)) {
-        continue; // history: legs into done/running observations are as recorded (a failed one may be gone)
-      }
-      String from = k == 0 ? "the start pointing" : obs.get(k - 1).id();
-      if (!(leg.seconds() < Double.POSITIVE_INFINITY)) {
-        if (leg.problem() != reported) {
-          out.add(leg.problem());
-          reported = leg.problem();
-        }
-        continue;
-      }
-      Instant gapStart = k == 0 ? scenario.horizon().start() : obs.get(k - 1).end();
-      double gap = seconds(gapStart, o.start());
-      String fromConfiguration = k == 0 ? scenario.startConfiguration() : req.get(k - 1).configuration();
-      double change = RequestRules.changeS(scenario.reconfiguration(), fromConfiguration, req.get(k).configuration());
-      double transition = RequestRules.transitionS(scenario.reconfiguration(), leg.seconds(), change);
-      String what = change > 0 ? String.format(Locale.ROOT, "the transition (slew %.3f s, configuration change "
-          + "%.3f s)", leg.seconds(), change) : "the slew";
-      if (gap < transition - TOLERANCE_S) {
-        out.add(Violation.of(Kind.GAP_TOO_SHORT, o.id(), o.start(), gap, transition, String.format(Locale.ROOT,
-            "observation %s: gap after %s is %.3f s, shorter than %s %.3f s", o.id(), from, gap, what, transition)));
-      }
-      if (Math.abs(o.slewSeconds() - transition) > TOLERANCE_S) {
-        out.add(Violation.of(Kind.SLEW_SECONDS, o.id(), o.start(), o.slewSeconds(), transition, String.format(
-            Locale.ROOT, "observation %s: slewSeconds is %.3f, but %s from %s takes %.3f s", o.id(),
-            o.slewSeconds(), what, from, transition)));
-      }
-      if (o.slewStart() != null && (o.slewStart().isBefore(gapStart.minusNanos((long) (TOLERANCE_S * 1e9)))
-          || seconds(o.slewStart(), o.start()) < leg.seconds() - TOLERANCE_S)) {
-        out.add(Violation.of(Kind.SLEW_START, o.id(), o.slewStart(), seconds(gapStart, o.slewStart()),
-            gap - leg.seconds(), String.format(Locale.ROOT, "observation %s: slewStart %s does not leave the slew "
-                + "of %.3f s inside the gap [%s, %s]", o.id(), o.slewStart(), leg.seconds(), gapStart, o.start())));
-        continue;
-      }
-      if (keepOut != null && gap >= leg.seconds() - TOLERANCE_S) {
-        Constraints fromC = k == 0 ? scenario.constraints() : scenario.constraintsFor(req.get(k - 1));
-        Violation v = keepOut.check(o, gapStart, leg, fromC, scenario.constraintsFor(req.get(k)));
-        if (v != null) {
-          out.add(v);
-        }
-      }
-    }
-  }
-
-  private static double seconds(Instant a, Instant b) {
+  /** Seconds from {@code a} to {@code b} (negative when b is earlier), to the nanosecond. */
+  static double seconds(Instant a, Instant b) {
     Duration d = Duration.between(a, b);
     return d.getSeconds() + d.getNano() * 1e-9;
   }

@@ -21,7 +21,7 @@ import java.util.Map;
  * The validator's own reading of the rules between observations (format additions A4 and A5), written
  * from the format's wording and sharing no code with the planner's {@code Structure}: how often each
  * request is listed, the visits (count, numbering in time order, start-to-start separations, one per
- * window, all or nothing, required), the groups (all or nothing, order, maximum gap) and the
+ * window, all or nothing, required), the groups (all or nothing, order, maximum gap, one resource) and the
  * configuration change time that each transition must include. Time tolerance {@link #TOLERANCE_S}.
  */
 public final class RequestRules {
@@ -163,6 +163,9 @@ public final class RequestRules {
                 + (full.size() == 1 ? " is" : " are"))));
       }
     }
+    if (g.sameResource()) {
+      sameResource(g, byId, out);
+    }
     if (!g.ordered()) {
       return;
     }
@@ -186,6 +189,31 @@ public final class RequestRules {
       }
       prev = o;
       prevId = id;
+    }
+  }
+
+  /**
+   * A {@code sameResource} group (A6): every member's observations on the resource of the first one found
+   * (members in group order); observations naming no resource are the validator's to report.
+   */
+  private static void sameResource(Group g, Map<String, List<Observation>> byId, List<Violation> out) {
+    String resource = null;
+    String holder = null;
+    for (String id : g.members()) {
+      for (Observation o : byId.getOrDefault(id, List.of())) {
+        if (o.resource() == null) {
+          continue;
+        }
+        if (resource == null) {
+          resource = o.resource();
+          holder = id;
+        } else if (!resource.equals(o.resource())) {
+          out.add(Violation.of(Kind.GROUP_RESOURCE, id, o.start(), "group " + g.id() + " keeps its members on one "
+              + "resource (sameResource), but " + id + " at " + o.start() + " is observed on " + o.resource()
+              + " while " + holder + " is on " + resource));
+          return;
+        }
+      }
     }
   }
 

@@ -102,7 +102,17 @@ public record Violation(Kind kind, String requestId, Instant instant, double val
     /** Groups (A5): an ordered group's member starts before the previous scheduled member ends (value: seconds early). */
     GROUP_ORDER("s"),
     /** Groups (A5): an ordered group's member starts more than maxGapS after the previous member's end (value, limit: s). */
-    GROUP_GAP("s");
+    GROUP_GAP("s"),
+    /** Groups (A5, A6): a sameResource group's members are observed on more than one resource. */
+    GROUP_RESOURCE(""),
+    /** Resources (A6): an observation names no resource although the scenario has resources. */
+    RESOURCE_MISSING(""),
+    /** Resources (A6): an observation names a resource the scenario does not have (or any, with one observer). */
+    RESOURCE_UNKNOWN(""),
+    /** Resources (A6): an observation is made by a resource its request's {@code resources} does not list. */
+    RESOURCE_NOT_ALLOWED(""),
+    /** Resources (A6): an observation is listed after one that starts later (value: seconds earlier). */
+    TIME_ORDER("s");
 
     private final String unit;
 
@@ -114,6 +124,11 @@ public record Violation(Kind kind, String requestId, Instant instant, double val
     public String unit() {
       return unit;
     }
+  }
+
+  /** The same violation found on resource {@code resourceId} (A6): its message names the resource first. */
+  Violation onResource(String resourceId) {
+    return new Violation(kind, requestId, instant, value, limit, "resource " + resourceId + ": " + message);
   }
 
   /** A violation with no numbers. */
