@@ -27,7 +27,7 @@ import java.util.Map;
 final class RequestParser {
   static final List<String> REQUEST =
       List.of("id", "target", "durationS", "priority", "required", "windows", "minDurationS", "maxDurationS",
-          "durationStepS", "utility", "constraints", "visits", "configuration");
+          "durationStepS", "utility", "constraints", "visits", "configuration", "resources");
   static final List<String> FLEXIBLE = List.of("minDurationS", "maxDurationS", "durationStepS", "utility");
   static final List<String> TLE_TARGET = List.of("tle");
   static final List<String> EARTH_POINT = List.of("latitudeDeg", "longitudeDeg", "altitudeM");
@@ -36,6 +36,7 @@ final class RequestParser {
   private final TimeWindow horizon;
   private final ObserverKind kind;
   private final Constraints scenarioConstraints;
+  private List<String> resourceIds = List.of();
 
   /**
    * {@code horizon} is null when it was invalid (then windows are not clipped); each request's own
@@ -46,6 +47,12 @@ final class RequestParser {
     this.horizon = horizon;
     this.kind = kind;
     this.scenarioConstraints = scenarioConstraints;
+  }
+
+  /** The ids of the scenario's resources (A6; empty for one observer), which {@code requests[].resources} may name. */
+  RequestParser withResources(List<String> ids) {
+    this.resourceIds = List.copyOf(ids);
+    return this;
   }
 
   List<Request> parse(ArrayNode nodes, String path) {
@@ -108,11 +115,43 @@ final class RequestParser {
     StructureParser structure = new StructureParser(p);
     Visits visits = structure.visits(f);
     String configuration = structure.configuration(f);
+    List<String> resources = resources(f);
     if (id == null) {
       return null;
     }
     return new Request(id, target, durationS, priority, Boolean.TRUE.equals(required), windows, flex, constraints,
-        visits, configuration);
+        visits, configuration, resources);
+  }
+
+  /** {@code resources} (A6): a non-empty list of distinct ids of the scenario's resources; absent: all. */
+  private List<String> resources(Fields f) {
+    ArrayNode a = f.array("resources", false);
+    if (a == null) {
+      return List.of();
+    }
+    String path = f.path("resources");
+    if (resourceIds.isEmpty()) {
+      p.add(path, "needs the top-level \"resources\" (the scenario has one observer)", Problems.text(a));
+      return List.of();
+    }
+    if (a.isEmpty()) {
+      p.add(path, "must name at least one resource (leave it out to allow all)", "[]");
+    }
+    List<String> out = new ArrayList<>();
+    for (int i = 0; i < a.size(); i++) {
+      JsonNode n = a.get(i);
+      String at = path + "[" + i + "]";
+      if (!n.isTextual()) {
+        p.invalid(at, "must be a resource id (a string)", n);
+      } else if (!resourceIds.contains(n.textValue())) {
+        p.add(at, "no resource has this id (resources: " + resourceIds + ")", n.textValue());
+      } else if (out.contains(n.textValue())) {
+        p.add(at, "named twice", n.textValue());
+      } else {
+        out.add(n.textValue());
+      }
+    }
+    return out;
   }
 
   private Target target(Fields f) {

@@ -16,6 +16,7 @@ import dev.sequencer.model.RaDec;
 import dev.sequencer.model.Reconfiguration;
 import dev.sequencer.model.Refraction;
 import dev.sequencer.model.Request;
+import dev.sequencer.model.Resource;
 import dev.sequencer.model.Scenario;
 import dev.sequencer.model.SlewSettings;
 import dev.sequencer.model.SolverSettings;
@@ -24,11 +25,13 @@ import java.time.Instant;
 import java.util.ArrayList;
 import java.util.List;
 
-/** Reads the scenario's top level, horizon, observer, constraints, start pointing and solver settings. */
+/** Reads the scenario's top level, horizon, observer (or resources, A6), constraints, start pointing and solver settings. */
 final class ScenarioParser {
   static final List<String> TOP =
       List.of("format", "name", "horizon", "observer", "constraints", "slew", "startPointing", "requests", "solver",
-          "groups", "reconfiguration", "startConfiguration");
+          "groups", "reconfiguration", "startConfiguration", "resources");
+  static final List<String> RESOURCE =
+      List.of("id", "observer", "slew", "startPointing", "constraints", "reconfiguration");
   static final List<String> HORIZON = List.of("start", "end");
   static final List<String> OBSERVER = List.of("ground", "orbit");
   static final List<String> GROUND = List.of("latitudeDeg", "longitudeDeg", "altitudeM", "horizonMask", "refraction");
@@ -59,25 +62,111 @@ final class ScenarioParser {
     String name = top.text("name", false);
     TimeWindow horizon = horizon(top);
     ObserverKind[] kind = {ObserverKind.NONE};
-    Observer observer = observer(top, horizon, kind);
     Constraints constraints = new ConstraintsParser(p).scenario(top);
     ArrayNode requestNodes = top.array("requests", true);
     int requestCount = requestNodes == null ? -1 : requestNodes.size();
-    SlewSettings slew = new SlewParser(p, kind[0], requestCount).parse(top);
-    Pointing startPointing = startPointing(top, kind[0], slew);
-    List<Request> requests =
-        requestNodes == null ? null : new RequestParser(p, horizon, kind[0], constraints).parse(requestNodes, top.path("requests"));
-    SolverSettings solver = solver(top);
     StructureParser structure = new StructureParser(p);
+    Observer observer = null;
+    SlewSettings slew = null;
+    Pointing startPointing = null;
+    List<Resource> resources = List.of();
+    if (top.has("resources")) {
+      for (String own : List.of("observer", "slew", "startPointing")) {
+        if (top.has(own)) {
+          p.add(top.path(own), "not allowed with \"resources\": each resource gives its own (A6)",
+              Problems.text(top.get(own, false)));
+        }
+      }
+      resources = resources(top, horizon, constraints, requestCount, structure, kind);
+      slew = resources.isEmpty() ? null : resources.get(0).slew();
+    } else {
+      observer = observer(top, horizon, kind);
+      slew = new SlewParser(p, kind[0], requestCount).parse(top);
+      startPointing = startPointing(top, kind[0], slew);
+    }
+    List<Request> requests = requestNodes == null ? null : new RequestParser(p, horizon, kind[0], constraints)
+        .withResources(resources.stream().map(Resource::id).toList()).parse(requestNodes, top.path("requests"));
+    SolverSettings solver = solver(top);
     List<Group> groups = structure.groups(top, requests);
     Reconfiguration reconfiguration = structure.reconfiguration(top);
     String startConfiguration = top.text("startConfiguration", false);
-    structure.checkLabels(top, reconfiguration, startConfiguration == null ? "" : startConfiguration, requests);
+    String start = startConfiguration == null ? "" : startConfiguration;
+    structure.checkLabels(top, reconfiguration, start, requests);
+    for (int i = 0; i < resources.size(); i++) {
+      if (resources.get(i).reconfiguration() != null) {
+        structure.checkLabels(top, resources.get(i).reconfiguration(), start, requests,
+            "resources[" + i + "].reconfiguration.labels");
+      }
+    }
     if (p.count() > 0) {
       return null;
     }
     return new Scenario(format, name, horizon, observer, constraints, slew, startPointing, requests, solver, groups,
-        reconfiguration, startConfiguration);
+        reconfiguration, startConfiguration, resources);
+  }
+
+  /**
+   * The {@code resources} array (A6): each with a unique non-empty {@code id}, its own observer, slew model
+   * (required) and start pointing under the same rules as the top level, its own {@code constraints} read as
+   * field-by-field overrides of the scenario's, and its own {@code reconfiguration} (absent: the scenario's).
+   * Every resource must have the same kind of observer (ground, orbit or none): the requests are checked
+   * against that kind, which {@code kind} returns.
+   */
+  private List<Resource> resources(Fields top, TimeWindow horizon, Constraints constraints, int requestCount,
+      StructureParser structure, ObserverKind[] kind) {
+    ArrayNode nodes = top.array("resources", true);
+    if (nodes == null) {
+      kind[0] = ObserverKind.INVALID;
+      return List.of();
+    }
+    String path = top.path("resources");
+    if (nodes.isEmpty()) {
+      p.add(path, "must list at least one resource (or give the top-level observer instead)", "[]");
+      kind[0] = ObserverKind.INVALID;
+      return List.of();
+    }
+    List<Resource> out = new ArrayList<>();
+    java.util.Map<String, Integer> firstIndex = new java.util.HashMap<>();
+    ObserverKind first = null;
+    for (int i = 0; i < nodes.size(); i++) {
+      Fields r = Fields.of(nodes.get(i), path + "[" + i + "]", p, RESOURCE);
+      if (r == null) {
+        continue;
+      }
+      int before = p.count();
+      String id = r.text("id", true);
+      if (id != null && id.isBlank()) {
+        p.add(r.path("id"), "must not be empty", id);
+      } else if (id != null && firstIndex.putIfAbsent(id, i) != null) {
+        p.add(r.path("id"), "duplicate id, already used by " + path + "[" + firstIndex.get(id) + "]", id);
+      }
+      ObserverKind[] own = {ObserverKind.NONE};
+      Observer observer = observer(r, horizon, own);
+      if (first == null) {
+        first = own[0];
+      } else if (own[0] != first && own[0] != ObserverKind.INVALID && first != ObserverKind.INVALID) {
+        p.add(r.has("observer") ? r.path("observer") : r.path(), "every resource has the same kind of observer as "
+            + path + "[0] (" + describe(first) + "); mixing kinds is not supported yet", describe(own[0]));
+      }
+      SlewSettings slew = new SlewParser(p, own[0], requestCount).parse(r);
+      Pointing start = startPointing(r, own[0], slew);
+      dev.sequencer.model.ConstraintOverrides overrides = new ConstraintsParser(p).request(r, constraints);
+      Reconfiguration reconfiguration = r.has("reconfiguration") ? structure.reconfiguration(r) : null;
+      if (p.count() == before && id != null && slew != null) {
+        out.add(new Resource(id, observer, slew, start, overrides, reconfiguration));
+      }
+    }
+    kind[0] = first == null ? ObserverKind.INVALID : first;
+    return out;
+  }
+
+  private static String describe(ObserverKind k) {
+    return switch (k) {
+      case NONE -> "none";
+      case GROUND -> "ground";
+      case ORBIT -> "orbit";
+      case INVALID -> "invalid";
+    };
   }
 
   private TimeWindow horizon(Fields top) {

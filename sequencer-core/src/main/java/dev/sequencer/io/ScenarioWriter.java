@@ -17,6 +17,7 @@ import dev.sequencer.model.RaDec;
 import dev.sequencer.model.Group;
 import dev.sequencer.model.Reconfiguration;
 import dev.sequencer.model.Request;
+import dev.sequencer.model.Resource;
 import dev.sequencer.model.Visits;
 import dev.sequencer.model.Scenario;
 import dev.sequencer.model.SlewSettings;
@@ -49,7 +50,28 @@ public final class ScenarioWriter {
     if (!s.constraints().equals(Constraints.none())) {
       o.set("constraints", constraints(s.constraints()));
     }
-    o.set("slew", slew(s.slew()));
+    if (s.hasResources()) {
+      ArrayNode a = o.putArray("resources");
+      for (Resource r : s.resources()) {
+        ObjectNode ro = a.addObject();
+        ro.put("id", r.id());
+        if (r.observer() != null) {
+          ro.set("observer", observer(r.observer()));
+        }
+        ro.set("slew", slew(r.slew()));
+        if (r.startPointing() != null) {
+          ro.set("startPointing", pointing(r.startPointing()));
+        }
+        if (!r.constraints().equals(ConstraintOverrides.none())) {
+          ro.set("constraints", constraints(r.constraints()));
+        }
+        if (r.reconfiguration() != null) {
+          ro.set("reconfiguration", reconfiguration(r.reconfiguration()));
+        }
+      }
+    } else {
+      o.set("slew", slew(s.slew()));
+    }
     if (s.startPointing() != null) {
       o.set("startPointing", pointing(s.startPointing()));
     }
@@ -248,6 +270,10 @@ public final class ScenarioWriter {
     if (!r.configuration().isEmpty()) {
       o.put("configuration", r.configuration());
     }
+    if (!r.resources().isEmpty()) {
+      ArrayNode a = o.putArray("resources");
+      r.resources().forEach(a::add);
+    }
     return o;
   }
 
@@ -272,25 +298,31 @@ public final class ScenarioWriter {
     }
     Reconfiguration re = s.reconfiguration();
     if (!re.equals(Reconfiguration.NONE)) {
-      ObjectNode ro = o.putObject("reconfiguration");
-      if (re.labels().isEmpty()) {
-        ro.set("seconds", JsonOut.number(re.constantS()));
-      } else {
-        ArrayNode l = ro.putArray("labels");
-        re.labels().forEach(l::add);
-        ArrayNode rows = ro.putArray("seconds");
-        for (double[] row : re.table()) {
-          ArrayNode r = rows.addArray();
-          for (double v : row) {
-            r.add(JsonOut.number(v));
-          }
-        }
-      }
-      ro.put("concurrentWithSlew", re.concurrentWithSlew());
+      o.set("reconfiguration", reconfiguration(re));
     }
     if (!s.startConfiguration().isEmpty()) {
       o.put("startConfiguration", s.startConfiguration());
     }
+  }
+
+  /** A reconfiguration object (A5): constant seconds or a label table, and concurrentWithSlew. */
+  private static ObjectNode reconfiguration(Reconfiguration re) {
+    ObjectNode ro = JsonOut.NODES.objectNode();
+    if (re.labels().isEmpty()) {
+      ro.set("seconds", JsonOut.number(re.constantS()));
+    } else {
+      ArrayNode l = ro.putArray("labels");
+      re.labels().forEach(l::add);
+      ArrayNode rows = ro.putArray("seconds");
+      for (double[] row : re.table()) {
+        ArrayNode r = rows.addArray();
+        for (double v : row) {
+          r.add(JsonOut.number(v));
+        }
+      }
+    }
+    ro.put("concurrentWithSlew", re.concurrentWithSlew());
+    return ro;
   }
 
   /** Windows as [[start, end], ...]; shared with the windows file. */

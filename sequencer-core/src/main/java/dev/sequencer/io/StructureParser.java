@@ -189,11 +189,16 @@ final class StructureParser {
 
   /** Every configuration label used (requests and start) must be in the table, when a table is given. */
   void checkLabels(Fields top, Reconfiguration re, String start, List<Request> requests) {
+    checkLabels(top, re, start, requests, "reconfiguration.labels");
+  }
+
+  /** As {@link #checkLabels(Fields, Reconfiguration, String, List)} for the table at {@code table} (a resource's, A6). */
+  void checkLabels(Fields top, Reconfiguration re, String start, List<Request> requests, String table) {
     if (re == null || re.labels().isEmpty()) {
       return;
     }
     if (!re.labels().contains(start)) {
-      p.add(top.path("startConfiguration"), "not among reconfiguration.labels " + re.labels(), start);
+      p.add(top.path("startConfiguration"), "not among " + table + " " + re.labels(), start);
     }
     if (requests == null) {
       return;
@@ -202,7 +207,7 @@ final class StructureParser {
       String c = requests.get(k).configuration();
       if (!re.labels().contains(c)) {
         p.add(top.path("requests") + "[" + k + "] (id \"" + requests.get(k).id() + "\").configuration",
-            "not among reconfiguration.labels " + re.labels(), c);
+            "not among " + table + " " + re.labels(), c);
       }
     }
   }

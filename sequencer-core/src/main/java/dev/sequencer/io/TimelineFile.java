@@ -26,7 +26,8 @@ public final class TimelineFile {
   static final List<String> TOP = List.of("format", "status", "objective", "bound", "observations", "unscheduled");
   static final List<String> OBJECTIVE = List.of("priority", "slewSeconds");
   static final List<String> OBSERVATION =
-      List.of("id", "start", "end", "slewSeconds", "value", "state", "slewStart", "slewVia", "visit");
+      List.of("id", "start", "end", "slewSeconds", "value", "state", "slewStart", "slewVia", "visit",
+          "resource");
   static final List<String> UNSCHEDULED = List.of("id", "reason", "visitsMissing");
   static final List<String> STATES = List.of(Observation.DONE, Observation.RUNNING, Observation.PLANNED);
 
@@ -49,6 +50,9 @@ public final class TimelineFile {
       e.put("id", ob.id());
       if (ob.visit() != null) {
         e.put("visit", ob.visit());
+      }
+      if (ob.resource() != null) {
+        e.put("resource", ob.resource());
       }
       e.put("start", JsonOut.instant(ob.start()));
       e.put("end", JsonOut.instant(ob.end()));
@@ -154,6 +158,10 @@ public final class TimelineFile {
       String state = f.text("state", false);
       Instant slewStart = f.instant("slewStart", false);
       List<RaDec> via = slewVia(f, p);
+      String resource = f.text("resource", false);
+      if (resource != null && resource.isBlank()) {
+        p.add(f.path("resource"), "must not be empty", resource);
+      }
       if (slewStart != null && start != null && slewStart.isAfter(start)) {
         p.add(f.path("slewStart"), "slew departs at " + slewStart + ", after the observation's start " + start,
             slewStart.toString());
@@ -173,7 +181,7 @@ public final class TimelineFile {
         previousStart = start;
       }
       if (p.count() == before) {
-        out.add(new Observation(id, start, end, slew, value, state, slewStart, via, visit));
+        out.add(new Observation(id, start, end, slew, value, state, slewStart, via, visit, resource));
       }
     }
     return out;

@@ -12,7 +12,9 @@ import java.util.List;
 import java.util.Map;
 
 /**
- * The visibility output file: {@code {"format": 1, "windows": [{"id", "intervals": [[start, end], ...]}]}}.
+ * The visibility output file: {@code {"format": 1, "windows": [{"id", "intervals": [[start, end], ...]}]}};
+ * with several resources (A6) one entry per request and allowed resource, {@code {"id", "resource",
+ * "intervals"}} ({@link #toJsonByResource}; written for people and other tools, not read back here).
  * Intervals must be ordered and disjoint (each starts after the previous one ends); a single-instant
  * interval (a grazing pass) is allowed. Ids are unique and non-empty.
  */
@@ -38,6 +40,30 @@ public final class WindowsFile {
   /** Writes the file atomically. */
   public static void write(List<RequestWindows> windows, Path file) {
     AtomicFiles.writeUtf8(file, toJson(windows));
+  }
+
+  /**
+   * The file of a scenario with several resources (A6): per resource in the map's order, one entry per
+   * request it may observe, {@code {"id", "resource", "intervals"}}.
+   */
+  public static String toJsonByResource(Map<String, List<RequestWindows>> byResource) {
+    ObjectNode o = JsonOut.NODES.objectNode();
+    o.put("format", 1);
+    ArrayNode a = o.putArray("windows");
+    byResource.forEach((resource, windows) -> {
+      for (RequestWindows w : windows) {
+        ObjectNode e = a.addObject();
+        e.put("id", w.id());
+        e.put("resource", resource);
+        e.set("intervals", ScenarioWriter.windows(w.intervals()));
+      }
+    });
+    return JsonOut.pretty(o);
+  }
+
+  /** Writes the file of {@link #toJsonByResource} atomically. */
+  public static void writeByResource(Map<String, List<RequestWindows>> byResource, Path file) {
+    AtomicFiles.writeUtf8(file, toJsonByResource(byResource));
   }
 
   public static List<RequestWindows> read(Path file) {

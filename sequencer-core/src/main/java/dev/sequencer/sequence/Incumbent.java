@@ -20,7 +20,8 @@ import dev.sequencer.sequence.timing.ExactTimer;
  */
 final class Incumbent {
   /** Who offered a plan. */
-  enum Source { EMPTY, GREEDY, DEADLINE_ORDER, PREFERRED, INSERTION, MOVES, CPSAT, LNS, TWO_STAGE, FALLBACK, REPAIR, STATE_SPACE }
+  enum Source { EMPTY, GREEDY, DEADLINE_ORDER, PREFERRED, INSERTION, MOVES, CPSAT, LNS, TWO_STAGE, FALLBACK, REPAIR, STATE_SPACE,
+    RESOURCES_IN_TURN }
 
   /** The incumbent: its exact timing, rank and producer. */
   record Best(ExactTimer.Timed timed, Score score, Source source) {
