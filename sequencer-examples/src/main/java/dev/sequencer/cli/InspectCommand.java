@@ -37,7 +37,16 @@ final class InspectCommand implements Callable<Integer> {
     ScenarioSummary.lines(r.scenario()).forEach(out::println);
     AstroContext astro = common.astro();
     Pipeline p = Pipeline.of(r.scenario(), astro);
-    out.println(ScenarioSummary.requestedAgainstObservable(r.scenario(), p.windows()));
+    if (p.geometry().hasResources()) {
+      // Several resources (A6): each resource's observable time for the requests it may observe.
+      for (dev.sequencer.planner.Geometry g : p.geometry().resources()) {
+        String id = r.scenario().resources().get(p.geometry().resources().indexOf(g)).id();
+        out.println(ScenarioSummary.requestedAgainstObservable(r.scenario(), g.windows())
+            .replaceFirst("^observable  ", "observable  on " + id + ": "));
+      }
+    } else {
+      out.println(ScenarioSummary.requestedAgainstObservable(r.scenario(), p.windows()));
+    }
     if (astro.beyondLeapSecondValidity(r.scenario().horizon().end())) {
       out.println("warning     the horizon ends after " + astro.leapSecondsValidUntil()
           + ", the last date the leap-second table is known to be complete for");

@@ -31,11 +31,25 @@ final class ScenarioSummary {
     out.add("name        " + (s.name() == null ? "(none)" : s.name()));
     out.add(String.format(Locale.ROOT, "horizon     %s .. %s (%.2f h)", s.horizon().start(), s.horizon().end(),
         horizonS / 3600));
-    out.add("observer    " + observer(s));
-    out.add("constraints " + constraints(s.constraints()));
-    out.addAll(ownConstraints(s, 10));
-    out.add("slew        " + slew(s.slew()));
-    out.add("keep-outs   " + duringSlews(s));
+    if (s.hasResources()) {
+      // Several resources (A6): each one's observer, own constraints, slew model and keep-outs during slews.
+      for (dev.sequencer.model.Resource r : s.resources()) {
+        Scenario view = s.forResource(r);
+        long restricted = s.requests().stream().filter(q -> !q.resources().isEmpty() && q.allows(r.id())).count();
+        out.add("resource    " + r.id() + ": observer " + observer(view) + "; slew " + slew(view.slew())
+            + "; keep-outs " + duringSlews(view) + (r.constraints().equals(dev.sequencer.model.ConstraintOverrides.none())
+                ? "" : "; constraints " + constraints(view.constraints()))
+            + (restricted > 0 ? "; " + restricted + " request(s) restricted to a list naming it" : ""));
+      }
+      out.add("constraints " + constraints(s.constraints()));
+      out.addAll(ownConstraints(s, 10));
+    } else {
+      out.add("observer    " + observer(s));
+      out.add("constraints " + constraints(s.constraints()));
+      out.addAll(ownConstraints(s, 10));
+      out.add("slew        " + slew(s.slew()));
+      out.add("keep-outs   " + duringSlews(s));
+    }
     Map<String, Integer> kinds = new LinkedHashMap<>();
     double requested = 0;
     int required = 0;
@@ -48,8 +62,9 @@ final class ScenarioSummary {
     }
     out.add("requests    " + s.requests().size() + " " + kinds + (required > 0 ? ", " + required + " required" : "")
         + (flexible > 0 ? ", " + flexible + " flexible" : ""));
-    out.add(String.format(Locale.ROOT, "requested   %.0f s of observation (minimum) for a %.0f s horizon: %.0f%%",
-        requested, horizonS, 100 * requested / horizonS));
+    int m = Math.max(1, s.resources().size());
+    out.add(String.format(Locale.ROOT, "requested   %.0f s of observation (minimum) for a %.0f s horizon%s: %.0f%%",
+        requested, horizonS, m > 1 ? " on each of " + m + " resources" : "", 100 * requested / (m * horizonS)));
     return out;
   }
 

@@ -23,7 +23,7 @@ import picocli.CommandLine.Model.CommandSpec;
     name = "windows",
     mixinStandardHelpOptions = true,
     description = {"Compute when each request's target satisfies every constraint.",
-        "Writes the windows file and prints one line per request."},
+        "Writes the windows file and prints one line per request (per request and resource with several)."},
     footer = {"", Caution.TEXT})
 final class WindowsCommand implements Callable<Integer> {
   @Parameters(index = "0", paramLabel = "SCENARIO.json", description = "The scenario file.")
@@ -44,22 +44,46 @@ final class WindowsCommand implements Callable<Integer> {
     PrintWriter out = spec.commandLine().getOut();
     r.warnings().forEach(w -> out.println("warning: " + w));
     long t0 = System.nanoTime();
-    List<RequestVisibility> vis = new VisibilityCalculator(common.astro()).compute(s);
-    double elapsed = (System.nanoTime() - t0) * 1e-9;
-    out.printf(Locale.ROOT, "%-16s %8s %12s  %s%n", "id", "windows", "visible [s]", "first window / why never");
-    for (RequestVisibility v : vis) {
-      String first;
-      if (v.intervals().isEmpty()) {
-        first = "never visible" + Explained.limiting(v);
-      } else {
-        TimeWindow w = v.intervals().get(0);
-        first = w.start() + " .. " + w.end();
+    // With several resources (A6): each resource's view of the scenario, for the requests it may observe.
+    java.util.Map<String, List<RequestVisibility>> byResource = new java.util.LinkedHashMap<>();
+    if (s.hasResources()) {
+      for (dev.sequencer.model.Resource res : s.resources()) {
+        Scenario view = s.forResource(res);
+        byResource.put(res.id(), new VisibilityCalculator(common.astro()).compute(
+            view.withRequests(s.requests().stream().filter(q -> q.allows(res.id())).toList())));
       }
-      out.printf(Locale.ROOT, "%-16s %8d %12.1f  %s%n", v.id(), v.intervals().size(), v.totalS(), first);
+    } else {
+      byResource.put(null, new VisibilityCalculator(common.astro()).compute(s));
     }
-    out.printf(Locale.ROOT, "%d requests, computed in %.2f s%n", vis.size(), elapsed);
+    double elapsed = (System.nanoTime() - t0) * 1e-9;
+    boolean several = s.hasResources();
+    out.printf(Locale.ROOT, "%-16s %s%8s %12s  %s%n", "id", several ? String.format(Locale.ROOT, "%-14s ", "resource")
+        : "", "windows", "visible [s]", "first window / why never");
+    int lines = 0;
+    for (java.util.Map.Entry<String, List<RequestVisibility>> e : byResource.entrySet()) {
+      for (RequestVisibility v : e.getValue()) {
+        String first;
+        if (v.intervals().isEmpty()) {
+          first = "never visible" + Explained.limiting(v);
+        } else {
+          TimeWindow w = v.intervals().get(0);
+          first = w.start() + " .. " + w.end();
+        }
+        out.printf(Locale.ROOT, "%-16s %s%8d %12.1f  %s%n", v.id(), several
+            ? String.format(Locale.ROOT, "%-14s ", e.getKey()) : "", v.intervals().size(), v.totalS(), first);
+        lines++;
+      }
+    }
+    out.printf(Locale.ROOT, "%d %s, computed in %.2f s%n", lines, several ? "(request, resource) pairs" : "requests",
+        elapsed);
     if (output != null) {
-      WindowsFile.write(vis.stream().map(RequestVisibility::toWindows).toList(), output);
+      if (several) {
+        java.util.Map<String, List<dev.sequencer.model.RequestWindows>> w = new java.util.LinkedHashMap<>();
+        byResource.forEach((id, vis) -> w.put(id, vis.stream().map(RequestVisibility::toWindows).toList()));
+        WindowsFile.writeByResource(w, output);
+      } else {
+        WindowsFile.write(byResource.get(null).stream().map(RequestVisibility::toWindows).toList(), output);
+      }
       out.println("wrote " + output);
     }
     return 0;
