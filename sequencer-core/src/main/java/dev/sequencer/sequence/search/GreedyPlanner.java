@@ -398,7 +398,10 @@ public final class GreedyPlanner {
     return bestD;
   }
 
-  /** True when every other unscheduled required request can still start after {@code end} (directly from j). */
+  /**
+   * True when every other unscheduled required request can still start after {@code end} (directly from j);
+   * with several resources, a required request counts as reachable when a later resource may observe it.
+   */
   private boolean requiredStillReachable(Path path, int j, long departS, long s, long end, boolean[] done) {
     Path after = null;
     for (int r : required) {
@@ -416,6 +419,48 @@ public final class GreedyPlanner {
         return false;
       }
     }
+    Sections sec = rules.sections();
+    if (sec == null) {
+      return true;
+    }
+    // Several resources: a required request must stay reachable on the resource in use unless a later
+    // resource may still observe it (its clock starts afresh at its marker); one lost already is not j's doing.
+    int here = sec.sectionOf(j);
+    for (int u = 0; u < sec.unitCount(); u++) {
+      if (!sec.unitRequired(u) || sec.unitOf(j) == u || held(sec, u, done)) {
+        continue;
+      }
+      int local = -1;
+      boolean later = false;
+      for (int o : sec.options(u)) {
+        if (problem.task(o).schedulable()) {
+          later |= sec.sectionOf(o) > here;
+          local = sec.sectionOf(o) == here ? o : local;
+        }
+      }
+      if (later || local < 0) {
+        continue;
+      }
+      Task to = problem.task(local);
+      if (end > to.latestStartS()) {
+        return false;
+      }
+      if (after == null) {
+        after = path.then(j, departS, s);
+      }
+      if (timer.earliestStart(after, local, end, end, to.durationS(), to.latestStartS()) < 0) {
+        return false;
+      }
+    }
     return true;
+  }
+
+  private static boolean held(Sections sec, int u, boolean[] done) {
+    for (int o : sec.options(u)) {
+      if (done[o]) {
+        return true;
+      }
+    }
+    return false;
   }
 }
