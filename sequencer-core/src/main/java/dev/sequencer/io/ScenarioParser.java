@@ -14,12 +14,18 @@ import dev.sequencer.model.SolverSettings;
 import dev.sequencer.model.TimeWindow;
 import java.time.Instant;
 import java.util.List;
+import java.util.Objects;
 
-/** Reads the scenario's top level: horizon, then each part with its own reader, and the solver settings. */
+/**
+ * Reads the scenario's top level: horizon, then each part with its own reader, and the solver settings. A
+ * file gives one observer ({@code observer}, {@code slew}, {@code startPointing}) or {@code resources} (A6);
+ * with resources the scenario's own {@code slew} is the first resource's (the model needs one; each
+ * resource's own applies).
+ */
 final class ScenarioParser {
   static final List<String> TOP =
       List.of("format", "name", "horizon", "observer", "constraints", "slew", "startPointing", "requests", "solver",
-          "groups", "reconfiguration", "startConfiguration");
+          "groups", "reconfiguration", "startConfiguration", "resources");
   static final List<String> HORIZON = List.of("start", "end");
   static final List<String> RA_DEC = List.of("raDeg", "decDeg");
   static final List<String> SOLVER = List.of("timeLimitS", "workers", "seed");
@@ -39,26 +45,55 @@ final class ScenarioParser {
     }
     String name = top.text("name", false);
     TimeWindow horizon = horizon(top);
+    boolean several = top.has("resources");
     ObserverParser observers = new ObserverParser(p, horizon);
-    ObserverParser.Read observer = observers.observer(top);
+    ObserverParser.Read observer = several ? new ObserverParser.Read(null, ObserverKind.NONE) : observers.observer(top);
     Constraints constraints = new ConstraintsParser(p).scenario(top);
     ArrayNode requestNodes = top.array("requests", true);
     int requestCount = requestNodes == null ? -1 : requestNodes.size();
-    SlewSettings slew = new SlewParser(p, observer.kind(), requestCount).parse(top);
-    Pointing startPointing = observers.startPointing(top, observer.kind(), slew);
+    List<ResourceParser.Entry> resources = List.of();
+    SlewSettings slew;
+    Pointing startPointing = null;
+    List<ObserverView> views;
+    if (several) {
+      refuseOneObserverFields(top);
+      resources = new ResourceParser(p, horizon, requestCount, constraints).parse(top);
+      views = resources.stream().map(ResourceParser.Entry::view).filter(Objects::nonNull).toList();
+      slew = resources.isEmpty() || resources.get(0).resource() == null ? null : resources.get(0).resource().slew();
+    } else {
+      slew = new SlewParser(p, observer.kind(), requestCount).parse(top);
+      startPointing = observers.startPointing(top, observer.kind(), slew);
+      views = List.of(ObserverView.single(observer.kind(), constraints));
+    }
     List<Request> requests = requestNodes == null ? null
-        : new RequestParser(p, horizon, observer.kind(), constraints).parse(requestNodes, top.path("requests"));
+        : new RequestParser(p, horizon, views, several).parse(requestNodes, top.path("requests"));
     SolverSettings solver = solver(top);
     StructureParser structure = new StructureParser(p);
     List<Group> groups = structure.groups(top, requests);
     Reconfiguration reconfiguration = structure.reconfiguration(top);
     String startConfiguration = top.text("startConfiguration", false);
-    structure.checkLabels(top, reconfiguration, startConfiguration == null ? "" : startConfiguration, requests);
+    String start = startConfiguration == null ? "" : startConfiguration;
+    if (several) {
+      structure.checkLabels(top, reconfiguration, start, requests, resources);
+    } else {
+      structure.checkLabels(top, reconfiguration, start, requests);
+    }
     if (p.count() > 0) {
       return null;
     }
     return new Scenario(format, name, horizon, observer.observer(), constraints, slew, startPointing, requests, solver,
-        groups, reconfiguration, startConfiguration);
+        groups, reconfiguration, startConfiguration, resources.stream().map(ResourceParser.Entry::resource).toList());
+  }
+
+  /** With {@code resources} (A6) the top level gives no observer, slew or start pointing: each resource has its own. */
+  private void refuseOneObserverFields(Fields top) {
+    for (String field : List.of("observer", "slew", "startPointing")) {
+      JsonNode n = top.get(field, false);
+      if (n != null) {
+        p.add(top.path(field), "must be absent when the file gives \"resources\" (each resource has its own "
+            + field + ")", Problems.text(n));
+      }
+    }
   }
 
   private TimeWindow horizon(Fields top) {
