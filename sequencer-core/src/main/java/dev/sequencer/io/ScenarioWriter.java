@@ -17,6 +17,7 @@ import dev.sequencer.model.RaDec;
 import dev.sequencer.model.Group;
 import dev.sequencer.model.Reconfiguration;
 import dev.sequencer.model.Request;
+import dev.sequencer.model.Resource;
 import dev.sequencer.model.Visits;
 import dev.sequencer.model.Scenario;
 import dev.sequencer.model.SlewSettings;
@@ -30,7 +31,9 @@ import java.util.List;
 /**
  * Writes a scenario as format-1 JSON in the spec's field order, so that {@link ScenarioReader} gives an
  * equal scenario back. Absent parts ({@code null} name, observer, start pointing, solver; no
- * constraints; no windows; {@code required} false; no constraints of a request's own) are omitted. It does not validate.
+ * constraints; no windows; {@code required} false; no constraints of a request's own) are omitted. With
+ * resources (A6) it writes {@code resources} instead of the top-level {@code slew}, and each request's
+ * allowed {@code resources}. It does not validate.
  */
 public final class ScenarioWriter {
   private ScenarioWriter() {}
@@ -49,7 +52,12 @@ public final class ScenarioWriter {
     if (!s.constraints().equals(Constraints.none())) {
       o.set("constraints", constraints(s.constraints()));
     }
-    o.set("slew", slew(s.slew()));
+    if (s.hasResources()) {
+      ArrayNode resources = o.putArray("resources");
+      s.resources().forEach(r -> resources.add(resource(r)));
+    } else {
+      o.set("slew", slew(s.slew()));
+    }
     if (s.startPointing() != null) {
       o.set("startPointing", pointing(s.startPointing()));
     }
@@ -123,7 +131,7 @@ public final class ScenarioWriter {
     return o;
   }
 
-  /** A request's own constraints: the fields it gives, and each field it removes as {@code null}. */
+  /** A resource's or a request's own constraints: the fields it gives, and each field it removes as {@code null}. */
   private static ObjectNode constraints(ConstraintOverrides own) {
     ObjectNode o = JsonOut.NODES.objectNode();
     for (ConstraintField f : ConstraintField.values()) {
@@ -248,6 +256,30 @@ public final class ScenarioWriter {
     if (!r.configuration().isEmpty()) {
       o.put("configuration", r.configuration());
     }
+    if (!r.resources().isEmpty()) {
+      ArrayNode a = o.putArray("resources");
+      r.resources().forEach(a::add);
+    }
+    return o;
+  }
+
+  /** One resource (A6) in the spec's field order; absent parts are omitted. */
+  private static ObjectNode resource(Resource r) {
+    ObjectNode o = JsonOut.NODES.objectNode();
+    o.put("id", r.id());
+    if (r.observer() != null) {
+      o.set("observer", observer(r.observer()));
+    }
+    o.set("slew", slew(r.slew()));
+    if (r.startPointing() != null) {
+      o.set("startPointing", pointing(r.startPointing()));
+    }
+    if (!r.constraints().isEmpty()) {
+      o.set("constraints", constraints(r.constraints()));
+    }
+    if (r.reconfiguration() != null) {
+      o.set("reconfiguration", reconfiguration(r.reconfiguration()));
+    }
     return o;
   }
 
@@ -270,27 +302,32 @@ public final class ScenarioWriter {
         }
       }
     }
-    Reconfiguration re = s.reconfiguration();
-    if (!re.equals(Reconfiguration.NONE)) {
-      ObjectNode ro = o.putObject("reconfiguration");
-      if (re.labels().isEmpty()) {
-        ro.set("seconds", JsonOut.number(re.constantS()));
-      } else {
-        ArrayNode l = ro.putArray("labels");
-        re.labels().forEach(l::add);
-        ArrayNode rows = ro.putArray("seconds");
-        for (double[] row : re.table()) {
-          ArrayNode r = rows.addArray();
-          for (double v : row) {
-            r.add(JsonOut.number(v));
-          }
-        }
-      }
-      ro.put("concurrentWithSlew", re.concurrentWithSlew());
+    if (!s.reconfiguration().equals(Reconfiguration.NONE)) {
+      o.set("reconfiguration", reconfiguration(s.reconfiguration()));
     }
     if (!s.startConfiguration().isEmpty()) {
       o.put("startConfiguration", s.startConfiguration());
     }
+  }
+
+  /** Change times (A5): a constant, or the labels and their table. */
+  private static ObjectNode reconfiguration(Reconfiguration re) {
+    ObjectNode ro = JsonOut.NODES.objectNode();
+    if (re.labels().isEmpty()) {
+      ro.set("seconds", JsonOut.number(re.constantS()));
+    } else {
+      ArrayNode l = ro.putArray("labels");
+      re.labels().forEach(l::add);
+      ArrayNode rows = ro.putArray("seconds");
+      for (double[] row : re.table()) {
+        ArrayNode r = rows.addArray();
+        for (double v : row) {
+          r.add(JsonOut.number(v));
+        }
+      }
+    }
+    ro.put("concurrentWithSlew", re.concurrentWithSlew());
+    return ro;
   }
 
   /** Windows as [[start, end], ...]; shared with the windows file. */

@@ -22,6 +22,7 @@ import dev.sequencer.model.Reconfiguration;
 import dev.sequencer.model.Resource;
 import dev.sequencer.model.Scenario;
 import dev.sequencer.model.SlewSettings;
+import java.util.ArrayList;
 import java.util.EnumSet;
 import java.util.List;
 import org.junit.jupiter.api.Test;
@@ -57,6 +58,27 @@ class ResourceRulesTest {
     assertNull(s.observer());
     assertNull(s.startPointing());
     assertEquals(north.slew(), s.slew());
+  }
+
+  @Test
+  void aNetworkIsWrittenBackAsItWasRead() {
+    Scenario s = read(network()).scenario();
+    String json = ScenarioWriter.toJson(s);
+    assertEquals(s, ScenarioReader.parse(json, "round trip").scenario(), json);
+    ObjectNode written = (ObjectNode) tree(json);
+    assertEquals(List.of("format", "name", "horizon", "constraints", "resources", "requests"),
+        names(written));
+    assertEquals(List.of("id", "observer", "slew", "startPointing", "constraints"),
+        names(resource(written, 0)));
+    assertEquals("[\"north\",\"south\"]", request(written, 0).get("resources").toString());
+    assertEquals("{\"sunSeparationMinDeg\":null,\"elevationMinDeg\":30}", resource(written, 0).get("constraints")
+        .toString(), "the removed field is written as null");
+  }
+
+  private static List<String> names(ObjectNode o) {
+    List<String> out = new ArrayList<>();
+    o.fieldNames().forEachRemaining(out::add);
+    return out;
   }
 
   @Test
