@@ -18,15 +18,16 @@ import java.util.Map;
 
 /**
  * The timeline (plan) file: status, {@code objective: {priority, slewSeconds}}, {@code bound},
- * observations in time order (with {@code value} and {@code state} when present) and unscheduled
- * requests with a reason. {@code bound} is omitted when unknown; the reader also accepts {@code null}.
- * Every id appears once across observations and unscheduled.
+ * observations in time order (with {@code value}, {@code state} and, with several resources (A6), the
+ * {@code resource} that makes each, when present) and unscheduled requests with a reason. {@code bound} is
+ * omitted when unknown; the reader also accepts {@code null}. Every id appears once across observations and
+ * unscheduled, or once per visit (A4): observing one request on two resources takes two visits.
  */
 public final class TimelineFile {
   static final List<String> TOP = List.of("format", "status", "objective", "bound", "observations", "unscheduled");
   static final List<String> OBJECTIVE = List.of("priority", "slewSeconds");
   static final List<String> OBSERVATION =
-      List.of("id", "start", "end", "slewSeconds", "value", "state", "slewStart", "slewVia", "visit");
+      List.of("id", "start", "end", "slewSeconds", "value", "state", "slewStart", "slewVia", "visit", "resource");
   static final List<String> UNSCHEDULED = List.of("id", "reason", "visitsMissing");
   static final List<String> STATES = List.of(Observation.DONE, Observation.RUNNING, Observation.PLANNED);
 
@@ -47,6 +48,9 @@ public final class TimelineFile {
     for (Observation ob : t.observations()) {
       ObjectNode e = obs.addObject();
       e.put("id", ob.id());
+      if (ob.resource() != null) {
+        e.put("resource", ob.resource());
+      }
       if (ob.visit() != null) {
         e.put("visit", ob.visit());
       }
@@ -147,6 +151,8 @@ public final class TimelineFile {
       int before = p.count();
       Integer visit = f.integer("visit", false, Range.closed(1, Integer.MAX_VALUE));
       String id = id(f, "observations[" + i + "]", p, seen, visit == null ? "" : "#" + visit);
+      JsonNode resourceNode = f.get("resource", false);
+      String resource = resourceNode == null ? null : Values.id(resourceNode, f.path("resource"), p);
       Instant start = f.instant("start", true);
       Instant end = f.instant("end", true);
       Double slew = f.number("slewSeconds", true, Range.NON_NEGATIVE);
@@ -173,7 +179,7 @@ public final class TimelineFile {
         previousStart = start;
       }
       if (p.count() == before) {
-        out.add(new Observation(id, start, end, slew, value, state, slewStart, via, visit));
+        out.add(new Observation(id, start, end, slew, value, state, slewStart, via, visit, resource));
       }
     }
     return out;
