@@ -5,18 +5,25 @@ import dev.sequencer.model.ConstraintOverrides;
 import dev.sequencer.model.Constraints;
 import java.util.EnumMap;
 import java.util.EnumSet;
+import java.util.List;
 import java.util.Map;
 import java.util.Set;
 
 /**
- * Reads a {@code constraints} object: the scenario's (a JSON {@code null} field is absent there) or a
- * request's own (a {@code null} field removes the inherited constraint). Checks each field's range and,
- * on the constraints that result for the request, the pairs that must be ordered
+ * Reads a {@code constraints} object: the scenario's (a JSON {@code null} field is absent there), or a
+ * resource's (A6) or a request's own (a {@code null} field removes the inherited constraint). Checks each
+ * field's range and, on the constraints that result for the level, the pairs that must be ordered
  * ({@code elevationMinDeg < elevationMaxDeg}, {@code hourAngleMinH <= hourAngleMaxH}).
  */
 final class ConstraintsParser {
   /** Allowed range of each numeric field (the format's A2 table and the earlier fields' rules). */
   static final Map<ConstraintField, Range> RANGES = ranges();
+
+  /** The note of a value inherited from the scenario's {@code constraints}. */
+  static final String FROM_SCENARIO = " (from the scenario's constraints)";
+
+  /** Constraints a level's own replace, and the note that tells where an inherited value comes from. */
+  record Inherited(Constraints constraints, String note) {}
 
   private final Problems p;
 
@@ -54,11 +61,12 @@ final class ConstraintsParser {
   }
 
   /**
-   * A request's own {@code constraints} (absent: none), checked together with the scenario's
-   * {@code inherited} ones it replaces field by field.
+   * A level's own {@code constraints} (a resource's or a request's; absent: none), read as overrides: a
+   * {@code null} field removes the inherited constraint. The pairs that must be ordered are checked on the
+   * constraints that result over each {@code inherited} level in turn, up to the first that breaks one.
    */
-  ConstraintOverrides request(Fields request, Constraints inherited) {
-    Fields c = request.object("constraints", false, ConstraintField.keys());
+  ConstraintOverrides overrides(Fields owner, List<Inherited> inherited) {
+    Fields c = owner.object("constraints", false, ConstraintField.keys());
     if (c == null) {
       return ConstraintOverrides.none();
     }
@@ -69,7 +77,13 @@ final class ConstraintsParser {
       }
     }
     ConstraintOverrides own = new ConstraintOverrides(read(c), removed);
-    checkOrder(c, inherited.overriddenBy(own), own, " (from the scenario's constraints)");
+    for (Inherited level : inherited) {
+      int before = p.count();
+      checkOrder(c, level.constraints().overriddenBy(own), own, level.note());
+      if (p.count() != before) {
+        break;
+      }
+    }
     return own;
   }
 

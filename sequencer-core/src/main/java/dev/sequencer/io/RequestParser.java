@@ -3,7 +3,6 @@ package dev.sequencer.io;
 import com.fasterxml.jackson.databind.JsonNode;
 import com.fasterxml.jackson.databind.node.ArrayNode;
 import dev.sequencer.model.ConstraintOverrides;
-import dev.sequencer.model.Constraints;
 import dev.sequencer.model.EarthPoint;
 import dev.sequencer.model.FlexibleExposure;
 import dev.sequencer.model.OrbitingTarget;
@@ -16,13 +15,16 @@ import dev.sequencer.model.Visits;
 import java.time.Instant;
 import java.util.ArrayList;
 import java.util.HashMap;
+import java.util.HashSet;
 import java.util.List;
 import java.util.Map;
+import java.util.Set;
 
 /**
- * Reads the {@code requests} array: ids, targets (checked against the observer kind), fixed or
- * flexible durations, priorities, allowed windows (clipped to the horizon with a warning), the
- * request's own constraints, its visits and configuration (A4, A5).
+ * Reads the {@code requests} array: ids, the resources allowed to observe each (A6), targets (checked
+ * against the kind of each observer that may observe the request), fixed or flexible durations, priorities,
+ * allowed windows (clipped to the horizon with a warning), the request's own constraints, its visits and
+ * configuration (A4, A5).
  */
 final class RequestParser {
   static final List<String> REQUEST =
@@ -34,25 +36,19 @@ final class RequestParser {
 
   private final Problems p;
   private final TimeWindow horizon;
-  private final ObserverKind kind;
-  private final Constraints scenarioConstraints;
-  private List<String> resourceIds = List.of();
+  private final List<ObserverView> views;
+  private final boolean several;
 
   /**
-   * {@code horizon} is null when it was invalid (then windows are not clipped); each request's own
-   * constraints are checked over {@code scenarioConstraints}.
+   * {@code horizon} is null when it was invalid (then windows are not clipped). {@code views}: the one
+   * observer, or with {@code several} the resources whose id was read (empty when the {@code resources}
+   * array itself was not); each request must be valid for every one allowed to observe it.
    */
-  RequestParser(Problems problems, TimeWindow horizon, ObserverKind kind, Constraints scenarioConstraints) {
+  RequestParser(Problems problems, TimeWindow horizon, List<ObserverView> views, boolean several) {
     this.p = problems;
     this.horizon = horizon;
-    this.kind = kind;
-    this.scenarioConstraints = scenarioConstraints;
-  }
-
-  /** The ids of the scenario's resources (A6; empty for one observer), which {@code requests[].resources} may name. */
-  RequestParser withResources(List<String> ids) {
-    this.resourceIds = List.copyOf(ids);
-    return this;
+    this.views = List.copyOf(views);
+    this.several = several;
   }
 
   List<Request> parse(ArrayNode nodes, String path) {
@@ -91,7 +87,10 @@ final class RequestParser {
   }
 
   private Request request(Fields f, String id) {
-    Target target = target(f);
+    List<String> resources = resources(f);
+    List<ObserverView> allowed = several && f.has("resources")
+        ? views.stream().filter(v -> resources.contains(v.resource())).toList() : views;
+    Target target = target(f, allowed);
     boolean flexible = FLEXIBLE.stream().anyMatch(f::has);
     Double durationS = null;
     Double priority = null;
@@ -110,12 +109,12 @@ final class RequestParser {
       priority = f.number("priority", true, Range.POSITIVE);
     }
     Boolean required = f.bool("required", false);
-    List<TimeWindow> windows = windows(f);
-    ConstraintOverrides constraints = new ConstraintsParser(p).request(f, scenarioConstraints);
+    List<TimeWindow> windows = windows(f, allowed);
+    ConstraintOverrides constraints =
+        new ConstraintsParser(p).overrides(f, allowed.stream().map(ObserverView::inherited).toList());
     StructureParser structure = new StructureParser(p);
     Visits visits = structure.visits(f);
     String configuration = structure.configuration(f);
-    List<String> resources = resources(f);
     if (id == null) {
       return null;
     }
@@ -123,50 +122,72 @@ final class RequestParser {
         visits, configuration, resources);
   }
 
-  /** {@code resources} (A6): a non-empty list of distinct ids of the scenario's resources; absent: all. */
+  /**
+   * {@code resources} (A6): a non-empty array of known resource ids, none twice; only in a scenario with
+   * resources. The ids read (empty when absent: every resource may observe the request).
+   */
   private List<String> resources(Fields f) {
+    List<String> out = new ArrayList<>();
+    JsonNode n = f.get("resources", false);
+    String path = f.path("resources");
+    if (n == null) {
+      return out;
+    }
+    if (!several) {
+      p.add(path, "is only for a scenario with \"resources\" (A6); this one has one observer", Problems.text(n));
+      return out;
+    }
     ArrayNode a = f.array("resources", false);
     if (a == null) {
-      return List.of();
-    }
-    String path = f.path("resources");
-    if (resourceIds.isEmpty()) {
-      p.add(path, "needs the top-level \"resources\" (the scenario has one observer)", Problems.text(a));
-      return List.of();
+      return out;
     }
     if (a.isEmpty()) {
-      p.add(path, "must name at least one resource (leave it out to allow all)", "[]");
+      p.add(path, "must list at least one resource id (omit the field to allow every resource)", "[]");
     }
-    List<String> out = new ArrayList<>();
-    for (int i = 0; i < a.size(); i++) {
-      JsonNode n = a.get(i);
-      String at = path + "[" + i + "]";
-      if (!n.isTextual()) {
-        p.invalid(at, "must be a resource id (a string)", n);
-      } else if (!resourceIds.contains(n.textValue())) {
-        p.add(at, "no resource has this id (resources: " + resourceIds + ")", n.textValue());
-      } else if (out.contains(n.textValue())) {
-        p.add(at, "named twice", n.textValue());
+    List<String> known = views.stream().map(ObserverView::resource).toList();
+    Set<String> seen = new HashSet<>();
+    for (int j = 0; j < a.size(); j++) {
+      String rp = path + "[" + j + "]";
+      String rid = Values.id(a.get(j), rp, p);
+      if (rid == null) {
+        continue;
+      }
+      if (!seen.add(rid)) {
+        p.add(rp, "resource listed twice", rid);
+      } else if (!known.isEmpty() && !known.contains(rid)) {
+        p.add(rp, "no resource has this id" + Suggest.hint(rid, known), rid);
       } else {
-        out.add(n.textValue());
+        out.add(rid);
       }
     }
     return out;
   }
 
-  private Target target(Fields f) {
+  /** The first of {@code allowed} of this kind, or null. */
+  private static ObserverView first(List<ObserverView> allowed, ObserverKind... kinds) {
+    return allowed.stream().filter(v -> List.of(kinds).contains(v.kind())).findFirst().orElse(null);
+  }
+
+  /**
+   * The target: required when an observer allowed to observe the request has one, absent when one has none
+   * (so one request cannot be for both), and of a kind each can observe (a point on the Earth from orbit
+   * only). Observers that could not be read impose nothing.
+   */
+  private Target target(Fields f, List<ObserverView> allowed) {
     JsonNode t = f.get("target", false);
     String path = f.path("target");
-    if (kind == ObserverKind.NONE) {
-      if (t != null) {
-        p.invalid(path, "must be absent when the scenario has no observer", t);
+    if (t == null) {
+      ObserverView seeing = first(allowed, ObserverKind.GROUND, ObserverKind.ORBIT);
+      if (seeing != null && seeing.resource() == null) {
+        p.missing(path);
+      } else if (seeing != null) {
+        p.add(path, "is required when " + seeing.subject("the scenario") + " has an observer", null);
       }
       return null;
     }
-    if (t == null) {
-      if (kind != ObserverKind.INVALID) {
-        p.missing(path);
-      }
+    ObserverView none = first(allowed, ObserverKind.NONE);
+    if (none != null) {
+      p.invalid(path, "must be absent when " + none.subject("the scenario") + " has no observer", t);
       return null;
     }
     if (!t.isObject()) {
@@ -186,9 +207,10 @@ final class RequestParser {
       Double lat = ef.number("latitudeDeg", true, Range.LATITUDE);
       Double lon = ef.number("longitudeDeg", true, Range.LONGITUDE);
       Double alt = ef.number("altitudeM", true, Range.ALTITUDE_M);
-      if (kind == ObserverKind.GROUND) {
-        p.add(path, "a point on the Earth can only be observed from an orbit observer, and this one is on the ground",
-            Problems.text(t));
+      ObserverView ground = first(allowed, ObserverKind.GROUND);
+      if (ground != null) {
+        p.add(path, "a point on the Earth can only be observed from an orbit observer, and "
+            + ground.subject("this one") + " is on the ground", Problems.text(t));
         return null;
       }
       return lat == null || lon == null || alt == null ? null : new EarthPoint(lat, lon, alt);
@@ -261,14 +283,16 @@ final class RequestParser {
   /**
    * Allowed windows: each with end after start, in order and apart (a window must start after the
    * previous one ends), and overlapping the horizon; a window partly outside is clipped with a warning.
+   * Required when an observer {@code allowed} to observe the request has none.
    */
-  private List<TimeWindow> windows(Fields f) {
+  private List<TimeWindow> windows(Fields f, List<ObserverView> allowed) {
     List<TimeWindow> out = new ArrayList<>();
     ArrayNode a = f.array("windows", false);
     String path = f.path("windows");
     if (a == null) {
-      if (kind == ObserverKind.NONE && !f.has("windows")) {
-        p.add(path, "is required when the scenario has no observer", null);
+      ObserverView none = first(allowed, ObserverKind.NONE);
+      if (none != null && !f.has("windows")) {
+        p.add(path, "is required when " + none.subject("the scenario") + " has no observer", null);
       }
       return out;
     }

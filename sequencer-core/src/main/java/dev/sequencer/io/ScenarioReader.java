@@ -17,7 +17,10 @@ import org.slf4j.LoggerFactory;
  * in [-1000, 10000] m; a TLE whose epoch is more than 3650 days from the horizon is an error, more
  * than 30 days a warning; request windows that touch (one ends where the next starts) count as
  * overlapping; {@code windows: []} is an error (omit the field instead); a JSON {@code null} counts as
- * an absent field. I/O failures are {@link java.io.UncheckedIOException}s.
+ * an absent field. With several resources (A6) a request must be valid for every resource allowed to observe
+ * it, so one request cannot be allowed on a resource with an observer and on one without; the scenario's
+ * {@code slew} is then the first resource's (docs/format-notes.md). I/O failures are
+ * {@link java.io.UncheckedIOException}s.
  */
 public final class ScenarioReader {
   private static final Logger LOG = LoggerFactory.getLogger(ScenarioReader.class);

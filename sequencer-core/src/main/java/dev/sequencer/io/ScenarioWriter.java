@@ -31,7 +31,9 @@ import java.util.List;
 /**
  * Writes a scenario as format-1 JSON in the spec's field order, so that {@link ScenarioReader} gives an
  * equal scenario back. Absent parts ({@code null} name, observer, start pointing, solver; no
- * constraints; no windows; {@code required} false; no constraints of a request's own) are omitted. It does not validate.
+ * constraints; no windows; {@code required} false; no constraints of a request's own) are omitted. With
+ * resources (A6) it writes {@code resources} instead of the top-level {@code slew}, and each request's
+ * allowed {@code resources}. It does not validate.
  */
 public final class ScenarioWriter {
   private ScenarioWriter() {}
@@ -51,24 +53,8 @@ public final class ScenarioWriter {
       o.set("constraints", constraints(s.constraints()));
     }
     if (s.hasResources()) {
-      ArrayNode a = o.putArray("resources");
-      for (Resource r : s.resources()) {
-        ObjectNode ro = a.addObject();
-        ro.put("id", r.id());
-        if (r.observer() != null) {
-          ro.set("observer", observer(r.observer()));
-        }
-        ro.set("slew", slew(r.slew()));
-        if (r.startPointing() != null) {
-          ro.set("startPointing", pointing(r.startPointing()));
-        }
-        if (!r.constraints().equals(ConstraintOverrides.none())) {
-          ro.set("constraints", constraints(r.constraints()));
-        }
-        if (r.reconfiguration() != null) {
-          ro.set("reconfiguration", reconfiguration(r.reconfiguration()));
-        }
-      }
+      ArrayNode resources = o.putArray("resources");
+      s.resources().forEach(r -> resources.add(resource(r)));
     } else {
       o.set("slew", slew(s.slew()));
     }
@@ -145,7 +131,7 @@ public final class ScenarioWriter {
     return o;
   }
 
-  /** A request's own constraints: the fields it gives, and each field it removes as {@code null}. */
+  /** A resource's or a request's own constraints: the fields it gives, and each field it removes as {@code null}. */
   private static ObjectNode constraints(ConstraintOverrides own) {
     ObjectNode o = JsonOut.NODES.objectNode();
     for (ConstraintField f : ConstraintField.values()) {
@@ -277,6 +263,26 @@ public final class ScenarioWriter {
     return o;
   }
 
+  /** One resource (A6) in the spec's field order; absent parts are omitted. */
+  private static ObjectNode resource(Resource r) {
+    ObjectNode o = JsonOut.NODES.objectNode();
+    o.put("id", r.id());
+    if (r.observer() != null) {
+      o.set("observer", observer(r.observer()));
+    }
+    o.set("slew", slew(r.slew()));
+    if (r.startPointing() != null) {
+      o.set("startPointing", pointing(r.startPointing()));
+    }
+    if (!r.constraints().isEmpty()) {
+      o.set("constraints", constraints(r.constraints()));
+    }
+    if (r.reconfiguration() != null) {
+      o.set("reconfiguration", reconfiguration(r.reconfiguration()));
+    }
+    return o;
+  }
+
   /** Groups, reconfiguration and start configuration (A5), when the scenario has them. */
   private static void structure(Scenario s, ObjectNode o) {
     if (!s.groups().isEmpty()) {
@@ -296,16 +302,15 @@ public final class ScenarioWriter {
         }
       }
     }
-    Reconfiguration re = s.reconfiguration();
-    if (!re.equals(Reconfiguration.NONE)) {
-      o.set("reconfiguration", reconfiguration(re));
+    if (!s.reconfiguration().equals(Reconfiguration.NONE)) {
+      o.set("reconfiguration", reconfiguration(s.reconfiguration()));
     }
     if (!s.startConfiguration().isEmpty()) {
       o.put("startConfiguration", s.startConfiguration());
     }
   }
 
-  /** A reconfiguration object (A5): constant seconds or a label table, and concurrentWithSlew. */
+  /** Change times (A5): a constant, or the labels and their table. */
   private static ObjectNode reconfiguration(Reconfiguration re) {
     ObjectNode ro = JsonOut.NODES.objectNode();
     if (re.labels().isEmpty()) {

@@ -5,18 +5,22 @@ import com.fasterxml.jackson.databind.node.ArrayNode;
 import dev.sequencer.model.Group;
 import dev.sequencer.model.Reconfiguration;
 import dev.sequencer.model.Request;
+import dev.sequencer.model.Resource;
 import dev.sequencer.model.Visits;
 import java.util.ArrayList;
 import java.util.HashMap;
+import java.util.HashSet;
 import java.util.LinkedHashSet;
 import java.util.List;
 import java.util.Map;
 import java.util.Set;
+import java.util.function.Predicate;
 
 /**
  * Reads the format's additions A4 and A5: a request's {@code visits} and {@code configuration}, the
- * scenario's {@code groups}, {@code reconfiguration} and {@code startConfiguration}, and the rules across
- * them (members that exist, one group per request, no visits in ordered groups, every label in the table).
+ * scenario's (or a resource's, A6) {@code reconfiguration}, the scenario's {@code groups} and
+ * {@code startConfiguration}, and the rules across them (members that exist, one group per request, no
+ * visits in ordered groups, every label in the table it meets).
  */
 final class StructureParser {
   static final List<String> VISITS = List.of("count", "minSeparationS", "maxSeparationS", "onePerWindow", "allOrNothing");
@@ -132,11 +136,14 @@ final class StructureParser {
     return out;
   }
 
-  /** The scenario's {@code reconfiguration}, {@link Reconfiguration#NONE} when absent (null after a problem). */
-  Reconfiguration reconfiguration(Fields top) {
-    Fields f = top.object("reconfiguration", false, RECONFIGURATION);
+  /**
+   * The {@code reconfiguration} of {@code owner} (the scenario, or a resource), {@link Reconfiguration#NONE}
+   * when absent (null after a problem).
+   */
+  Reconfiguration reconfiguration(Fields owner) {
+    Fields f = owner.object("reconfiguration", false, RECONFIGURATION);
     if (f == null) {
-      return top.has("reconfiguration") ? null : Reconfiguration.NONE;
+      return owner.has("reconfiguration") ? null : Reconfiguration.NONE;
     }
     int before = p.count();
     Boolean concurrent = f.bool("concurrentWithSlew", false);
@@ -189,25 +196,48 @@ final class StructureParser {
 
   /** Every configuration label used (requests and start) must be in the table, when a table is given. */
   void checkLabels(Fields top, Reconfiguration re, String start, List<Request> requests) {
-    checkLabels(top, re, start, requests, "reconfiguration.labels");
+    checkLabels(top, "reconfiguration", re, start, requests, r -> true, new HashSet<>());
   }
 
-  /** As {@link #checkLabels(Fields, Reconfiguration, String, List)} for the table at {@code table} (a resource's, A6). */
-  void checkLabels(Fields top, Reconfiguration re, String start, List<Request> requests, String table) {
+  /**
+   * With resources (A6): the start and the configuration of every request a resource may observe must be
+   * among the labels of the table that resource uses, its own or else the scenario's {@code re}; each
+   * problem is reported once. Resources that could not be read are skipped.
+   */
+  void checkLabels(Fields top, Reconfiguration re, String start, List<Request> requests,
+      List<ResourceParser.Entry> resources) {
+    Set<String> reported = new HashSet<>();
+    for (ResourceParser.Entry e : resources) {
+      Resource r = e.resource();
+      if (r == null) {
+        continue;
+      }
+      boolean own = r.reconfiguration() != null;
+      checkLabels(top, own ? e.path() + ".reconfiguration" : "reconfiguration", own ? r.reconfiguration() : re,
+          start, requests, q -> q.allows(r.id()), reported);
+    }
+  }
+
+  /**
+   * The labels {@code start} and those of the requests {@code on} the table at {@code tablePath} applies to
+   * must be among its labels; a problem whose key is in {@code reported} was already given.
+   */
+  private void checkLabels(Fields top, String tablePath, Reconfiguration re, String start, List<Request> requests,
+      Predicate<Request> on, Set<String> reported) {
     if (re == null || re.labels().isEmpty()) {
       return;
     }
-    if (!re.labels().contains(start)) {
-      p.add(top.path("startConfiguration"), "not among " + table + " " + re.labels(), start);
+    String rule = "not among " + tablePath + ".labels " + re.labels();
+    if (!re.labels().contains(start) && reported.add(tablePath)) {
+      p.add(top.path("startConfiguration"), rule, start);
     }
     if (requests == null) {
       return;
     }
     for (int k = 0; k < requests.size(); k++) {
-      String c = requests.get(k).configuration();
-      if (!re.labels().contains(c)) {
-        p.add(top.path("requests") + "[" + k + "] (id \"" + requests.get(k).id() + "\").configuration",
-            "not among " + table + " " + re.labels(), c);
+      Request q = requests.get(k);
+      if (on.test(q) && !re.labels().contains(q.configuration()) && reported.add(tablePath + "|" + k)) {
+        p.add(top.path("requests") + "[" + k + "] (id \"" + q.id() + "\").configuration", rule, q.configuration());
       }
     }
   }

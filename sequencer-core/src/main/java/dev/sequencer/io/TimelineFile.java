@@ -18,16 +18,16 @@ import java.util.Map;
 
 /**
  * The timeline (plan) file: status, {@code objective: {priority, slewSeconds}}, {@code bound},
- * observations in time order (with {@code value} and {@code state} when present) and unscheduled
- * requests with a reason. {@code bound} is omitted when unknown; the reader also accepts {@code null}.
- * Every id appears once across observations and unscheduled.
+ * observations in time order (with {@code value}, {@code state} and, with several resources (A6), the
+ * {@code resource} that makes each, when present) and unscheduled requests with a reason. {@code bound} is
+ * omitted when unknown; the reader also accepts {@code null}. Every id appears once across observations and
+ * unscheduled, or once per visit (A4): observing one request on two resources takes two visits.
  */
 public final class TimelineFile {
   static final List<String> TOP = List.of("format", "status", "objective", "bound", "observations", "unscheduled");
   static final List<String> OBJECTIVE = List.of("priority", "slewSeconds");
   static final List<String> OBSERVATION =
-      List.of("id", "start", "end", "slewSeconds", "value", "state", "slewStart", "slewVia", "visit",
-          "resource");
+      List.of("id", "start", "end", "slewSeconds", "value", "state", "slewStart", "slewVia", "visit", "resource");
   static final List<String> UNSCHEDULED = List.of("id", "reason", "visitsMissing");
   static final List<String> STATES = List.of(Observation.DONE, Observation.RUNNING, Observation.PLANNED);
 
@@ -48,11 +48,11 @@ public final class TimelineFile {
     for (Observation ob : t.observations()) {
       ObjectNode e = obs.addObject();
       e.put("id", ob.id());
-      if (ob.visit() != null) {
-        e.put("visit", ob.visit());
-      }
       if (ob.resource() != null) {
         e.put("resource", ob.resource());
+      }
+      if (ob.visit() != null) {
+        e.put("visit", ob.visit());
       }
       e.put("start", JsonOut.instant(ob.start()));
       e.put("end", JsonOut.instant(ob.end()));
@@ -151,6 +151,8 @@ public final class TimelineFile {
       int before = p.count();
       Integer visit = f.integer("visit", false, Range.closed(1, Integer.MAX_VALUE));
       String id = id(f, "observations[" + i + "]", p, seen, visit == null ? "" : "#" + visit);
+      JsonNode resourceNode = f.get("resource", false);
+      String resource = resourceNode == null ? null : Values.id(resourceNode, f.path("resource"), p);
       Instant start = f.instant("start", true);
       Instant end = f.instant("end", true);
       Double slew = f.number("slewSeconds", true, Range.NON_NEGATIVE);
@@ -158,10 +160,6 @@ public final class TimelineFile {
       String state = f.text("state", false);
       Instant slewStart = f.instant("slewStart", false);
       List<RaDec> via = slewVia(f, p);
-      String resource = f.text("resource", false);
-      if (resource != null && resource.isBlank()) {
-        p.add(f.path("resource"), "must not be empty", resource);
-      }
       if (slewStart != null && start != null && slewStart.isAfter(start)) {
         p.add(f.path("slewStart"), "slew departs at " + slewStart + ", after the observation's start " + start,
             slewStart.toString());

@@ -7,20 +7,37 @@ import dev.sequencer.model.RequestWindows;
 import dev.sequencer.model.TimeWindow;
 import java.nio.file.Path;
 import java.util.ArrayList;
+import java.util.Arrays;
 import java.util.HashMap;
+import java.util.LinkedHashMap;
 import java.util.List;
 import java.util.Map;
+import java.util.Objects;
 
 /**
- * The visibility output file: {@code {"format": 1, "windows": [{"id", "intervals": [[start, end], ...]}]}};
- * with several resources (A6) one entry per request and allowed resource, {@code {"id", "resource",
- * "intervals"}} ({@link #toJsonByResource}; written for people and other tools, not read back here).
+ * The visibility output file: {@code {"format": 1, "windows": [{"id", "intervals": [[start, end], ...]}]}}.
  * Intervals must be ordered and disjoint (each starts after the previous one ends); a single-instant
  * interval (a grazing pass) is allowed. Ids are unique and non-empty.
+ *
+ * <p>For a scenario with several resources (A6) the file has one entry per request and allowed resource,
+ * {@code {"id", "resource", "intervals"}}: the {@code ...ByResource} methods write and read it as a list of
+ * {@link ResourceWindows}, entries grouped by resource in list order. There an id is unique per resource; the
+ * one-observer methods refuse entries that name a resource, and the by-resource ones entries that do not.
  */
 public final class WindowsFile {
   static final List<String> TOP = List.of("format", "windows");
-  static final List<String> ENTRY = List.of("id", "intervals");
+  static final List<String> ENTRY = List.of("id", "resource", "intervals");
+
+  /** The windows of one resource (A6): an entry per request it may observe. */
+  public record ResourceWindows(String resource, List<RequestWindows> windows) {
+    public ResourceWindows {
+      Objects.requireNonNull(resource, "resource");
+      windows = List.copyOf(windows);
+    }
+  }
+
+  /** One entry as read; {@code resource} is null in a one-observer file. */
+  private record Entry(String id, String resource, List<TimeWindow> intervals) {}
 
   private WindowsFile() {}
 
@@ -29,12 +46,26 @@ public final class WindowsFile {
     ObjectNode o = JsonOut.NODES.objectNode();
     o.put("format", 1);
     ArrayNode a = o.putArray("windows");
-    for (RequestWindows w : windows) {
-      ObjectNode e = a.addObject();
-      e.put("id", w.id());
-      e.set("intervals", ScenarioWriter.windows(w.intervals()));
-    }
+    windows.forEach(w -> entry(a, w, null));
     return JsonOut.pretty(o);
+  }
+
+  /** The file of a scenario with resources (A6) as pretty, byte-stable JSON text: resource by resource. */
+  public static String toJsonByResource(List<ResourceWindows> windows) {
+    ObjectNode o = JsonOut.NODES.objectNode();
+    o.put("format", 1);
+    ArrayNode a = o.putArray("windows");
+    windows.forEach(rw -> rw.windows().forEach(w -> entry(a, w, rw.resource())));
+    return JsonOut.pretty(o);
+  }
+
+  private static void entry(ArrayNode a, RequestWindows w, String resource) {
+    ObjectNode e = a.addObject();
+    e.put("id", w.id());
+    if (resource != null) {
+      e.put("resource", resource);
+    }
+    e.set("intervals", ScenarioWriter.windows(w.intervals()));
   }
 
   /** Writes the file atomically. */
@@ -42,55 +73,58 @@ public final class WindowsFile {
     AtomicFiles.writeUtf8(file, toJson(windows));
   }
 
-  /**
-   * The file of a scenario with several resources (A6): per resource in the map's order, one entry per
-   * request it may observe, {@code {"id", "resource", "intervals"}}.
-   */
-  public static String toJsonByResource(Map<String, List<RequestWindows>> byResource) {
-    ObjectNode o = JsonOut.NODES.objectNode();
-    o.put("format", 1);
-    ArrayNode a = o.putArray("windows");
-    byResource.forEach((resource, windows) -> {
-      for (RequestWindows w : windows) {
-        ObjectNode e = a.addObject();
-        e.put("id", w.id());
-        e.put("resource", resource);
-        e.set("intervals", ScenarioWriter.windows(w.intervals()));
-      }
-    });
-    return JsonOut.pretty(o);
-  }
-
-  /** Writes the file of {@link #toJsonByResource} atomically. */
-  public static void writeByResource(Map<String, List<RequestWindows>> byResource, Path file) {
-    AtomicFiles.writeUtf8(file, toJsonByResource(byResource));
+  /** Writes the file of a scenario with resources (A6) atomically. */
+  public static void writeByResource(List<ResourceWindows> windows, Path file) {
+    AtomicFiles.writeUtf8(file, toJsonByResource(windows));
   }
 
   public static List<RequestWindows> read(Path file) {
     return parse(Json.read(file), file.toString());
   }
 
+  /** Reads the file of a scenario with resources (A6). */
+  public static List<ResourceWindows> readByResource(Path file) {
+    return parseByResource(Json.read(file), file.toString());
+  }
+
   /** Reads windows JSON text; {@code source} names it in the exception message. */
   public static List<RequestWindows> parse(String json, String source) {
     Problems p = new Problems();
     JsonNode root = Json.parseObject(json, source, p);
-    List<RequestWindows> out = root == null ? null : parse(root, p);
+    List<Entry> entries = root == null ? null : entries(root, p, false);
     p.throwIfAny(source);
-    return out;
+    return entries.stream().map(e -> new RequestWindows(e.id(), e.intervals())).toList();
   }
 
-  private static List<RequestWindows> parse(JsonNode root, Problems p) {
+  /**
+   * Reads windows JSON text of a scenario with resources (A6), grouped by resource in the order each first
+   * appears; {@code source} names it in the exception message.
+   */
+  public static List<ResourceWindows> parseByResource(String json, String source) {
+    Problems p = new Problems();
+    JsonNode root = Json.parseObject(json, source, p);
+    List<Entry> entries = root == null ? null : entries(root, p, true);
+    p.throwIfAny(source);
+    Map<String, List<RequestWindows>> byResource = new LinkedHashMap<>();
+    for (Entry e : entries) {
+      byResource.computeIfAbsent(e.resource(), k -> new ArrayList<>()).add(new RequestWindows(e.id(), e.intervals()));
+    }
+    return byResource.entrySet().stream().map(e -> new ResourceWindows(e.getKey(), e.getValue())).toList();
+  }
+
+  /** The valid entries; each has a resource exactly when {@code byResource}. */
+  private static List<Entry> entries(JsonNode root, Problems p, boolean byResource) {
     Fields top = Fields.of(root, "", p, TOP);
     Integer format = top.integer("format", true, Range.ANY);
     if (format != null && format != 1) {
       p.invalid("format", "must be 1", root.get("format"));
     }
     ArrayNode entries = top.array("windows", true);
-    List<RequestWindows> out = new ArrayList<>();
+    List<Entry> out = new ArrayList<>();
     if (entries == null) {
       return out;
     }
-    Map<String, Integer> firstIndex = new HashMap<>();
+    Map<List<String>, Integer> firstIndex = new HashMap<>();
     for (int i = 0; i < entries.size(); i++) {
       Fields e = Fields.of(entries.get(i), RequestParser.label("windows", i, entries.get(i)), p, ENTRY);
       if (e == null) {
@@ -98,15 +132,33 @@ public final class WindowsFile {
       }
       JsonNode idNode = e.get("id", true);
       String id = idNode == null ? null : Values.id(idNode, e.path("id"), p);
-      if (id != null && firstIndex.putIfAbsent(id, i) != null) {
-        p.add(e.path("id"), "duplicate id, already used by windows[" + firstIndex.get(id) + "]", id);
+      String resource = resource(e, p, byResource);
+      List<String> key = Arrays.asList(id, resource);
+      if (id != null && firstIndex.putIfAbsent(key, i) != null) {
+        String forResource = resource == null ? "" : " for resource \"" + resource + "\"";
+        p.add(e.path("id"), "duplicate id" + forResource + ", already used by windows[" + firstIndex.get(key) + "]",
+            id);
       }
       List<TimeWindow> intervals = intervals(e.array("intervals", true), e.path("intervals"), p);
-      if (id != null && intervals != null) {
-        out.add(new RequestWindows(id, intervals));
+      if (id != null && intervals != null && (resource != null) == byResource) {
+        out.add(new Entry(id, resource, intervals));
       }
     }
     return out;
+  }
+
+  /** The entry's {@code resource}: required and non-empty {@code byResource}, else refused. */
+  private static String resource(Fields e, Problems p, boolean byResource) {
+    JsonNode n = e.get("resource", byResource);
+    if (n == null) {
+      return null;
+    }
+    if (!byResource) {
+      p.add(e.path("resource"), "must be absent: these windows are read for one observer (entries name a resource"
+          + " only for a scenario with resources, A6)", Problems.text(n));
+      return null;
+    }
+    return Values.id(n, e.path("resource"), p);
   }
 
   /** Ordered, disjoint intervals; null after reporting. */

@@ -62,6 +62,57 @@ final class Docs {
     return o;
   }
 
+  /**
+   * A valid scenario with three resources (invented): "north", a ground site with an alt-az mount and its
+   * own constraints; "south", a ground site with eigenaxis slews and its own configuration table; "queue",
+   * no observer and a matrix slew. Requests R1 (north, south), R2 (south, configuration "red"), SAT7 (a TLE
+   * target, north) and Q1 (queue, with a window).
+   */
+  static ObjectNode network() {
+    List<String> tle = TestTles.tle(90007, HORIZON_START.minusSeconds(86_400));
+    String json = """
+        {
+          "format": 1,
+          "name": "network night",
+          "horizon": { "start": "2031-05-04T18:00:00Z", "end": "2031-05-05T06:00:00Z" },
+          "constraints": { "sunSeparationMinDeg": 45, "elevationMinDeg": 20, "elevationMaxDeg": 88,
+                           "sunElevationMaxDeg": -12 },
+          "resources": [
+            { "id": "north",
+              "observer": { "ground": { "latitudeDeg": 28.7, "longitudeDeg": -17.9, "altitudeM": 2300 } },
+              "slew": { "model": "altaz", "azimuthRateDegPerS": 3, "elevationRateDegPerS": 2,
+                        "azimuthAccelDegPerS2": 1, "elevationAccelDegPerS2": 1, "settleS": 10,
+                        "azimuthRangeDeg": [-270, 270] },
+              "startPointing": { "azimuthDeg": 0, "elevationDeg": 45 },
+              "constraints": { "elevationMinDeg": 30, "sunSeparationMinDeg": null } },
+            { "id": "south",
+              "observer": { "ground": { "latitudeDeg": -24.6, "longitudeDeg": -70.4, "altitudeM": 2600 } },
+              "slew": { "model": "eigenaxis", "rateDegPerS": 1.0, "accelDegPerS2": 0.05, "settleS": 20 },
+              "reconfiguration": { "labels": ["", "red"], "seconds": [[0, 60], [45, 0]] } },
+            { "id": "queue",
+              "slew": { "model": "matrix", "seconds": [[0, 30, 30, 30], [30, 0, 30, 30], [30, 30, 0, 30],
+                                                       [30, 30, 30, 0]] } }
+          ],
+          "requests": [
+            { "id": "R1", "target": { "raDeg": 10.0, "decDeg": -20.0 }, "durationS": 600, "priority": 5,
+              "resources": ["north", "south"] },
+            { "id": "R2", "target": { "raDeg": 150.0, "decDeg": 30.0 }, "durationS": 300, "priority": 2,
+              "configuration": "red", "resources": ["south"] },
+            { "id": "SAT7", "target": { "tle": ["%s", "%s"] }, "durationS": 120, "priority": 3,
+              "resources": ["north"] },
+            { "id": "Q1", "durationS": 900, "priority": 4,
+              "windows": [["2031-05-04T20:00:00Z", "2031-05-04T23:00:00Z"]], "resources": ["queue"] }
+          ]
+        }
+        """.formatted(tle.get(0), tle.get(1));
+    return (ObjectNode) tree(json);
+  }
+
+  /** Resource {@code i} of {@link #network()}. */
+  static ObjectNode resource(ObjectNode o, int i) {
+    return (ObjectNode) o.get("resources").get(i);
+  }
+
   static ArrayNode requests(ObjectNode o) {
     return (ArrayNode) o.get("requests");
   }

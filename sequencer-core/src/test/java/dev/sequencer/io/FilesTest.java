@@ -198,6 +198,134 @@ class FilesTest {
   }
 
   @Test
+  void windowsFileOfOneObserverIsExact() {
+    String expected = """
+        {
+          "format": 1,
+          "windows": [
+            {
+              "id": "R1",
+              "intervals": [
+                ["2031-05-04T18:00:00Z", "2031-05-04T18:01:00Z"]
+              ]
+            }
+          ]
+        }
+        """;
+    List<RequestWindows> w = List.of(new RequestWindows("R1", List.of(new TimeWindow(T0, T0.plusSeconds(60)))));
+    assertEquals(expected, WindowsFile.toJson(w));
+  }
+
+  @Test
+  void windowsFileByResourceIsExactAndRoundTrips() {
+    // Spec A6: one entry per request and allowed resource, { "id", "resource", "intervals" }.
+    List<WindowsFile.ResourceWindows> w = List.of(
+        new WindowsFile.ResourceWindows("north", List.of(
+            new RequestWindows("R1", List.of(new TimeWindow(T0, T0.plusSeconds(60)))),
+            new RequestWindows("R2", List.of()))),
+        new WindowsFile.ResourceWindows("south", List.of(
+            new RequestWindows("R1", List.of(new TimeWindow(T0.plusSeconds(30), T0.plusSeconds(90)))))));
+    String expected = """
+        {
+          "format": 1,
+          "windows": [
+            {
+              "id": "R1",
+              "resource": "north",
+              "intervals": [
+                ["2031-05-04T18:00:00Z", "2031-05-04T18:01:00Z"]
+              ]
+            },
+            {
+              "id": "R2",
+              "resource": "north",
+              "intervals": []
+            },
+            {
+              "id": "R1",
+              "resource": "south",
+              "intervals": [
+                ["2031-05-04T18:00:30Z", "2031-05-04T18:01:30Z"]
+              ]
+            }
+          ]
+        }
+        """;
+    assertEquals(expected, WindowsFile.toJsonByResource(w));
+    assertEquals(w, WindowsFile.parseByResource(expected, "w"));
+  }
+
+  @Test
+  void windowsEntriesByResourceAreGroupedInTheOrderResourcesFirstAppear() {
+    String interleaved = """
+        {"format": 1, "windows": [
+          {"id": "R1", "resource": "south", "intervals": []},
+          {"id": "R1", "resource": "north", "intervals": []},
+          {"id": "R2", "resource": "south", "intervals": []}]}""";
+    List<WindowsFile.ResourceWindows> w = WindowsFile.parseByResource(interleaved, "w");
+    assertEquals(List.of("south", "north"), w.stream().map(WindowsFile.ResourceWindows::resource).toList());
+    assertEquals(List.of("R1", "R2"), w.get(0).windows().stream().map(RequestWindows::id).toList());
+  }
+
+  @Test
+  void windowsEntriesNameAResourceExactlyInAFileByResource() {
+    String bad = """
+        {"format": 1, "windows": [
+          {"id": "R1", "resource": "north", "intervals": []},
+          {"id": "R1", "resource": "north", "intervals": []},
+          {"id": "R2", "intervals": []},
+          {"id": "R3", "resource": "", "intervals": []}]}""";
+    List<Problem> ps = assertThrows(ScenarioException.class, () -> WindowsFile.parseByResource(bad, "w")).problems();
+    Problem dup = at(ps, "windows[1] (id \"R1\").id");
+    assertEquals("duplicate id for resource \"north\", already used by windows[0]", dup.message());
+    assertEquals("R1", dup.value());
+    assertEquals("is required", at(ps, "windows[2] (id \"R2\").resource").message());
+    assertEquals("must not be empty (was \"\")", at(ps, "windows[3] (id \"R3\").resource").message());
+    assertEquals(3, ps.size(), ps.toString());
+    ps = assertThrows(ScenarioException.class, () -> WindowsFile.parse(bad, "w")).problems();
+    Problem one = at(ps, "windows[0] (id \"R1\").resource");
+    assertEquals("must be absent: these windows are read for one observer (entries name a resource only for a "
+        + "scenario with resources, A6)", one.message());
+    assertEquals("north", one.value());
+  }
+
+  @Test
+  void timelineObservationsCarryTheirResource() {
+    // Spec A6: every observation carries "resource"; different visits of one request may use different ones.
+    Instant t0 = Instant.parse("2031-05-04T19:00:00Z");
+    Timeline t = new Timeline(PlanStatus.FEASIBLE, 2, 30, null,
+        List.of(new Observation("R1", t0, t0.plusSeconds(300), 10, null, null, null, List.of(), 1, "north"),
+            new Observation("R1", t0.plusSeconds(100), t0.plusSeconds(400), 20, null, null, null, List.of(), 2,
+                "south")),
+        List.of());
+    String json = TimelineFile.toJson(t);
+    assertTrue(json.contains("""
+              "id": "R1",
+              "resource": "south",
+              "visit": 2,
+        """), json);
+    assertEquals(t, TimelineFile.parse(json, "t"));
+  }
+
+  @Test
+  void aResourceDoesNotMakeASecondObservationOfARequestLegal() {
+    String bad = """
+        {"format": 1, "status": "FEASIBLE", "objective": {"priority": 1, "slewSeconds": 0},
+         "observations": [
+           {"id": "R1", "resource": "north", "start": "2031-05-04T19:00:00Z", "end": "2031-05-04T19:10:00Z",
+            "slewSeconds": 0},
+           {"id": "R1", "resource": "south", "start": "2031-05-04T19:00:00Z", "end": "2031-05-04T19:10:00Z",
+            "slewSeconds": 0},
+           {"id": "R2", "resource": " ", "start": "2031-05-04T19:20:00Z", "end": "2031-05-04T19:30:00Z",
+            "slewSeconds": 0}],
+         "unscheduled": []}""";
+    List<Problem> ps = assertThrows(ScenarioException.class, () -> TimelineFile.parse(bad, "t")).problems();
+    assertEquals("duplicate id, already used by observations[0]", at(ps, "observations[1] (id \"R1\").id").message());
+    assertEquals("must not be empty (was \" \")", at(ps, "observations[2] (id \"R2\").resource").message());
+    assertEquals(2, ps.size(), ps.toString());
+  }
+
+  @Test
   void writersReplaceFilesAtomicallyAndLeaveNoTemporaryFile(@TempDir Path dir) throws Exception {
     Path file = dir.resolve("plan.json");
     Files.writeString(file, "old");
@@ -216,6 +344,9 @@ class FilesTest {
     List<RequestWindows> w = List.of(new RequestWindows("R1", List.of(new TimeWindow(T0, T0.plusSeconds(5)))));
     WindowsFile.write(w, windows);
     assertEquals(w, WindowsFile.read(windows));
+    List<WindowsFile.ResourceWindows> byResource = List.of(new WindowsFile.ResourceWindows("north", w));
+    WindowsFile.writeByResource(byResource, windows);
+    assertEquals(byResource, WindowsFile.readByResource(windows));
   }
 
   @Test

@@ -15,7 +15,9 @@ import dev.sequencer.model.OrbitObserver;
 import dev.sequencer.model.OrbitingTarget;
 import dev.sequencer.model.Pointing;
 import dev.sequencer.model.RaDec;
+import dev.sequencer.model.Reconfiguration;
 import dev.sequencer.model.Request;
+import dev.sequencer.model.Resource;
 import dev.sequencer.model.Scenario;
 import dev.sequencer.model.SlewSettings;
 import dev.sequencer.model.SolverSettings;
@@ -25,6 +27,7 @@ import dev.sequencer.model.Tle;
 import dev.sequencer.model.UtilityPoint;
 import java.time.Instant;
 import java.util.ArrayList;
+import java.util.Collections;
 import java.util.EnumSet;
 import java.util.List;
 import java.util.Random;
@@ -33,9 +36,13 @@ import java.util.TreeSet;
 
 /**
  * Random valid scenarios for the properties: every observer kind, target kind, slew model and optional
- * part, with values at the edges of their ranges part of the time. Invented data only.
+ * part, one observer or several resources (A6), with values at the edges of their ranges part of the time.
+ * Invented data only.
  */
 final class ScenarioGen {
+  /** Every configuration label of the resource scenarios; each change-time table lists all of them. */
+  static final List<String> LABELS = List.of("", "red", "blue");
+
   private final Random r;
 
   ScenarioGen(Random random) {
@@ -44,16 +51,9 @@ final class ScenarioGen {
 
   enum Kind { NONE, GROUND, ORBIT_TLE, ORBIT_KEPLER }
 
+  /** A scenario with one observer (or none): no {@code resources}. */
   Scenario scenario() {
-    Instant start = Instant.parse("2026-01-01T00:00:00Z").plusSeconds(r.nextInt(3650 * 86_400));
-    if (r.nextBoolean()) {
-      start = start.plusMillis(1 + r.nextInt(999));
-    }
-    Instant end = start.plusSeconds(3600 + r.nextInt(3 * 86_400));
-    if (r.nextInt(4) == 0) {
-      end = end.plusNanos(1 + r.nextInt(999_999_999));
-    }
-    TimeWindow horizon = new TimeWindow(start, end);
+    TimeWindow horizon = horizon();
     Kind kind = Kind.values()[r.nextInt(4)];
     Observer observer = observer(kind, horizon);
     int n = 1 + r.nextInt(6);
@@ -64,6 +64,89 @@ final class ScenarioGen {
     }
     return new Scenario(1, r.nextBoolean() ? null : "night " + r.nextInt(100), horizon, observer, constraints(),
         slew, startPointing(kind, slew), requests, solver());
+  }
+
+  /**
+   * A scenario with 1 to 3 resources (A6) of any observer kind, each with its own slew (a matrix over every
+   * request), sometimes a start pointing, constraints of its own and change times; requests may be restricted
+   * to some resources, always to resources they are valid for, and use the configurations of {@link #LABELS}.
+   */
+  Scenario resourceScenario() {
+    TimeWindow horizon = horizon();
+    int n = 1 + r.nextInt(6);
+    List<Resource> resources = new ArrayList<>();
+    List<Kind> kinds = new ArrayList<>();
+    for (String id : List.of("north", "south", "queue").subList(0, 1 + r.nextInt(3))) {
+      Kind kind = Kind.values()[r.nextInt(4)];
+      SlewSettings slew = slew(kind, n);
+      kinds.add(kind);
+      resources.add(new Resource(id + (r.nextBoolean() ? "" : "-é\"x"), observer(kind, horizon), slew,
+          startPointing(kind, slew), ownConstraints(), r.nextBoolean() ? null : reconfiguration()));
+    }
+    List<Request> requests = new ArrayList<>();
+    for (int i = 0; i < n; i++) {
+      List<Integer> allowed = allowed(kinds);
+      Kind kind = targetKind(allowed.stream().map(kinds::get).toList());
+      List<String> ids = allowed.stream().map(k -> resources.get(k).id()).toList();
+      boolean all = allowed.size() == resources.size();
+      requests.add(request("R" + (i + 1), kind, horizon).withConfiguration(LABELS.get(r.nextInt(LABELS.size())))
+          .withResources(all && r.nextBoolean() ? List.of() : ids));
+    }
+    return new Scenario(1, r.nextBoolean() ? null : "network " + r.nextInt(100), horizon, null, constraints(),
+        resources.get(0).slew(), null, requests, solver(), List.of(), r.nextBoolean() ? null : reconfiguration(),
+        LABELS.get(r.nextInt(LABELS.size())), resources);
+  }
+
+  /**
+   * The indices of the resources allowed to observe a request, in random order: a random non-empty subset,
+   * kept to those without an observer or to those with one (a request cannot be valid for both).
+   */
+  private List<Integer> allowed(List<Kind> kinds) {
+    List<Integer> all = new ArrayList<>();
+    for (int k = 0; k < kinds.size(); k++) {
+      all.add(k);
+    }
+    Collections.shuffle(all, r);
+    List<Integer> subset = new ArrayList<>(all.subList(0, 1 + r.nextInt(all.size())));
+    boolean none = kinds.get(subset.get(0)) == Kind.NONE;
+    subset.removeIf(k -> (kinds.get(k) == Kind.NONE) != none);
+    return subset;
+  }
+
+  /** The observer kind a request's target must suit: none, a ground site if any, else an orbit. */
+  private static Kind targetKind(List<Kind> allowed) {
+    if (allowed.contains(Kind.NONE)) {
+      return Kind.NONE;
+    }
+    return allowed.contains(Kind.GROUND) ? Kind.GROUND : Kind.ORBIT_TLE;
+  }
+
+  /** A constant change time, or a table over {@link #LABELS} in random order (0 on the diagonal). */
+  private Reconfiguration reconfiguration() {
+    if (r.nextBoolean()) {
+      return Reconfiguration.constant(nonNegative(), r.nextBoolean());
+    }
+    List<String> labels = new ArrayList<>(LABELS);
+    Collections.shuffle(labels, r);
+    double[][] table = new double[labels.size()][labels.size()];
+    for (int i = 0; i < labels.size(); i++) {
+      for (int j = 0; j < labels.size(); j++) {
+        table[i][j] = i == j ? 0 : nonNegative();
+      }
+    }
+    return new Reconfiguration(labels, 0, table, r.nextBoolean());
+  }
+
+  private TimeWindow horizon() {
+    Instant start = Instant.parse("2026-01-01T00:00:00Z").plusSeconds(r.nextInt(3650 * 86_400));
+    if (r.nextBoolean()) {
+      start = start.plusMillis(1 + r.nextInt(999));
+    }
+    Instant end = start.plusSeconds(3600 + r.nextInt(3 * 86_400));
+    if (r.nextInt(4) == 0) {
+      end = end.plusNanos(1 + r.nextInt(999_999_999));
+    }
+    return new TimeWindow(start, end);
   }
 
   private Observer observer(Kind kind, TimeWindow horizon) {

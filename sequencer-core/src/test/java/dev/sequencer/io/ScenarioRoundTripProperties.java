@@ -10,11 +10,13 @@ import net.jqwik.api.ForAll;
 import net.jqwik.api.Property;
 import net.jqwik.api.Provide;
 
+/** Write then read gives the scenario back, one observer or several resources (A6). */
 class ScenarioRoundTripProperties {
 
   @Provide
   Arbitrary<Scenario> scenarios() {
-    return Arbitraries.randomValue(random -> new ScenarioGen(random).scenario());
+    return Arbitraries.randomValue(random -> random.nextInt(3) == 0 ? new ScenarioGen(random).resourceScenario()
+        : new ScenarioGen(random).scenario());
   }
 
   @Property(tries = 300)

@@ -78,8 +78,9 @@ final class WindowsCommand implements Callable<Integer> {
         elapsed);
     if (output != null) {
       if (several) {
-        java.util.Map<String, List<dev.sequencer.model.RequestWindows>> w = new java.util.LinkedHashMap<>();
-        byResource.forEach((id, vis) -> w.put(id, vis.stream().map(RequestVisibility::toWindows).toList()));
+        List<WindowsFile.ResourceWindows> w = new java.util.ArrayList<>();
+        byResource.forEach((id, vis) -> w.add(new WindowsFile.ResourceWindows(id,
+            vis.stream().map(RequestVisibility::toWindows).toList())));
         WindowsFile.writeByResource(w, output);
       } else {
         WindowsFile.write(byResource.get(null).stream().map(RequestVisibility::toWindows).toList(), output);

@@ -20,7 +20,7 @@ import picocli.CommandLine;
 /**
  * Every file of the bad-input corpus ({@code src/test/resources/corpus/bad}), through every command that
  * reads a scenario: exit code 2, the expected JSON path and rule on stderr, no stack trace, no output
- * file. {@code expected-paths.tsv} beside the files gives the text each must print. The three files in
+ * file. {@code expected-paths.tsv} beside the files gives the text each must print. The files in
  * {@code corpus/good} are the valid documents the bad ones were derived from (one edit each).
  */
 class BadInputCorpusTest {
