@@ -47,10 +47,6 @@ public final class InputRules {
       problems.add(new Problem("groups[0] (id \"" + s.groups().get(0).id() + "\")",
           "re-planning does not take groups yet; plan the rest of the night as a new scenario", s.groups().get(0).id()));
     }
-    if (s.hasResources()) {
-      problems.add(new Problem("resources", "re-planning does not take several resources yet; plan the rest of the "
-          + "night as a new scenario", s.resources().size() + " resources"));
-    }
     if (!problems.isEmpty()) {
       throw new ScenarioException(source, problems);
     }

@@ -226,12 +226,13 @@ public final class Planner {
     Budget clock = Budget.startingNow(options.sequencer().timeLimitS());
     InputRules.check(s, "scenario");
     InputRules.checkReplannable(s, "scenario");
+    InputRules.checkResources(s, "scenario");
     preloadSolver();
     Geometry g = geometry(s, ctx);
-    PlanningProblem problem = PlanningProblem.of(s, g.windows(), g.transitions());
+    PlanningProblem problem = problem(s, g);
     ReplanOptions o = options.withSequencer(options.sequencer().withClock(clock)).withValidator(validator(g, ctx));
     ReplanResult r = new Replanner().replan(problem, previous, now, done, failed, o);
-    ReplanResult annotated = new ReplanResult(SlewPaths.annotate(s, g.transitions(), r.timeline()), r.source(),
+    ReplanResult annotated = new ReplanResult(annotate(s, g, r.timeline()), r.source(),
         r.newPriority(), r.tailPriority(), r.solverPriority(), r.tailRequests(), r.keptRequests(), r.keptArcs(),
         r.departure(), r.message(), r.notes());
     return new ReplanOutcome(g, annotated, clock.elapsedS());

@@ -81,6 +81,17 @@ public final class SelfCheck implements TimelineCheck {
     this(horizon, requests, groups, windows, transitions, null, true);
   }
 
+  /**
+   * The plan's own check of {@code problem} where no scenario is at hand: this class for one observer, each
+   * resource's observations checked as one-observer plans for several ({@link dev.sequencer.sequence.problem.Sections}).
+   */
+  public static TimelineCheck of(dev.sequencer.sequence.problem.PlanningProblem problem) {
+    return problem.sections() != null
+        ? new SectionsCheck(problem.horizon(), problem.requests(), problem.sections())
+        : new SelfCheck(problem.horizon(), problem.requests(), problem.groups(), problem.windows(),
+            problem.requestTransitions());
+  }
+
   private SelfCheck(TimeWindow horizon, List<Request> requests, List<Group> groups, List<RequestWindows> windows,
       Transitions transitions, Instant now, boolean checkRequired) {
     this.groups = List.copyOf(groups);

@@ -463,7 +463,7 @@ public final class Sequencer {
           picked.add(new long[] {optionOn(sec, q, r), p.startS() + sec.offsetS(r), p.endS() - p.startS()});
         }
         if (r + 1 < m) {
-          picked.add(new long[] {sec.markerOf(r + 1), sec.offsetS(r + 1), 0});
+          picked.add(new long[] {sec.markerOf(r + 1), problem.task(sec.markerOf(r + 1)).earliestStartS(), 0});
         }
       }
       int[] order = new int[picked.size()];
@@ -730,10 +730,7 @@ public final class Sequencer {
 
     /** The one validation of the returned plan: a violation is a bug, and no invalid plan is handed out. */
     private void check(SequencerResult result) {
-      ResultCheck v = options.validator() != null ? options.validator() : ResultCheck.of(problem.sections() != null
-          ? new SectionsCheck(problem.horizon(), problem.requests(), problem.sections())
-          : new SelfCheck(problem.horizon(), problem.requests(), problem.groups(), problem.windows(),
-              problem.requestTransitions()));
+      ResultCheck v = options.validator() != null ? options.validator() : ResultCheck.of(SelfCheck.of(problem));
       List<String> violations = v.violations(result);
       if (!violations.isEmpty()) {
         throw new IllegalStateException("the sequencer produced an invalid plan (a bug): " + violations);

@@ -163,8 +163,12 @@ class PlannerFuzzProperties {
     replan(s, cp.timeline(), base, new Random(t.seed()), what);
   }
 
-  /** A re-plan at a random instant of the plan with random done and failed observations. */
-  private static void replan(Scenario s, Timeline plan, SequencerOptions base, Random rnd, String what) {
+  /**
+   * A re-plan at a random instant of the plan with random done and failed observations; with several
+   * resources, one of them lost at that instant one time in two. The re-plan keeps the done observations,
+   * starts nothing before now, observes each request at most once, and nothing new on a lost resource.
+   */
+  static void replan(Scenario s, Timeline plan, SequencerOptions base, Random rnd, String what) {
     List<Observation> obs = plan.observations();
     if (obs.size() < 2) {
       return;
@@ -182,18 +186,26 @@ class PlannerFuzzProperties {
         }
       }
     }
-    ReplanOptions o = ReplanOptions.defaults().withSequencer(base).withDropFailed(rnd.nextBoolean());
+    Set<String> lost = s.hasResources() && rnd.nextBoolean()
+        ? Set.of(s.resources().get(rnd.nextInt(s.resources().size())).id()) : Set.of();
+    ReplanOptions o = ReplanOptions.defaults().withSequencer(base).withDropFailed(rnd.nextBoolean())
+        .withUnavailable(lost);
+    String at = what + ": re-plan at " + now + (lost.isEmpty() ? "" : " with " + lost + " lost");
     ReplanResult r = Planner.replan(s, CTX, plan, now, done, failed, o).result();
     if (r.hasPlan()) {
+      Set<String> seen = new java.util.HashSet<>();
       for (Observation x : r.timeline().observations()) {
+        assertTrue(seen.add(x.id()), at + ": " + x.id() + " observed twice");
         if (done.contains(x.id())) {
-          assertEquals(Observation.DONE, x.state(), what + ": re-plan at " + now + " lost done " + x.id());
+          assertEquals(Observation.DONE, x.state(), at + ": lost done " + x.id());
+        }
+        if (Observation.PLANNED.equals(x.state())) {
+          assertTrue(!x.start().isBefore(now), at + ": starts " + x.id() + " before now");
+          assertTrue(x.resource() == null || !lost.contains(x.resource()), at + ": plans " + x.id() + " on lost " + x.resource());
         }
       }
-      for (Observation x : r.timeline().observations()) {
-        if (Observation.PLANNED.equals(x.state())) {
-          assertTrue(!x.start().isBefore(now), what + ": re-plan at " + now + " starts " + x.id() + " before now");
-        }
+      for (String id : done) {
+        assertTrue(seen.contains(id), at + ": done " + id + " missing");
       }
     }
   }

@@ -27,7 +27,9 @@ import net.jqwik.api.Provide;
  * through the façade, so every returned plan has passed the independent validator per resource. Each try
  * checks that greedy and CP-SAT return plans when the required requests come from a first plan, that CP-SAT
  * is never below greedy, that each request is observed at most once and only by a resource that may observe
- * it, and that every required request is in the plan.
+ * it, and that every required request is in the plan; then re-plans CP-SAT's plan at a random instant with
+ * random done and failed observations, one resource lost one time in two
+ * ({@link PlannerFuzzProperties#replan}).
  */
 class ResourcesFuzzProperties {
   private static final AstroContext CTX = AstroContext.offline();
@@ -82,6 +84,9 @@ class ResourcesFuzzProperties {
         assertEquals(s.requests().size(), seen.size() + o.timeline().unscheduled().size(), what + ": every request "
             + "observed or listed");
       }
+    }
+    if (cp.result().hasPlan()) {
+      PlannerFuzzProperties.replan(s, cp.timeline(), base, new Random(t.seed() + 29), what);
     }
   }
 }

@@ -19,10 +19,16 @@ import dev.sequencer.model.SlewSettings;
 import dev.sequencer.model.TimeWindow;
 import dev.sequencer.model.Visits;
 import dev.sequencer.sequence.SequencerOptions;
+import dev.sequencer.model.Timeline;
+import dev.sequencer.sequence.replan.ReplanOptions;
+import dev.sequencer.sequence.replan.ReplanResult;
+import dev.sequencer.sequence.replan.Replanner;
+import java.time.Duration;
 import java.time.Instant;
 import java.util.ArrayList;
 import java.util.List;
 import java.util.Map;
+import java.util.Set;
 import java.util.stream.Collectors;
 import org.junit.jupiter.api.Test;
 
@@ -96,14 +102,108 @@ class ResourcesPlannerTest {
     assertEquals("requests[3] (id \"EQ0\").visits", e.problems().get(0).path());
   }
 
+  /** The network's CP-SAT plan (the re-planning tests start from it). */
+  private static PlanOutcome planned(Scenario s) {
+    return Planner.plan(s, CTX, SequencerOptions.defaults().withTimeLimitS(8).withWorkers(2));
+  }
+
+  /** An instant inside an observation of {@code resource} that has another of its observations after it. */
+  private static Instant insideOn(List<Observation> obs, String resource) {
+    List<Observation> mine = obs.stream().filter(o -> o.resource().equals(resource)).toList();
+    assertTrue(mine.size() >= 3, "the plan observes at least 3 fields on " + resource + ": " + mine);
+    Observation o = mine.get(1);
+    return o.start().plusSeconds(Duration.between(o.start(), o.end()).getSeconds() / 2);
+  }
+
   @Test
-  void replanningWithSeveralResourcesIsRefused() {
+  void aReplanWithNothingChangedKeepsEachResourcesRestWhereItWas() {
     Scenario s = network();
-    PlanOutcome o = Planner.plan(s, CTX, SequencerOptions.defaults().withSolver(SequencerOptions.Solver.GREEDY)
-        .withTimeLimitS(5));
-    ScenarioException e = assertThrows(ScenarioException.class, () -> Planner.replan(s, CTX, o.timeline(),
-        o.timeline().observations().get(1).start(), java.util.Set.of(), java.util.Set.of(),
-        dev.sequencer.sequence.replan.ReplanOptions.defaults()));
-    assertEquals("resources", e.problems().get(0).path());
+    Timeline previous = planned(s).timeline();
+    Instant now = insideOn(previous.observations(), "south");
+    ReplanResult r = Planner.replan(s, CTX, previous, now, Set.of(), Set.of(), ReplanOptions.defaults()
+        .withSequencer(SequencerOptions.defaults().withTimeLimitS(5).withWorkers(2))).result();
+    assertTrue(r.hasPlan(), r.message());
+    // The rest of the previous plan is feasible as it stands, so the re-plan collects at least as much; at
+    // equal priority the lexicographic stability level keeps every request on its resource.
+    assertTrue(r.newPriority() >= r.tailPriority() - 1e-9, r.newPriority() + " < " + r.tailPriority());
+    if (Math.abs(r.newPriority() - r.tailPriority()) < 1e-9) {
+      assertEquals(r.tailRequests(), r.keptRequests(), "every tail request kept: " + r.timeline().observations());
+    }
+    Map<String, Observation> before = previous.observations().stream()
+        .collect(Collectors.toMap(Observation::id, o -> o));
+    for (Observation o : r.timeline().observations()) {
+      if (o.start().isBefore(now)) {
+        Observation was = before.get(o.id());
+        assertEquals(was.start(), o.start(), o.id());
+        assertEquals(was.resource(), o.resource(), o.id());
+        assertEquals(o.end().isAfter(now) ? Observation.RUNNING : Observation.DONE, o.state(), o.id());
+      } else {
+        assertEquals(Observation.PLANNED, o.state(), o.id());
+      }
+    }
+    // On the south site nothing new starts before its running observation ends.
+    Observation running = r.timeline().observations().stream()
+        .filter(o -> Observation.RUNNING.equals(o.state()) && o.resource().equals("south")).findFirst().orElseThrow();
+    for (Observation o : r.timeline().observations()) {
+      if (o.resource().equals("south") && Observation.PLANNED.equals(o.state())) {
+        assertTrue(!o.start().isBefore(running.end()), o.id() + " starts before " + running.id() + " ends");
+      }
+    }
+  }
+
+  @Test
+  void oneSiteLostMidNightTheOtherKeepsGoingAndTakesWhatItCan() {
+    Scenario s = network();
+    Timeline previous = planned(s).timeline();
+    Instant now = insideOn(previous.observations(), "north");
+    ReplanResult r = Planner.replan(s, CTX, previous, now, Set.of(), Set.of(), ReplanOptions.defaults()
+        .withSequencer(SequencerOptions.defaults().withTimeLimitS(5).withWorkers(2))
+        .withUnavailable(Set.of("north"))).result();
+    assertTrue(r.hasPlan(), r.message());
+    Observation lost = previous.observations().stream().filter(o -> o.resource().equals("north")
+        && o.start().isBefore(now) && o.end().isAfter(now)).findFirst().orElseThrow();
+    Set<String> in = r.timeline().observations().stream().map(Observation::id).collect(Collectors.toSet());
+    for (Observation o : r.timeline().observations()) {
+      if (o.resource().equals("north")) {
+        assertTrue(o.end().isBefore(now) || o.end().equals(now), "nothing on north after it is lost: " + o);
+      }
+      if (o.id().equals(lost.id())) {
+        assertEquals("south", o.resource(), "the observation lost with north is observed again only on south");
+      }
+    }
+    assertTrue(in.contains("PINNED"), "the required request restricted to south stays in the plan");
+    assertTrue(r.notes().contains(lost.id() + " was running on north"), r.notes());
+    // The south site's rest of the night is still feasible: the re-plan collects at least that much more.
+    double southTail = previous.observations().stream().filter(o -> o.resource().equals("south")
+        && !o.start().isBefore(now)).mapToDouble(o -> s.request(o.id()).orElseThrow().priority()).sum();
+    assertTrue(r.newPriority() >= southTail - 1e-9, r.newPriority() + " < " + southTail);
+    // What only north could observe, still ahead, is listed with the reason.
+    for (Observation o : previous.observations()) {
+      if (o.id().equals("NORTHERN") && !o.start().isBefore(now)) {
+        String why = r.timeline().unscheduled().stream().filter(u -> u.id().equals("NORTHERN")).findFirst()
+            .orElseThrow().reason();
+        assertEquals(Replanner.RESOURCES_UNAVAILABLE, why);
+      }
+    }
+  }
+
+  @Test
+  void badReplanningInputNamesItsField() {
+    Scenario s = network();
+    Timeline previous = Planner.plan(s, CTX, SequencerOptions.defaults().withSolver(SequencerOptions.Solver.GREEDY)
+        .withTimeLimitS(5)).timeline();
+    Instant now = previous.observations().get(1).start();
+    ScenarioException unknown = assertThrows(ScenarioException.class, () -> Planner.replan(s, CTX, previous, now,
+        Set.of(), Set.of(), ReplanOptions.defaults().withUnavailable(Set.of("west"))));
+    assertEquals("unavailable", unknown.problems().get(0).path());
+    assertTrue(unknown.problems().get(0).message().contains("\"west\""), unknown.getMessage());
+    List<Observation> noResource = new ArrayList<>(previous.observations());
+    noResource.set(0, noResource.get(0).withResource(null));
+    Timeline stripped = new Timeline(previous.status(), previous.priority(), previous.slewSeconds(),
+        previous.bound(), noResource, previous.unscheduled());
+    ScenarioException missing = assertThrows(ScenarioException.class, () -> Planner.replan(s, CTX, stripped, now,
+        Set.of(), Set.of(), ReplanOptions.defaults()));
+    assertEquals("previous", missing.problems().get(0).path());
+    assertTrue(missing.problems().get(0).message().contains(".resource: missing"), missing.getMessage());
   }
 }

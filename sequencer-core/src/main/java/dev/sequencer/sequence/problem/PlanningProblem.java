@@ -427,10 +427,26 @@ public final class PlanningProblem {
    */
   public static PlanningProblem ofSections(TimeWindow horizon, List<Request> requests, List<String> resourceIds,
       List<List<RequestWindows>> windows, List<Transitions> transitions) {
+    return ofSections(horizon, requests, resourceIds, windows, transitions, new long[resourceIds.size()]);
+  }
+
+  /**
+   * As {@link #ofSections(TimeWindow, List, List, List, List)}, with resource r free to leave its start
+   * pointing only {@code readyS[r]} seconds after the horizon start (a re-plan: a resource still busy with
+   * an observation that began before the re-planning instant). The marker of section r is pinned there, so
+   * every leg from it departs no earlier; {@code readyS[0]} must be 0 (section 0 opens at the start
+   * pointing, with no marker: the caller puts a resource free at the horizon start first).
+   */
+  public static PlanningProblem ofSections(TimeWindow horizon, List<Request> requests, List<String> resourceIds,
+      List<List<RequestWindows>> windows, List<Transitions> transitions, long[] readyS) {
     int m = resourceIds.size();
-    if (windows.size() != m || transitions.size() != m) {
+    if (windows.size() != m || transitions.size() != m || readyS.length != m) {
       throw new IllegalArgumentException("ofSections: " + m + " resources, " + windows.size() + " window lists, "
-          + transitions.size() + " transition models");
+          + transitions.size() + " transition models, " + readyS.length + " ready times");
+    }
+    if (m > 0 && readyS[0] != 0) {
+      throw new IllegalArgumentException("ofSections: the first resource must be ready at the horizon start, not "
+          + readyS[0] + " s after it");
     }
     Instant t0 = horizon.start();
     long horizonS = (long) Math.floor(horizon.durationS());
@@ -460,7 +476,11 @@ public final class PlanningProblem {
     }
     for (int r = 0; r < m; r++) {
       if (r > 0) {
-        tasks.add(Task.marker("|" + resourceIds.get(r) + "|", offsets[r]));
+        if (readyS[r] < 0 || readyS[r] > horizonS) {
+          throw new IllegalArgumentException("ofSections: resource " + resourceIds.get(r) + " ready " + readyS[r]
+              + " s after the horizon start, outside [0, " + horizonS + "]");
+        }
+        tasks.add(Task.marker("|" + resourceIds.get(r) + "|", offsets[r] + readyS[r]));
         sectionOf.add(r);
         marker.add(true);
         requestOf.add(-1);

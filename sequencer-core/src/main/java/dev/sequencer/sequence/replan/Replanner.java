@@ -18,6 +18,7 @@ import dev.sequencer.sequence.problem.Plan;
 import dev.sequencer.sequence.problem.PlanningProblem;
 import dev.sequencer.sequence.problem.Prizes;
 import dev.sequencer.sequence.problem.Reasons;
+import dev.sequencer.sequence.problem.Sections;
 import dev.sequencer.sequence.problem.Task;
 import dev.sequencer.slew.Transitions;
 import dev.sequencer.sequence.SelfCheck;
@@ -55,10 +56,21 @@ import java.util.Set;
  * that order. The merged night passes the validator, with the re-planning instant, once. Bad re-planning
  * input (an unknown id, an instant after the horizon) is a {@link ScenarioException} of source
  * {@link #INPUT}. Stateless.
+ *
+ * <p>With several resources (format addition A6; {@code full} built by {@link PlanningProblem#ofSections})
+ * each resource departs on its own: from the end pointing of its own running (or last done) observation, no
+ * earlier than that observation's end and now. The sub-problem is again a sections problem: its horizon
+ * starts at the earliest such departure (a resource departing there is put first), every other resource's
+ * marker is pinned at its own departure, and its transitions are its own {@link DepartureTransitions}.
+ * Resources listed as unavailable ({@link ReplanOptions#unavailable}) get no section; an observation running
+ * on one counts as failed unless listed as done. Stability is counted per resource: a kept tail request is one
+ * planned again on the same resource, a kept pair two consecutive observations of one resource.
  */
 public final class Replanner {
   /** Reason for a failed request that is not retried. */
   public static final String FAILED_DROPPED = "failed; not retried (drop-failed)";
+  /** Reason for a request only resources out of service could still observe (several resources). */
+  public static final String RESOURCES_UNAVAILABLE = "only unavailable resources could still observe it";
   /** Reason for a request whose windows all close before the re-planned part begins. */
   public static final String NO_TIME_LEFT = "no visibility window left after the re-planning instant";
   /** The objective must stay far below CP-SAT's exact range (2^53) even with the stability multiplier. */
@@ -84,52 +96,82 @@ public final class Replanner {
   /** The state of one re-plan. */
   private static final class ReplanRun {
     private final PlanningProblem full;
+    /** The resources of {@code full}, or null for one observer. */
+    private final Sections fullSec;
     private final Timeline previous;
     private final Instant now;
     private final Set<String> done;
     private final Set<String> failed;
     private final ReplanOptions options;
     private final TimelineCheck validator;
+    /** Request id → request index of {@code full}. */
     private final Map<String, Integer> index = new HashMap<>();
     private final List<Observation> frozen = new ArrayList<>();
     private final List<Observation> tail = new ArrayList<>();
+    /** Ids of observations failed by the caller or lost with an unavailable resource. */
+    private final Set<String> failedIds = new HashSet<>();
     private final StringBuilder notes = new StringBuilder();
     private PlanningProblem sub;
     private int[] subToFull;
     private int[] fullToSub;
-    private long offsetS;
+    /** Sub-problem section of each resource of {@code full} (-1: unavailable); {0} for one observer. */
+    private int[] subSectionOf;
 
     ReplanRun(PlanningProblem full, Timeline previous, Instant now, Set<String> done, Set<String> failed,
         ReplanOptions options) {
       this.full = full;
+      this.fullSec = full.sections();
       this.previous = previous;
       this.now = now;
       this.done = done;
       this.failed = failed;
       this.options = options;
-      TimelineCheck v = options.validator() != null ? options.validator()
-          : new SelfCheck(full.horizon(), full.requests(), full.groups(), full.windows(), full.requestTransitions());
+      TimelineCheck v = options.validator() != null ? options.validator() : SelfCheck.of(full);
       this.validator = v.withNow(now);
-      for (int k = 0; k < full.size(); k++) {
-        index.put(full.task(k).id(), k);
+      for (int k = 0; k < full.requests().size(); k++) {
+        index.put(full.requests().get(k).id(), k);
       }
+      failedIds.addAll(failed);
+    }
+
+    /** Number of resources (1 for one observer). */
+    private int resourceCount() {
+      return fullSec == null ? 1 : fullSec.count();
+    }
+
+    /** Resource index of an observation (0 for one observer). */
+    private int resourceOf(Observation o) {
+      return fullSec == null ? 0 : o.resource() == null ? -1 : fullSec.resourceIds().indexOf(o.resource());
+    }
+
+    private boolean unavailable(int resource) {
+      return fullSec != null && options.unavailable().contains(fullSec.resourceId(resource));
     }
 
     ReplanResult execute() {
       if (now.isAfter(full.horizon().end())) {
         throw badInput("now", "must not be after the horizon end " + full.horizon().end() + " (was " + now + ")");
       }
+      checkUnavailable();
       classify();
       checkFrozen();
-      Instant departure = departure();
-      buildSubProblem(departure);
+      Instant departure = departure(firstToDepart());
+      buildSubProblem();
       double tailPriority = 0;
       for (Observation o : tail) {
-        tailPriority += o.value() != null ? o.value() : full.task(index.get(o.id())).priority();
+        tailPriority += o.value() != null ? o.value() : full.requests().get(index.get(o.id())).priority();
       }
       double frozenPriority = priorityOf(frozen);
-      boolean anything = sub.tasks().stream().anyMatch(t -> t.schedulable() || t.required());
+      boolean anything = sub != null && sub.tasks().stream().anyMatch(t -> t.schedulable() || t.required());
       if (!anything) {
+        List<String> lost = requiredLeft();
+        if (!lost.isEmpty()) {
+          String message = "no resource left for the required request(s) " + String.join(", ", lost);
+          Timeline none = new Timeline(PlanStatus.INFEASIBLE, frozenPriority, slewOf(frozen), null, frozen,
+              unscheduled(Set.of(), "not planned: " + message, List.of()));
+          return new ReplanResult(none, ReplanResult.Source.NONE, 0, tailPriority, Double.NaN, tail.size(), 0, 0,
+              departure, message, notes.toString().trim());
+        }
         Timeline t = merged(List.of(), PlanStatus.OPTIMAL, frozenPriority);
         check(t);
         return new ReplanResult(t, ReplanResult.Source.SOLVER, 0, tailPriority, 0, tail.size(), 0, 0, departure, "",
@@ -162,11 +204,18 @@ public final class Replanner {
             + "kept. ");
       }
       List<Observation> planned = timeline.observations().subList(frozen.size(), timeline.observations().size());
-      int keptRequests = (int) planned.stream().filter(o -> tailIds().contains(o.id())).count();
+      Set<String> tailKeys = new HashSet<>();
+      tail.forEach(o -> tailKeys.add(key(o)));
+      int keptRequests = (int) planned.stream().filter(o -> tailKeys.contains(key(o))).count();
       Set<String> tailArcs = successorArcs(tail);
       int keptArcs = (int) successorArcs(planned).stream().filter(tailArcs::contains).count();
       return new ReplanResult(timeline, source, r.totalPriority(), tailPriority, r.stats().ownPriority(), tail.size(),
           keptRequests, keptArcs, departure, "", (notes + sequencerNotes).trim());
+    }
+
+    /** An observation's request on its resource: what "kept" compares. */
+    private static String key(Observation o) {
+      return o.id() + "@" + o.resource();
     }
 
     /** The one check of the new plan: merged with the frozen observations, the whole night validated at now. */
@@ -178,6 +227,20 @@ public final class Replanner {
       List<String> v = validator.violations(t);
       if (!v.isEmpty()) {
         throw new IllegalStateException("the re-plan failed its re-check (a bug): " + v);
+      }
+    }
+
+    /** The unavailable resources must be resources of the scenario. */
+    private void checkUnavailable() {
+      for (String id : new java.util.TreeSet<>(options.unavailable())) {
+        if (fullSec == null) {
+          throw badInput("unavailable", "the scenario has one observer and no resources; \"" + id
+              + "\" cannot be unavailable");
+        }
+        if (!fullSec.resourceIds().contains(id)) {
+          throw badInput("unavailable", "id \"" + id + "\" is not a resource of the scenario (resources: "
+              + String.join(", ", fullSec.resourceIds()) + ")");
+        }
       }
     }
 
@@ -195,6 +258,7 @@ public final class Replanner {
         if (!index.containsKey(o.id())) {
           throw badInput("previous", "observations[" + k + "]: id \"" + o.id() + "\" is not a request of the scenario");
         }
+        checkResource(k, o);
         planned.add(o.id());
         boolean started = o.start().isBefore(now);
         if (failed.contains(o.id()) || done.contains(o.id())) {
@@ -208,6 +272,10 @@ public final class Replanner {
           }
         } else if (!o.end().isAfter(now)) {
           frozen.add(withState(o, Observation.DONE));
+        } else if (started && unavailable(resourceOf(o)) && !Observation.DONE.equals(o.state())) {
+          failedIds.add(o.id());
+          notes.append("observation ").append(o.id()).append(" was running on ").append(o.resource())
+              .append(", unavailable from now: counted as failed. ");
         } else if (started) {
           frozen.add(withState(o, Observation.DONE.equals(o.state()) ? Observation.DONE : Observation.RUNNING));
         } else if (Observation.DONE.equals(o.state()) || Observation.RUNNING.equals(o.state())) {
@@ -229,16 +297,30 @@ public final class Replanner {
       }
     }
 
+    /** With several resources every previous observation names one of them; with one observer none. */
+    private void checkResource(int k, Observation o) {
+      String field = "previous";
+      String where = "observations[" + k + "] (id \"" + o.id() + "\").resource";
+      if (fullSec == null && o.resource() != null) {
+        throw badInput(field, where + ": \"" + o.resource() + "\", but the scenario has one observer and no resources");
+      }
+      if (fullSec != null && resourceOf(o) < 0) {
+        throw badInput(field, where + ": " + (o.resource() == null ? "missing" : "\"" + o.resource() + "\" is not")
+            + " a resource of the scenario (resources: " + String.join(", ", fullSec.resourceIds()) + ")");
+      }
+    }
+
     private static Observation withState(Observation o, String state) {
-      return new Observation(o.id(), o.start(), o.end(), o.slewSeconds(), o.value(), state, o.slewStart(), o.slewVia());
+      return new Observation(o.id(), o.start(), o.end(), o.slewSeconds(), o.value(), state, o.slewStart(), o.slewVia(),
+          o.visit(), o.resource());
     }
 
     /** The frozen observations must be valid against the scenario (required flags aside): else bad input. */
     private void checkFrozen() {
       Set<String> in = new HashSet<>();
       frozen.forEach(o -> in.add(o.id()));
-      List<Unscheduled> rest = full.tasks().stream().filter(t -> !in.contains(t.id()))
-          .map(t -> new Unscheduled(t.id(), "-")).toList();
+      List<Unscheduled> rest = full.requests().stream().filter(q -> !in.contains(q.id()))
+          .map(q -> new Unscheduled(q.id(), "-")).toList();
       List<String> violations = validator.withRequiredIgnored().violations(
           new Timeline(PlanStatus.FEASIBLE, priorityOf(frozen), slewOf(frozen), null, frozen, rest));
       if (!violations.isEmpty()) {
@@ -267,30 +349,59 @@ public final class Replanner {
       return d.getSeconds() + d.getNano() * 1e-9;
     }
 
-    /** The later of now and the end of the last frozen observation (the horizon start at the earliest). */
-    private Instant departure() {
+    /** The frozen observations of one resource, in time order. */
+    private List<Observation> frozenOn(int resource) {
+      return frozen.stream().filter(o -> resourceOf(o) == resource).toList();
+    }
+
+    /** Resource r's departure: the later of now and the end of its last frozen observation (the horizon start at the earliest). */
+    private Instant departure(int resource) {
       Instant d = now.isBefore(full.horizonStart()) ? full.horizonStart() : now;
-      if (!frozen.isEmpty() && frozen.get(frozen.size() - 1).end().isAfter(d)) {
-        d = frozen.get(frozen.size() - 1).end();
+      List<Observation> mine = frozenOn(resource);
+      if (!mine.isEmpty() && mine.get(mine.size() - 1).end().isAfter(d)) {
+        d = mine.get(mine.size() - 1).end();
       }
       return d;
     }
 
-    /** The remaining requests from the departure (rounded up to a whole second) to the horizon end. */
-    private void buildSubProblem(Instant departure) {
-      offsetS = Math.min(full.horizonS(), PlanningProblem.ceilSeconds(full.horizonStart(), departure));
+    /** Scenario seconds of resource r's departure, rounded up to a whole second, within the horizon. */
+    private long departureS(int resource) {
+      return Math.min(full.horizonS(), PlanningProblem.ceilSeconds(full.horizonStart(), departure(resource)));
+    }
+
+    /** The available resource that departs first (the first in file order among equals); -1 when none is. */
+    private int firstToDepart() {
+      int best = -1;
+      for (int r = 0; r < resourceCount(); r++) {
+        if (!unavailable(r) && (best < 0 || departureS(r) < departureS(best))) {
+          best = r;
+        }
+      }
+      return best < 0 ? 0 : best;
+    }
+
+    /** Required requests neither frozen nor in the sub-problem's reach (no resource left). */
+    private List<String> requiredLeft() {
+      Set<String> frozenIds = new HashSet<>();
+      frozen.forEach(o -> frozenIds.add(o.id()));
+      return full.requests().stream().filter(q -> q.required() && !frozenIds.contains(q.id())).map(Request::id)
+          .toList();
+    }
+
+    /** The remaining requests from each resource's departure to the horizon end. */
+    private void buildSubProblem() {
       Set<String> frozenIds = new HashSet<>();
       frozen.forEach(o -> frozenIds.add(o.id()));
       List<Integer> keep = new ArrayList<>();
-      for (int k = 0; k < full.size(); k++) {
-        Task t = full.task(k);
-        boolean dropped = options.dropFailed() && failed.contains(t.id()) && !t.required();
-        if (!frozenIds.contains(t.id()) && !dropped) {
+      for (int k = 0; k < full.requests().size(); k++) {
+        Request q = full.requests().get(k);
+        boolean dropped = options.dropFailed() && failedIds.contains(q.id()) && !q.required();
+        if (!frozenIds.contains(q.id()) && !dropped) {
           keep.add(k);
         }
       }
       subToFull = keep.stream().mapToInt(Integer::intValue).toArray();
-      fullToSub = new int[full.size()];
+      fullToSub = new int[full.requests().size()];
       java.util.Arrays.fill(fullToSub, -1);
       for (int q = 0; q < subToFull.length; q++) {
         fullToSub[subToFull[q]] = q;
@@ -301,51 +412,124 @@ public final class Replanner {
         requests.add(full.requests().get(k));
         ids.add(full.requests().get(k).id());
       }
-      List<RequestWindows> windows = full.windows().stream().filter(w -> ids.contains(w.id())).toList();
-      int[] fo = new int[frozen.size()];
-      double[] fd = new double[frozen.size()];
-      double[] fa = new double[frozen.size()];
-      for (int q = 0; q < frozen.size(); q++) {
-        fo[q] = index.get(frozen.get(q).id());
-        fd[q] = q == 0 ? 0.0 : fullSeconds(frozen.get(q - 1).end());
-        fa[q] = fullSeconds(frozen.get(q).start());
-      }
-      double fromEndS = frozen.isEmpty() ? 0.0 : fullSeconds(frozen.get(frozen.size() - 1).end());
-      DepartureTransitions tr = new DepartureTransitions(full.transitions(), subToFull, fo, fd, fa, fromEndS, offsetS);
+      int first = firstToDepart();
+      long offsetS = departureS(first);
       TimeWindow h = new TimeWindow(full.horizonStart().plusSeconds(offsetS), full.horizon().end());
-      PlanningProblem p = PlanningProblem.of(h, requests, windows, tr);
-      int last = full.mustBeLastIndex();
-      p = last >= 0 && fullToSub[last] >= 0 ? p.withMustBeLast(full.task(last).id()) : p;
+      subSectionOf = new int[resourceCount()];
+      java.util.Arrays.fill(subSectionOf, -1);
+      if (fullSec == null) {
+        subSectionOf[0] = 0;
+        List<RequestWindows> windows = full.windows().stream().filter(w -> ids.contains(w.id())).toList();
+        PlanningProblem p = PlanningProblem.of(h, requests, windows, departures(full.transitions(), 0, offsetS));
+        int last = full.mustBeLastIndex();
+        p = last >= 0 && fullToSub[last] >= 0 ? p.withMustBeLast(full.task(last).id()) : p;
+        sub = p.withPrizes(stabilityPrizes(p));
+        return;
+      }
+      List<Integer> order = new ArrayList<>();
+      for (int r = 0; r < resourceCount(); r++) {
+        if (!unavailable(r) && r != first) {
+          order.add(r);
+        }
+      }
+      if (unavailable(first)) {
+        return; // no resource left: nothing to plan (sub stays null)
+      }
+      order.add(0, first);
+      List<String> subIds = new ArrayList<>();
+      List<List<RequestWindows>> windows = new ArrayList<>();
+      List<Transitions> transitions = new ArrayList<>();
+      long[] ready = new long[order.size()];
+      for (int i = 0; i < order.size(); i++) {
+        int r = order.get(i);
+        subSectionOf[r] = i;
+        subIds.add(fullSec.resourceId(r));
+        windows.add(fullSec.windows(r).stream().filter(w -> ids.contains(w.id())).toList());
+        transitions.add(departures(fullSec.transitions(r), r, offsetS));
+        ready[i] = departureS(r) - offsetS;
+      }
+      PlanningProblem p = PlanningProblem.ofSections(h, requests, subIds, windows, transitions, ready);
       sub = p.withPrizes(stabilityPrizes(p));
+    }
+
+    /** Resource r's transitions (indexed by request) from its frozen observations on, on the sub-problem's clock. */
+    private DepartureTransitions departures(Transitions requestTransitions, int resource, long offsetS) {
+      List<Observation> mine = frozenOn(resource);
+      int[] fo = new int[mine.size()];
+      double[] fd = new double[mine.size()];
+      double[] fa = new double[mine.size()];
+      for (int q = 0; q < mine.size(); q++) {
+        fo[q] = index.get(mine.get(q).id());
+        fd[q] = q == 0 ? 0.0 : fullSeconds(mine.get(q - 1).end());
+        fa[q] = fullSeconds(mine.get(q).start());
+      }
+      double fromEndS = mine.isEmpty() ? 0.0 : fullSeconds(mine.get(mine.size() - 1).end());
+      return new DepartureTransitions(requestTransitions, subToFull, fo, fd, fa, fromEndS, offsetS);
+    }
+
+    /** The sub-problem task of a previous observation: its request's option on its resource (-1: none). */
+    private int subTask(PlanningProblem p, Observation o) {
+      int q = fullToSub[index.get(o.id())];
+      if (q < 0) {
+        return -1;
+      }
+      Sections sec = p.sections();
+      if (sec == null) {
+        return q;
+      }
+      int section = subSectionOf[resourceOf(o)];
+      for (int k : sec.options(q)) {
+        if (sec.sectionOf(k) == section) {
+          return k;
+        }
+      }
+      return -1;
+    }
+
+    /** The tail observations of each sub-problem section, in section order. */
+    private List<List<Observation>> tailBySection(PlanningProblem p) {
+      int sections = p.sections() == null ? 1 : p.sections().count();
+      List<List<Observation>> out = new ArrayList<>();
+      for (int i = 0; i < sections; i++) {
+        out.add(new ArrayList<>());
+      }
+      for (Observation o : tail) {
+        int i = subSectionOf[resourceOf(o)];
+        if (i >= 0) {
+          out.get(i).add(o);
+        }
+      }
+      return out;
     }
 
     /** The sub-problem's objective with the stability bonuses of the class comment (none when switched off or too large). */
     private Prizes stabilityPrizes(PlanningProblem p) {
       Prizes plain = p.prizes();
-      Set<String> tailIds = tailIds();
       if (tail.isEmpty() || (!options.lexicographic() && options.stabilityWeight() == 0)) {
         return plain;
       }
       List<long[]> arcs = new ArrayList<>();
-      // START of the sub-problem is the last frozen observation (or the start pointing): the pair from it to
-      // the first tail request counts too. A request no longer in the sub-problem breaks the chain.
-      int prev = Transitions.START;
-      boolean linked = true;
-      for (Observation o : tail) {
-        int k = fullToSub[index.get(o.id())];
-        if (k < 0) {
-          linked = false;
-          continue;
-        }
-        if (linked) {
-          arcs.add(new long[] {prev, k, 1});
-        }
-        prev = k;
-        linked = true;
-      }
       long[] bonus = new long[p.size()];
-      for (int k = 0; k < p.size(); k++) {
-        bonus[k] = tailIds.contains(p.task(k).id()) ? 1 : 0;
+      List<List<Observation>> bySection = tailBySection(p);
+      for (int i = 0; i < bySection.size(); i++) {
+        // Each section opens at the last frozen observation of its resource (or its start pointing): START for
+        // the first, its marker for the others. The pair from it to the first tail request counts too; a request
+        // no longer in the sub-problem breaks the chain.
+        int prev = i == 0 ? Transitions.START : p.sections().markerOf(i);
+        boolean linked = true;
+        for (Observation o : bySection.get(i)) {
+          int k = subTask(p, o);
+          if (k < 0) {
+            linked = false;
+            continue;
+          }
+          bonus[k] = 1;
+          if (linked) {
+            arcs.add(new long[] {prev, k, 1});
+          }
+          prev = k;
+          linked = true;
+        }
       }
       long multiplier;
       long unit;
@@ -375,32 +559,36 @@ public final class Replanner {
       return plain.withBonuses(multiplier, bonus, arcs);
     }
 
-    private Set<String> tailIds() {
-      Set<String> out = new HashSet<>();
-      tail.forEach(o -> out.add(o.id()));
-      return out;
-    }
-
     /**
-     * The tail as a plan of the sub-problem: its requests in order at their previous starts and exposures
-     * (the incumbent times it exactly and leaves out what no longer fits).
+     * The tail as a plan of the sub-problem: its requests in order at their previous starts and exposures,
+     * section by section with each marker at its pin (the incumbent times it exactly and leaves out what no
+     * longer fits).
      */
     private Plan tailPlan() {
       List<long[]> rows = new ArrayList<>();
-      for (Observation o : tail) {
-        int k = fullToSub[index.get(o.id())];
-        if (k < 0 || !sub.task(k).schedulable()) {
-          continue;
+      Sections sec = sub.sections();
+      List<List<Observation>> bySection = tailBySection(sub);
+      for (int i = 0; i < bySection.size(); i++) {
+        long offset = sec == null ? 0 : sec.offsetS(i);
+        if (i > 0) {
+          int marker = sec.markerOf(i);
+          rows.add(new long[] {marker, sub.task(marker).earliestStartS(), 0});
         }
-        Task t = sub.task(k);
-        long s = Math.max(0, PlanningProblem.ceilSeconds(sub.horizonStart(), o.start()));
-        long d = Math.round(o.durationS());
-        try {
-          t.option(d);
-        } catch (IllegalStateException e) {
-          d = t.durationS(); // an exposure the scenario no longer offers: the shortest one
+        for (Observation o : bySection.get(i)) {
+          int k = subTask(sub, o);
+          if (k < 0 || !sub.task(k).schedulable()) {
+            continue;
+          }
+          Task t = sub.task(k);
+          long s = Math.max(0, PlanningProblem.ceilSeconds(sub.horizonStart(), o.start())) + offset;
+          long d = Math.round(o.durationS());
+          try {
+            t.option(d);
+          } catch (IllegalStateException e) {
+            d = t.durationS(); // an exposure the scenario no longer offers: the shortest one
+          }
+          rows.add(new long[] {k, s, d});
         }
-        rows.add(new long[] {k, s, d});
       }
       int[] order = rows.stream().mapToInt(r -> (int) r[0]).toArray();
       long[] starts = rows.stream().mapToLong(r -> r[1]).toArray();
@@ -408,13 +596,20 @@ public final class Replanner {
       return new Plan(order, starts, durs);
     }
 
-    /** "A->B" for each consecutive pair, the frozen observation (or START) before the first included. */
+    /**
+     * "R|A->B" for each consecutive pair of one resource R, the resource's last frozen observation (or START)
+     * before its first included.
+     */
     private Set<String> successorArcs(List<Observation> seq) {
       Set<String> out = new HashSet<>();
-      String prev = frozen.isEmpty() ? "\u0000START" : frozen.get(frozen.size() - 1).id();
+      Map<String, String> prev = new HashMap<>();
+      for (Observation o : frozen) {
+        prev.put(String.valueOf(o.resource()), o.id());
+      }
       for (Observation o : seq) {
-        out.add(prev + "->" + o.id());
-        prev = o.id();
+        String r = String.valueOf(o.resource());
+        out.add(r + "|" + prev.getOrDefault(r, "\u0000START") + "->" + o.id());
+        prev.put(r, o.id());
       }
       return out;
     }
@@ -423,7 +618,8 @@ public final class Replanner {
     private Timeline mergedFrom(SequencerResult r, double frozenPriority) {
       List<Observation> planned = new ArrayList<>();
       for (SequencerResult.Planned p : r.observations()) {
-        planned.add(new Observation(p.id(), p.start(), p.end(), p.transitionS(), p.value(), Observation.PLANNED));
+        planned.add(new Observation(p.id(), p.start(), p.end(), p.transitionS(), p.value(), Observation.PLANNED,
+            null, null, null, p.resource()));
       }
       Set<String> in = new HashSet<>();
       planned.forEach(o -> in.add(o.id()));
@@ -443,9 +639,22 @@ public final class Replanner {
           unscheduled(Set.of(), null, List.of()));
     }
 
+    /** The tasks of request k of {@code p} (its options with several resources), {@code q} its index there. */
+    private static List<Task> tasksOf(PlanningProblem p, int q) {
+      if (p.sections() == null) {
+        return List.of(p.task(q));
+      }
+      List<Task> out = new ArrayList<>();
+      for (int k : p.sections().options(q)) {
+        out.add(p.task(k));
+      }
+      return out;
+    }
+
     /**
      * Every request neither frozen nor in {@code planned}, with its reason: the sequencer's when it gives one
-     * ({@code fromSequencer}), else {@code notPlannedReason}, else dropped as failed / no window left.
+     * ({@code fromSequencer}), else {@code notPlannedReason}, else dropped as failed / no window left / only
+     * unavailable resources left.
      */
     private List<Unscheduled> unscheduled(Set<String> planned, String notPlannedReason, List<Unscheduled> fromSequencer) {
       Map<String, String> given = new HashMap<>();
@@ -453,25 +662,41 @@ public final class Replanner {
       Set<String> frozenIds = new HashSet<>();
       frozen.forEach(o -> frozenIds.add(o.id()));
       List<Unscheduled> out = new ArrayList<>();
-      for (int k = 0; k < full.size(); k++) {
-        Task t = full.task(k);
-        if (frozenIds.contains(t.id()) || planned.contains(t.id())) {
+      for (int k = 0; k < full.requests().size(); k++) {
+        String id = full.requests().get(k).id();
+        if (frozenIds.contains(id) || planned.contains(id)) {
           continue;
         }
-        int q = fullToSub[k];
+        List<Task> mine = tasksOf(full, k);
+        boolean everSchedulable = mine.stream().anyMatch(Task::schedulable);
+        int q = fullToSub == null ? -1 : fullToSub[k];
         String reason;
-        if (q < 0) {
+        if (fullToSub != null && q < 0) {
           reason = FAILED_DROPPED;
-        } else if (!sub.task(q).schedulable()) {
-          reason = t.schedulable() ? NO_TIME_LEFT : t.emptyReason();
+        } else if (sub == null || tasksOf(sub, q).stream().noneMatch(Task::schedulable)) {
+          reason = !everSchedulable ? mine.get(0).emptyReason()
+              : onlyUnavailable(k) ? RESOURCES_UNAVAILABLE : NO_TIME_LEFT;
         } else if (notPlannedReason != null) {
           reason = notPlannedReason;
         } else {
-          reason = given.getOrDefault(t.id(), Reasons.LOST_TO_CONFLICTS);
+          reason = given.getOrDefault(id, Reasons.LOST_TO_CONFLICTS);
         }
-        out.add(new Unscheduled(t.id(), reason));
+        out.add(new Unscheduled(id, reason));
       }
       return out;
+    }
+
+    /** True when every resource on which full request k can be scheduled at all is unavailable. */
+    private boolean onlyUnavailable(int k) {
+      if (fullSec == null || options.unavailable().isEmpty()) {
+        return false;
+      }
+      for (int o : fullSec.options(k)) {
+        if (full.task(o).schedulable() && !unavailable(fullSec.sectionOf(o))) {
+          return false;
+        }
+      }
+      return true;
     }
   }
 }
