@@ -99,9 +99,19 @@ public final class RequiredConflicts {
     List<Conflict> alone = new ArrayList<>();
     boolean aloneProven = true;
     List<Integer> set = new ArrayList<>();
+    dev.sequencer.sequence.problem.Sections sec = problem.sections();
+    for (int u = 0; sec != null && u < sec.unitCount(); u++) {
+      if (sec.unitRequired(u) && java.util.Arrays.stream(sec.options(u)).noneMatch(k -> problem.task(k).schedulable())) {
+        List<String> where = new ArrayList<>();
+        for (int k : sec.options(u)) {
+          where.add("on " + sec.resourceId(sec.sectionOf(k)) + ": " + problem.task(k).emptyReason());
+        }
+        alone.add(new Conflict(List.of(problem.requests().get(u).id()), String.join("; ", where)));
+      }
+    }
     for (int k = 0; k < problem.size(); k++) {
       Task t = problem.task(k);
-      if (!t.required()) {
+      if (!t.required() || problem.isMarker(k)) {
         continue;
       }
       Alone a = alone(k);

@@ -196,8 +196,14 @@ public final class Sequencer {
       timer = new ExactTimer(problem);
       incumbent = new Incumbent(problem, timer, options.listener(), budget);
       incumbent.offer(Plan.EMPTY, Source.EMPTY);
-      List<String> unschedulable = problem.tasks().stream().filter(t -> t.required() && !t.schedulable())
-          .map(Task::id).toList();
+      List<String> unschedulable = new ArrayList<>(problem.tasks().stream()
+          .filter(t -> t.required() && !t.schedulable()).map(Task::id).toList());
+      Sections sec = problem.sections();
+      for (int u = 0; sec != null && u < sec.unitCount(); u++) {
+        if (sec.unitRequired(u) && java.util.Arrays.stream(sec.options(u)).noneMatch(k -> problem.task(k).schedulable())) {
+          unschedulable.add(problem.requests().get(u).id()); // a required request no resource can observe
+        }
+      }
       if (!unschedulable.isEmpty()) {
         provenInfeasible = true;
         return finish();

@@ -93,6 +93,19 @@ class ResourcesPlannerTest {
   }
 
   @Test
+  void aRequiredFieldNoAllowedSiteCanSeeIsProvenInfeasibleAndNamed() {
+    Scenario s = network();
+    List<Request> r = new ArrayList<>(s.requests());
+    // Dec +80 culminates at 13.7° from the southern site (common practice: 90° − |latitude − declination|),
+    // below its 30° limit.
+    r.add(Request.of("POLAR", new RaDec(40, 80), 600, 2).withRequired(true).withResources(List.of("south")));
+    PlanOutcome o = Planner.plan(s.withRequests(r), CTX, SequencerOptions.defaults().withTimeLimitS(5));
+    assertEquals(dev.sequencer.model.PlanStatus.INFEASIBLE, o.result().status(), o.result().message());
+    assertTrue(o.result().message().contains("POLAR") && o.result().message().contains("on south:"),
+        o.result().message());
+  }
+
+  @Test
   void visitsOnSeveralResourcesAreRefusedWithTheirPath() {
     Scenario s = network();
     List<Request> r = new ArrayList<>(s.requests());

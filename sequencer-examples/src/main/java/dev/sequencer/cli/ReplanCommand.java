@@ -38,6 +38,8 @@ import picocli.CommandLine.Model.CommandSpec;
         + "scenario are considered. Among plans of equal priority the one closest to the previous plan wins.",
         "An observation of the previous timeline that ended by --now counts as done unless listed in --failed; "
             + "one that started before --now is running.",
+        "With several resources each one departs from its own running (or last done) observation; "
+            + "--unavailable takes resources out of service from --now on.",
         "Exit 0 with a plan; 1 when there is none; 2 on invalid input; 3 on an internal error."},
     footer = {"", Caution.TEXT})
 final class ReplanCommand implements Callable<Integer> {
@@ -56,6 +58,11 @@ final class ReplanCommand implements Callable<Integer> {
 
   @Option(names = "--failed", split = ",", paramLabel = "ID", description = "Observations that failed or were aborted.")
   List<String> failed = List.of();
+
+  @Option(names = "--unavailable", split = ",", paramLabel = "RESOURCE", description = "Resources out of service "
+      + "from --now to the end of the horizon: nothing new is planned on them, and an observation running on one "
+      + "counts as failed unless listed in --done.")
+  List<String> unavailable = List.of();
 
   @Option(names = "--drop-failed", description = "Do not retry failed requests (required ones are always retried).")
   boolean dropFailed;
@@ -80,7 +87,7 @@ final class ReplanCommand implements Callable<Integer> {
     ScenarioReader.Result r = Pipeline.read(scenario, out);
     Timeline prev = TimelineFile.read(previous);
     Instant at = instant();
-    ReplanOptions options = ReplanOptions.defaults().withDropFailed(dropFailed);
+    ReplanOptions options = ReplanOptions.defaults().withDropFailed(dropFailed).withUnavailable(ids(unavailable));
     if (stability != null) {
       options = options.withStabilityWeight(weight());
     }
@@ -141,10 +148,12 @@ final class ReplanCommand implements Callable<Integer> {
 
   private static void print(PrintWriter out, ReplanResult r, List<RequestVisibility> visibility) {
     Timeline t = r.timeline();
-    out.printf(Locale.ROOT, "%-12s %-8s %-24s %-24s %8s %8s%n", "id", "state", "start", "end", "dur [s]", "slew [s]");
+    boolean resources = t.observations().stream().anyMatch(o -> o.resource() != null);
+    out.printf(Locale.ROOT, "%-12s %-8s %-24s %-24s %8s %8s%s%n", "id", "state", "start", "end", "dur [s]", "slew [s]",
+        resources ? "  resource" : "");
     for (Observation o : t.observations()) {
-      out.printf(Locale.ROOT, "%-12s %-8s %-24s %-24s %8.0f %8.1f%n", o.id(), o.state(), o.start(), o.end(),
-          o.durationS(), o.slewSeconds());
+      out.printf(Locale.ROOT, "%-12s %-8s %-24s %-24s %8.0f %8.1f%s%n", o.id(), o.state(), o.start(), o.end(),
+          o.durationS(), o.slewSeconds(), resources ? "  " + o.resource() : "");
     }
     for (Unscheduled u : t.unscheduled()) {
       out.printf(Locale.ROOT, "%-12s not scheduled: %s%n", u.id(), Explained.of(u, visibility));
@@ -154,5 +163,8 @@ final class ReplanCommand implements Callable<Integer> {
         t.priority(), r.newPriority(), r.tailPriority(), r.source() == ReplanResult.Source.PREVIOUS_TAIL
             ? "the previous plan" : "the sequencer", r.keptRequests(), r.tailRequests(), r.keptArcs(),
         r.departure());
+    if (!r.notes().isEmpty()) {
+      out.println("notes: " + r.notes());
+    }
   }
 }

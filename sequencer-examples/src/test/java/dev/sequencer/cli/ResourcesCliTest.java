@@ -6,13 +6,17 @@ import static org.junit.jupiter.api.Assertions.assertTrue;
 
 import com.fasterxml.jackson.databind.JsonNode;
 import com.fasterxml.jackson.databind.ObjectMapper;
+import dev.sequencer.io.TimelineFile;
+import dev.sequencer.model.Observation;
+import dev.sequencer.model.Timeline;
 import java.nio.file.Files;
 import java.nio.file.Path;
+import java.time.Instant;
 import java.util.List;
 import org.junit.jupiter.api.Test;
 import org.junit.jupiter.api.io.TempDir;
 
-/** The command line on the bundled two-site network (format addition A6): plan, CSV, check, windows and inspect. */
+/** The command line on the bundled two-site network (format addition A6): plan, CSV, check, windows, inspect and replan. */
 class ResourcesCliTest {
   private static final Path NETWORK = Path.of("src/main/resources/scenarios/network-two-sites-night.json");
 
@@ -57,5 +61,50 @@ class ResourcesCliTest {
     assertEquals(0, i.code(), i.err());
     assertTrue(i.out().contains("resource    desert-1m: observer ground site lat 24.6200"), i.out());
     assertTrue(i.out().contains("observable  on plateau-60cm: "), i.out());
+  }
+
+  @Test
+  void replanAfterOneSiteIsLostKeepsTheOtherGoingOrSaysWhichRequiredFieldIsStranded(@TempDir Path dir)
+      throws Exception {
+    Path timeline = dir.resolve("t.json");
+    assertEquals(0, run("plan", NETWORK.toString(), "--solver", "greedy", "--time-limit", "15", "-o",
+        timeline.toString()).code());
+    Timeline prev = TimelineFile.read(timeline);
+    List<Observation> south = prev.observations().stream().filter(o -> o.resource().equals("plateau-60cm")).toList();
+    Observation running = south.get(south.size() / 2);
+    Instant now = running.start().plusSeconds(60);
+    Path out = dir.resolve("r.json");
+    CliTest.Run r = run("replan", NETWORK.toString(), "--previous", timeline.toString(), "--now", now.toString(),
+        "--unavailable", "plateau-60cm", "--time-limit", "8", "--workers", "2", "-o", out.toString());
+    assertEquals(0, r.code(), r.out() + r.err());
+    assertTrue(r.out().contains("  resource"), "the table has a resource column: " + r.out());
+    assertTrue(r.out().contains(running.id() + " was running on plateau-60cm"), r.out());
+    Timeline t = TimelineFile.read(out);
+    long planned = 0;
+    for (Observation o : t.observations()) {
+      if (Observation.PLANNED.equals(o.state())) {
+        assertEquals("desert-1m", o.resource(), "nothing new on the lost site: " + o);
+        assertTrue(!o.start().isBefore(now), o.id());
+        planned++;
+      }
+    }
+    assertTrue(planned > 0, "the other site keeps observing: " + r.out());
+    CliTest.Run check = run("check", NETWORK.toString(), out.toString());
+    assertEquals(0, check.code(), check.out() + check.err());
+    // The required field F013 never rises above the second site's limit (its windows there are empty): losing
+    // the first site before F013 is observed leaves no plan, and the answer says why.
+    Observation f013 = prev.observations().stream().filter(o -> o.id().equals("F013")).findFirst().orElseThrow();
+    assertEquals("desert-1m", f013.resource(), "precondition");
+    Instant before = f013.start().minusSeconds(600);
+    CliTest.Run stranded = run("replan", NETWORK.toString(), "--previous", timeline.toString(), "--now",
+        before.toString(), "--unavailable", "desert-1m", "--time-limit", "4", "--workers", "2");
+    assertEquals(1, stranded.code(), stranded.out() + stranded.err());
+    assertTrue(stranded.out().contains("no plan (INFEASIBLE): only unavailable resources could still observe the "
+        + "required request(s) F013"), stranded.out());
+    Runs.Run bad = Runs.run("replan", NETWORK.toString(), "--previous", timeline.toString(), "--now", now.toString(),
+        "--unavailable", "west-2m", "--time-limit", "2");
+    assertEquals(2, bad.code(), bad::all);
+    assertTrue(bad.err().contains("--unavailable") && bad.err().contains("\"west-2m\""), bad::all);
+    Runs.assertNoStackTrace(bad);
   }
 }

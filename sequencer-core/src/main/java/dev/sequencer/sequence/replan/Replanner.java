@@ -191,6 +191,11 @@ public final class Replanner {
       String sequencerNotes = r.stats().notesText();
       if (!r.hasPlan()) {
         String message = r.message().isEmpty() ? "no plan" : r.message();
+        List<String> stranded = requiredOnlyOnUnavailable();
+        if (!stranded.isEmpty()) {
+          message = "only unavailable resources could still observe the required request(s) "
+              + String.join(", ", stranded) + "; " + message;
+        }
         Timeline none = new Timeline(r.status(), frozenPriority, slewOf(frozen), null, frozen,
             unscheduled(Set.of(), "not planned: " + message, List.of()));
         return new ReplanResult(none, ReplanResult.Source.NONE, 0, tailPriority, Double.NaN, tail.size(), 0, 0,
@@ -682,6 +687,21 @@ public final class Replanner {
           reason = given.getOrDefault(id, Reasons.LOST_TO_CONFLICTS);
         }
         out.add(new Unscheduled(id, reason));
+      }
+      return out;
+    }
+
+    /** Required requests still to observe that only unavailable resources could observe. */
+    private List<String> requiredOnlyOnUnavailable() {
+      Set<String> frozenIds = new HashSet<>();
+      frozen.forEach(o -> frozenIds.add(o.id()));
+      List<String> out = new ArrayList<>();
+      for (int k = 0; k < full.requests().size(); k++) {
+        Request q = full.requests().get(k);
+        if (q.required() && !frozenIds.contains(q.id()) && tasksOf(full, k).stream().anyMatch(Task::schedulable)
+            && onlyUnavailable(k)) {
+          out.add(q.id());
+        }
       }
       return out;
     }
