@@ -756,6 +756,7 @@ public final class Sequencer {
       java.util.Map<Integer, Integer> missing = new java.util.TreeMap<>(); // file order
       java.util.Map<Integer, String> why = new java.util.HashMap<>();
       Sections sections = problem.sections();
+      java.util.Map<Integer, java.util.Map<String, String>> perResource = new java.util.HashMap<>();
       for (int k = 0; k < problem.size(); k++) {
         Task t = problem.task(k);
         if (in[k] || problem.isMarker(k) || sections != null && (heldElsewhere(sections, k, in)
@@ -773,13 +774,35 @@ public final class Sequencer {
           reason = Reasons.NOT_RECHECKED;
         }
         int r = problem.structure().requestOf(k);
+        if (sections != null) {
+          perResource.computeIfAbsent(r, x -> new java.util.LinkedHashMap<>())
+              .put(sections.resourceId(sections.sectionOf(k)), reason);
+        }
         if (missing.merge(r, 1, Integer::sum) == 1) {
           why.put(r, Reasons.withRules(problem, k, timed.plan(), reason));
         }
       }
+      perResource.forEach((r, each) -> why.put(r, onResources(each)));
       missing.forEach((r, n) -> out.add(new Unscheduled(problem.requests().get(r).id(), why.get(r),
           problem.requests().get(r).hasVisits() ? n : null)));
       return out;
+    }
+
+    /**
+     * One reason from each resource's (several resources): the words once when every resource gives the same
+     * or only one gives any and it is not a loss to conflicts; else each resource's after "on R", under one
+     * "lost to conflicts" when every one is such a loss ("lost to conflicts: on R1 its windows are taken by
+     * A, B; on R2 no room for the slews from C").
+     */
+    private static String onResources(java.util.Map<String, String> reasons) {
+      String prefix = Reasons.LOST_TO_CONFLICTS + ": ";
+      boolean allLost = reasons.values().stream().allMatch(x -> x.startsWith(prefix));
+      if (new java.util.HashSet<>(reasons.values()).size() == 1 && (reasons.size() > 1 || !allLost)) {
+        return reasons.values().iterator().next();
+      }
+      List<String> parts = new ArrayList<>();
+      reasons.forEach((res, why) -> parts.add("on " + res + " " + (allLost ? why.substring(prefix.length()) : why)));
+      return (allLost ? prefix : "") + String.join("; ", parts);
     }
 
     /** True when another option of k's request (several resources) is in the plan. */

@@ -272,7 +272,14 @@ public final class ExactRepair {
           overlaps = true;
         }
       }
-      String id = problem.task(plan.order()[q]).id();
+      int other = plan.order()[q];
+      if (problem.isMarker(other)) {
+        continue; // a resource's section boundary, not an observation
+      }
+      // With several resources, the request's id (its observations there are on k's resource: the sections
+      // do not overlap in planner time).
+      String id = problem.sections() != null
+          ? problem.requests().get(problem.structure().requestOf(other)).id() : problem.task(other).id();
       if (overlaps) {
         taken.add(id);
       } else if (busyTo <= t.earliestStartS()) {
