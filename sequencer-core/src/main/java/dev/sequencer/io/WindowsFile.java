@@ -6,6 +6,7 @@ import com.fasterxml.jackson.databind.node.ObjectNode;
 import dev.sequencer.model.RequestWindows;
 import dev.sequencer.model.TimeWindow;
 import java.nio.file.Path;
+import java.time.Instant;
 import java.util.ArrayList;
 import java.util.Arrays;
 import java.util.HashMap;
@@ -26,7 +27,30 @@ import java.util.Objects;
  */
 public final class WindowsFile {
   static final List<String> TOP = List.of("format", "windows");
-  static final List<String> ENTRY = List.of("id", "resource", "intervals");
+  static final List<String> ENTRY = List.of("id", "resource", "intervals", "passes");
+  static final List<String> PASS = List.of("rise", "culmination", "culminationElevationDeg", "set");
+
+  /**
+   * One pass of an orbiting target over a ground site, written beside its windows so that a station team can
+   * read the contact plan: rise and set at the geometric horizon (0°), culmination at the highest geometric
+   * elevation. Informational: reading a windows file checks and drops it.
+   */
+  public record Pass(Instant rise, Instant culmination, double culminationElevationDeg, Instant set) {
+    public Pass {
+      Objects.requireNonNull(rise, "rise");
+      Objects.requireNonNull(culmination, "culmination");
+      Objects.requireNonNull(set, "set");
+    }
+  }
+
+  /** The passes of a request on a resource (null for one observer); an empty list writes no {@code passes}. */
+  @FunctionalInterface
+  public interface PassSource {
+    List<Pass> passes(String resource, String id);
+
+    /** No passes anywhere. */
+    PassSource NONE = (resource, id) -> List.of();
+  }
 
   /** The windows of one resource (A6): an entry per request it may observe. */
   public record ResourceWindows(String resource, List<RequestWindows> windows) {
@@ -43,29 +67,50 @@ public final class WindowsFile {
 
   /** The file's contents as pretty, byte-stable JSON text. */
   public static String toJson(List<RequestWindows> windows) {
+    return toJson(windows, PassSource.NONE);
+  }
+
+  /** As {@link #toJson(List)}, each entry with its request's passes ({@code passes.passes(null, id)}) when any. */
+  public static String toJson(List<RequestWindows> windows, PassSource passes) {
     ObjectNode o = JsonOut.NODES.objectNode();
     o.put("format", 1);
     ArrayNode a = o.putArray("windows");
-    windows.forEach(w -> entry(a, w, null));
+    windows.forEach(w -> entry(a, w, null, passes));
     return JsonOut.pretty(o);
   }
 
   /** The file of a scenario with resources (A6) as pretty, byte-stable JSON text: resource by resource. */
   public static String toJsonByResource(List<ResourceWindows> windows) {
+    return toJsonByResource(windows, PassSource.NONE);
+  }
+
+  /** As {@link #toJsonByResource(List)}, each entry with its passes over its resource when any. */
+  public static String toJsonByResource(List<ResourceWindows> windows, PassSource passes) {
     ObjectNode o = JsonOut.NODES.objectNode();
     o.put("format", 1);
     ArrayNode a = o.putArray("windows");
-    windows.forEach(rw -> rw.windows().forEach(w -> entry(a, w, rw.resource())));
+    windows.forEach(rw -> rw.windows().forEach(w -> entry(a, w, rw.resource(), passes)));
     return JsonOut.pretty(o);
   }
 
-  private static void entry(ArrayNode a, RequestWindows w, String resource) {
+  private static void entry(ArrayNode a, RequestWindows w, String resource, PassSource passes) {
     ObjectNode e = a.addObject();
     e.put("id", w.id());
     if (resource != null) {
       e.put("resource", resource);
     }
     e.set("intervals", ScenarioWriter.windows(w.intervals()));
+    List<Pass> mine = passes.passes(resource, w.id());
+    if (!mine.isEmpty()) {
+      ArrayNode ps = e.putArray("passes");
+      for (Pass p : mine) {
+        ObjectNode n = ps.addObject();
+        n.put("rise", p.rise().toString());
+        n.put("culmination", p.culmination().toString());
+        n.put("culminationElevationDeg", Math.round(p.culminationElevationDeg() * 1000) / 1000.0);
+        n.put("set", p.set().toString());
+      }
+    }
   }
 
   /** Writes the file atomically. */
@@ -73,9 +118,19 @@ public final class WindowsFile {
     AtomicFiles.writeUtf8(file, toJson(windows));
   }
 
+  /** Writes the file atomically, with the passes. */
+  public static void write(List<RequestWindows> windows, PassSource passes, Path file) {
+    AtomicFiles.writeUtf8(file, toJson(windows, passes));
+  }
+
   /** Writes the file of a scenario with resources (A6) atomically. */
   public static void writeByResource(List<ResourceWindows> windows, Path file) {
     AtomicFiles.writeUtf8(file, toJsonByResource(windows));
+  }
+
+  /** Writes the file of a scenario with resources (A6) atomically, with the passes. */
+  public static void writeByResource(List<ResourceWindows> windows, PassSource passes, Path file) {
+    AtomicFiles.writeUtf8(file, toJsonByResource(windows, passes));
   }
 
   public static List<RequestWindows> read(Path file) {
@@ -140,6 +195,7 @@ public final class WindowsFile {
             id);
       }
       List<TimeWindow> intervals = intervals(e.array("intervals", true), e.path("intervals"), p);
+      passes(e.array("passes", false), e.path("passes"), p);
       if (id != null && intervals != null && (resource != null) == byResource) {
         out.add(new Entry(id, resource, intervals));
       }
@@ -159,6 +215,36 @@ public final class WindowsFile {
       return null;
     }
     return Values.id(n, e.path("resource"), p);
+  }
+
+  /** Checks the passes of an entry (rise ≤ culmination ≤ set, elevation in [−90°, 90°], in time order). */
+  private static void passes(ArrayNode a, String path, Problems p) {
+    Instant previousSet = null;
+    for (int i = 0; a != null && i < a.size(); i++) {
+      String ip = path + "[" + i + "]";
+      Fields f = Fields.of(a.get(i), ip, p, PASS);
+      if (f == null) {
+        continue;
+      }
+      Instant rise = instant(f, "rise", p);
+      Instant culmination = instant(f, "culmination", p);
+      Instant set = instant(f, "set", p);
+      f.number("culminationElevationDeg", true, Range.closed(-90, 90));
+      if (rise != null && culmination != null && set != null) {
+        if (culmination.isBefore(rise) || set.isBefore(culmination)) {
+          p.add(ip, "needs rise <= culmination <= set", rise + ", " + culmination + ", " + set);
+        }
+        if (previousSet != null && !rise.isAfter(previousSet)) {
+          p.add(f.path("rise"), "must be after the previous pass's set " + previousSet, rise.toString());
+        }
+        previousSet = set;
+      }
+    }
+  }
+
+  private static Instant instant(Fields f, String name, Problems p) {
+    JsonNode n = f.get(name, true);
+    return n == null ? null : Values.instant(n, f.path(name), p);
   }
 
   /** Ordered, disjoint intervals; null after reporting. */

@@ -217,6 +217,31 @@ class FilesTest {
   }
 
   @Test
+  void windowsFileCarriesPassesThatAreCheckedWhenRead() {
+    List<RequestWindows> w = List.of(new RequestWindows("SAT1", List.of(new TimeWindow(T0.plusSeconds(120),
+        T0.plusSeconds(480)))), new RequestWindows("R2", List.of()));
+    WindowsFile.Pass pass = new WindowsFile.Pass(T0, T0.plusSeconds(300), 41.25, T0.plusSeconds(600));
+    String json = WindowsFile.toJson(w, (res, id) -> id.equals("SAT1") ? List.of(pass) : List.of());
+    assertTrue(json.replaceAll("\\s", "").contains("\"passes\":[{\"rise\":\"2031-05-04T18:00:00Z\","
+        + "\"culmination\":\"2031-05-04T18:05:00Z\",\"culminationElevationDeg\":41.25,\"set\":\"2031-05-04T18:10:00Z\"}]"),
+        json);
+    assertEquals(1, json.split("\"passes\"", -1).length - 1, "no passes written for R2: " + json);
+    assertEquals(w, WindowsFile.parse(json, "w"), "the passes are informational: the windows read back");
+    String bad = """
+        {"format": 1, "windows": [
+          {"id": "SAT1", "intervals": [], "passes": [
+            {"rise": "2031-05-04T18:10:00Z", "culmination": "2031-05-04T18:05:00Z", "culminationElevationDeg": 41,
+             "set": "2031-05-04T18:20:00Z"},
+            {"rise": "2031-05-04T18:15:00Z", "culmination": "2031-05-04T18:16:00Z", "culminationElevationDeg": 95,
+             "set": "2031-05-04T18:17:00Z", "azimuth": 3}]}]}""";
+    List<Problem> ps = assertThrows(ScenarioException.class, () -> WindowsFile.parse(bad, "w")).problems();
+    assertTrue(at(ps, "windows[0] (id \"SAT1\").passes[0]").message().contains("rise <= culmination <= set"), ps.toString());
+    at(ps, "windows[0] (id \"SAT1\").passes[1].culminationElevationDeg");
+    at(ps, "windows[0] (id \"SAT1\").passes[1].rise");
+    at(ps, "windows[0] (id \"SAT1\").passes[1].azimuth");
+  }
+
+  @Test
   void windowsFileByResourceIsExactAndRoundTrips() {
     // Spec A6: one entry per request and allowed resource, { "id", "resource", "intervals" }.
     List<WindowsFile.ResourceWindows> w = List.of(

@@ -2,15 +2,25 @@ package dev.sequencer.cli;
 
 import dev.sequencer.astro.AstroContext;
 import dev.sequencer.io.ScenarioReader;
+import dev.sequencer.io.WindowsFile;
+import dev.sequencer.model.Request;
+import dev.sequencer.model.Resource;
+import dev.sequencer.model.Scenario;
 import dev.sequencer.planner.InputRules;
 import java.io.PrintWriter;
 import java.nio.file.Path;
+import java.time.Instant;
+import java.time.temporal.ChronoUnit;
+import java.util.ArrayList;
+import java.util.List;
+import java.util.Locale;
+import java.util.Map;
 import java.util.concurrent.Callable;
 import picocli.CommandLine.Command;
 import picocli.CommandLine.Mixin;
+import picocli.CommandLine.Model.CommandSpec;
 import picocli.CommandLine.Parameters;
 import picocli.CommandLine.Spec;
-import picocli.CommandLine.Model.CommandSpec;
 
 /** {@code sequencer inspect}: checks a scenario and prints a short summary. */
 @Command(
@@ -47,6 +57,7 @@ final class InspectCommand implements Callable<Integer> {
     } else {
       out.println(ScenarioSummary.requestedAgainstObservable(r.scenario(), p.windows()));
     }
+    passLines(r.scenario(), astro).forEach(out::println);
     if (astro.beyondLeapSecondValidity(r.scenario().horizon().end())) {
       out.println("warning     the horizon ends after " + astro.leapSecondsValidUntil()
           + ", the last date the leap-second table is known to be complete for");
@@ -55,5 +66,32 @@ final class InspectCommand implements Callable<Integer> {
     ScenarioSummary.unusedConstraints(r.scenario()).forEach(w -> out.println("note        " + w));
     out.println("valid");
     return 0;
+  }
+
+  /**
+   * One line per pass of each orbiting target over each ground site (rise and set at the geometric horizon,
+   * culmination at the highest elevation), per resource with several: the contact plan.
+   */
+  static List<String> passLines(Scenario s, AstroContext astro) {
+    List<String> out = new ArrayList<>();
+    List<Resource> resources = s.hasResources() ? s.resources() : java.util.Collections.singletonList(null);
+    for (Resource res : resources) {
+      Scenario view = res == null ? s
+          : s.forResource(res).withRequests(s.requests().stream().filter(q -> q.allows(res.id())).toList());
+      Map<String, List<WindowsFile.Pass>> passes = WindowsCommand.passes(view, astro);
+      for (Request q : view.requests()) {
+        int k = 0;
+        for (WindowsFile.Pass p : passes.getOrDefault(q.id(), List.of())) {
+          out.add(String.format(Locale.ROOT, "pass        %s%s #%d: rise %s, culmination %s at %.1f deg, set %s", q.id(),
+              res == null ? "" : " on " + res.id(), ++k, seconds(p.rise()), seconds(p.culmination()),
+              p.culminationElevationDeg(), seconds(p.set())));
+        }
+      }
+    }
+    return out;
+  }
+
+  private static String seconds(Instant t) {
+    return t.truncatedTo(ChronoUnit.SECONDS).toString();
   }
 }

@@ -5,6 +5,7 @@ import dev.sequencer.io.WindowsFile;
 import dev.sequencer.model.Scenario;
 import dev.sequencer.model.TimeWindow;
 import dev.sequencer.visibility.RequestVisibility;
+import dev.sequencer.visibility.SkyValues;
 import dev.sequencer.visibility.VisibilityCalculator;
 import java.io.PrintWriter;
 import java.nio.file.Path;
@@ -55,6 +56,16 @@ final class WindowsCommand implements Callable<Integer> {
     } else {
       byResource.put(null, new VisibilityCalculator(common.astro()).compute(s));
     }
+    // Passes of orbiting targets over ground sites: rise, culmination and set (the contact plan).
+    java.util.Map<String, java.util.Map<String, List<WindowsFile.Pass>>> passes = new java.util.HashMap<>();
+    if (s.hasResources()) {
+      for (dev.sequencer.model.Resource res : s.resources()) {
+        passes.put(res.id(), passes(s.forResource(res).withRequests(
+            s.requests().stream().filter(q -> q.allows(res.id())).toList()), common.astro()));
+      }
+    } else {
+      passes.put(null, passes(s, common.astro()));
+    }
     double elapsed = (System.nanoTime() - t0) * 1e-9;
     boolean several = s.hasResources();
     out.printf(Locale.ROOT, "%-16s %s%8s %12s  %s%n", "id", several ? String.format(Locale.ROOT, "%-14s ", "resource")
@@ -72,6 +83,11 @@ final class WindowsCommand implements Callable<Integer> {
         out.printf(Locale.ROOT, "%-16s %s%8d %12.1f  %s%n", v.id(), several
             ? String.format(Locale.ROOT, "%-14s ", e.getKey()) : "", v.intervals().size(), v.totalS(), first);
         lines++;
+        int k = 0;
+        for (WindowsFile.Pass p : passes.get(e.getKey()).getOrDefault(v.id(), List.of())) {
+          out.printf(Locale.ROOT, "  pass %-3d rise %s  culmination %s at %5.1f deg  set %s%n", ++k, p.rise(),
+              p.culmination(), p.culminationElevationDeg(), p.set());
+        }
       }
     }
     out.printf(Locale.ROOT, "%d %s, computed in %.2f s%n", lines, several ? "(request, resource) pairs" : "requests",
@@ -81,12 +97,33 @@ final class WindowsCommand implements Callable<Integer> {
         List<WindowsFile.ResourceWindows> w = new java.util.ArrayList<>();
         byResource.forEach((id, vis) -> w.add(new WindowsFile.ResourceWindows(id,
             vis.stream().map(RequestVisibility::toWindows).toList())));
-        WindowsFile.writeByResource(w, output);
+        WindowsFile.writeByResource(w, (res, id) -> passes.get(res).getOrDefault(id, List.of()), output);
       } else {
-        WindowsFile.write(byResource.get(null).stream().map(RequestVisibility::toWindows).toList(), output);
+        WindowsFile.write(byResource.get(null).stream().map(RequestVisibility::toWindows).toList(),
+            (res, id) -> passes.get(null).getOrDefault(id, List.of()), output);
       }
       out.println("wrote " + output);
     }
     return 0;
+  }
+
+  /**
+   * The passes of {@code s}'s orbiting targets over its ground site, by request id (none elsewhere): rise and
+   * set at the geometric horizon, as in the report's pass table.
+   */
+  static java.util.Map<String, List<WindowsFile.Pass>> passes(Scenario s, dev.sequencer.astro.AstroContext ctx) {
+    java.util.Map<String, List<WindowsFile.Pass>> out = new java.util.HashMap<>();
+    boolean orbiting = s.requests().stream().anyMatch(q -> q.target() instanceof dev.sequencer.model.OrbitingTarget);
+    if (!(s.observer() instanceof dev.sequencer.model.GroundSite) || !orbiting) {
+      return out;
+    }
+    SkyValues sky = SkyValues.of(s, ctx);
+    for (dev.sequencer.model.Request q : s.requests()) {
+      if (q.target() instanceof dev.sequencer.model.OrbitingTarget) {
+        out.put(q.id(), sky.passes(q, 0.0).stream().map(p -> new WindowsFile.Pass(p.rise(), p.culmination(),
+            p.culminationElevationDeg(), p.set())).toList());
+      }
+    }
+    return out;
   }
 }
