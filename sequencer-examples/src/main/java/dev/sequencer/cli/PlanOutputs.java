@@ -40,7 +40,7 @@ final class PlanOutputs {
     PlanGeometry g = new PlanGeometry(p.scenario(), p.astro());
     List<Path> written = new ArrayList<>();
     JFreeChart tl = TimelineChart.create(g, p.windows(), timeline, includeUnscheduled);
-    int h = TimelineChart.heightPx(timeline, includeUnscheduled);
+    int h = TimelineChart.heightPx(p.scenario(), timeline, includeUnscheduled, null);
     written.add(write(tl, TimelineChart.WIDTH_PX, h, Path.of(prefix + PLOT_SUFFIXES.get(0))));
     written.add(write(tl, TimelineChart.WIDTH_PX, h, Path.of(prefix + PLOT_SUFFIXES.get(1))));
     JFreeChart sky = SkyChart.create(g, timeline);

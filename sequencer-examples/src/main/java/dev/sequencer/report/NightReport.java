@@ -308,7 +308,7 @@ public final class NightReport {
     chart("timeline-chart", "The plan by request: visibility windows, observations, slews; unscheduled requests "
         + "below with their reasons; \"!\" marks a required request, p its priority.",
         TimelineChart.create(g, in.windows(), t(), true, in.reasons(), ax), TimelineChart.WIDTH_PX,
-        TimelineChart.heightPx(t(), true, ax));
+        TimelineChart.heightPx(s(), t(), true, ax));
     if (sky != null && sky.atGroundSite()) {
       chart("night-chart", "The night: the scheduled targets' elevation (thick while observed), the Sun and the "
           + "Moon, the Moon's illuminated fraction, airmass levels; local and sidereal time above.",
