@@ -7,6 +7,12 @@ import java.io.IOException;
 import java.io.UncheckedIOException;
 import java.nio.charset.StandardCharsets;
 import java.nio.file.Path;
+import java.util.HashSet;
+import java.util.LinkedHashMap;
+import java.util.List;
+import java.util.Locale;
+import java.util.Map;
+import java.util.Set;
 import org.jfree.chart.ChartUtils;
 import org.jfree.chart.JFreeChart;
 
@@ -22,6 +28,30 @@ public final class ChartFiles {
   /** Makes sure AWT runs headless; call before creating any chart. */
   public static void headless() {
     // the static initialiser above does the work; this method only forces it to run
+  }
+
+  /** Longest part of a file name made from an id, characters. */
+  private static final int NAME_PART_MAX = 60;
+
+  /**
+   * Each id as a part of a file name (a resource's sky chart, an HTML id), in the order given: letters,
+   * digits, '-' and '_' kept, every other character (a dot, a slash, a space, a non-ASCII letter) replaced by
+   * '_', cut at 60 characters; when two ids would give the same part (letter case ignored, for file systems
+   * that ignore it), the later one gets "-2", "-3", ... after it.
+   */
+  public static Map<String, String> fileNames(List<String> ids) {
+    Map<String, String> out = new LinkedHashMap<>();
+    Set<String> used = new HashSet<>();
+    for (String id : ids) {
+      String base = id.replaceAll("[^A-Za-z0-9_-]", "_");
+      base = base.isEmpty() ? "_" : base.substring(0, Math.min(base.length(), NAME_PART_MAX));
+      String name = base;
+      for (int k = 2; !used.add(name.toLowerCase(Locale.ROOT)); k++) {
+        name = base + "-" + k;
+      }
+      out.put(id, name);
+    }
+    return out;
   }
 
   /** Writes {@code chart} as a {@code widthPx} x {@code heightPx} PNG to {@code file}. */

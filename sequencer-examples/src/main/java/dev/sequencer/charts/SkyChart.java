@@ -12,23 +12,31 @@ import dev.sequencer.model.Unscheduled;
 import java.awt.BasicStroke;
 import java.awt.Color;
 import java.awt.Font;
+import java.awt.Graphics2D;
 import java.awt.geom.Ellipse2D;
 import java.awt.geom.Path2D;
+import java.awt.geom.Rectangle2D;
 import java.time.Duration;
 import java.time.Instant;
 import java.util.ArrayList;
 import java.util.List;
 import java.util.Locale;
+import java.util.Map;
 import java.util.Optional;
 import org.jfree.chart.JFreeChart;
 import org.jfree.chart.annotations.XYShapeAnnotation;
 import org.jfree.chart.annotations.XYTextAnnotation;
 import org.jfree.chart.axis.NumberAxis;
+import org.jfree.chart.axis.ValueAxis;
+import org.jfree.chart.plot.CrosshairState;
+import org.jfree.chart.plot.PlotRenderingInfo;
 import org.jfree.chart.plot.XYPlot;
+import org.jfree.chart.renderer.xy.XYItemRendererState;
 import org.jfree.chart.renderer.xy.XYLineAndShapeRenderer;
 import org.jfree.chart.title.TextTitle;
 import org.jfree.chart.ui.RectangleEdge;
 import org.jfree.chart.ui.TextAnchor;
+import org.jfree.data.xy.XYDataset;
 import org.jfree.data.xy.XYSeries;
 import org.jfree.data.xy.XYSeriesCollection;
 
@@ -38,6 +46,10 @@ import org.jfree.data.xy.XYSeriesCollection;
  * mask shaded, the elevation limit dashed, each observation's track and the slews between them, numbered in
  * order. For a spacecraft: an RA/Dec map (RA increasing to the left) with every target, the Sun and Moon
  * keep-out circles at the plan's midpoint and the slew path in order.
+ *
+ * <p>With several resources (format addition A6) each resource has its own chart ({@link #create(PlanGeometry,
+ * ResourcePlan)}): its observer, its constraints, its observations only, the resource id in the title; in the SVG
+ * each observation's marker is a group {@code <g class="observation-start" data-request="…" data-number="k">}.
  */
 public final class SkyChart {
   /** Width and height of the picture, pixels. */
@@ -55,8 +67,21 @@ public final class SkyChart {
 
   /** The sky chart of {@code timeline}: polar at a ground site, RA/Dec otherwise. */
   public static JFreeChart create(PlanGeometry geometry, Timeline timeline) {
+    return create(geometry, timeline, false);
+  }
+
+  /**
+   * The sky chart of one resource's share of a plan with several resources (A6), drawn from that resource's
+   * observer ({@code geometry} is the whole scenario's, or already the resource's).
+   */
+  public static JFreeChart create(PlanGeometry geometry, ResourcePlan plan) {
+    return plan.titled(create(geometry.forResource(plan.id()), plan.timeline(), true));
+  }
+
+  /** {@code tagged}: each observation's marker an SVG group naming the request and its number in order. */
+  private static JFreeChart create(PlanGeometry geometry, Timeline timeline, boolean tagged) {
     ChartFiles.headless();
-    JFreeChart chart = geometry.site() != null ? polar(geometry, timeline) : raDec(geometry, timeline);
+    JFreeChart chart = geometry.site() != null ? polar(geometry, timeline, tagged) : raDec(geometry, timeline, tagged);
     chart.setBackgroundPaint(Color.WHITE);
     if (chart.getLegend() != null) {
       chart.getLegend().setItemFont(TICK_FONT);
@@ -76,12 +101,13 @@ public final class SkyChart {
     return (90 - elDeg) * Math.cos(Math.toRadians(azDeg));
   }
 
-  private static JFreeChart polar(PlanGeometry g, Timeline t) {
+  private static JFreeChart polar(PlanGeometry g, Timeline t, boolean tagged) {
     Scenario s = g.scenario();
     GroundSite site = g.site();
     XYSeries tracks = new XYSeries("observation track", false);
     XYSeries slews = new XYSeries("slew (end of one to start of next)", false);
     XYSeries starts = new XYSeries("observation start", false);
+    List<Map<String, String>> startTags = new ArrayList<>();
     List<XYTextAnnotation> numbers = new ArrayList<>();
     AzEl previousEnd = null;
     int k = 0;
@@ -99,6 +125,7 @@ public final class SkyChart {
         slews.add(Double.NaN, Double.NaN);
       }
       starts.add(px(start.azimuthDeg(), start.elevationDeg()), py(start.azimuthDeg(), start.elevationDeg()));
+      startTags.add(tag(o, k));
       AzEl a = start;
       for (Instant at = o.start(); ; at = at.plusSeconds(TRACK_STEP_S)) {
         Instant when = at.isAfter(o.end()) ? o.end() : at;
@@ -122,7 +149,7 @@ public final class SkyChart {
     data.addSeries(tracks);
     data.addSeries(slews);
     data.addSeries(starts);
-    XYLineAndShapeRenderer r = new XYLineAndShapeRenderer();
+    XYLineAndShapeRenderer r = new TaggedShapes(tagged ? Map.of(2, startTags) : Map.of());
     r.setDrawSeriesLineAsPath(true);
     r.setSeriesPaint(0, PATH);
     r.setSeriesStroke(0, new BasicStroke(3f));
@@ -216,18 +243,22 @@ public final class SkyChart {
 
   // ---------------------------------------------------------------- spacecraft: RA/Dec map
 
-  private static JFreeChart raDec(PlanGeometry g, Timeline t) {
+  private static JFreeChart raDec(PlanGeometry g, Timeline t, boolean tagged) {
     Scenario s = g.scenario();
     XYSeries scheduled = new XYSeries("scheduled target", false);
     XYSeries other = new XYSeries("not scheduled", false);
     XYSeries path = new XYSeries("slew path, in order", false);
+    List<Map<String, String>> scheduledTags = new ArrayList<>();
     RaDec previous = null;
+    int k = 0;
     for (Observation o : t.observations()) {
+      k++;
       Optional<RaDec> p = s.request(o.id()).flatMap(r -> g.raDec(r, o.start()));
       if (p.isEmpty()) {
         continue;
       }
       scheduled.add(p.get().raDeg(), p.get().decDeg());
+      scheduledTags.add(tag(o, k));
       if (previous != null && Math.abs(previous.raDeg() - p.get().raDeg()) > 180) {
         path.add(Double.NaN, Double.NaN); // the straight RA/Dec line would cross the whole map: break it
       }
@@ -261,7 +292,7 @@ public final class SkyChart {
     data.addSeries(sunSeries);
     data.addSeries(moonSeries);
     data.addSeries(bodies);
-    XYLineAndShapeRenderer r = new XYLineAndShapeRenderer();
+    XYLineAndShapeRenderer r = new TaggedShapes(tagged ? Map.of(1, scheduledTags) : Map.of());
     r.setSeriesPaint(0, SLEW);
     r.setSeriesStroke(0, new BasicStroke(1.2f));
     r.setSeriesShapesVisible(0, false);
@@ -311,6 +342,31 @@ public final class SkyChart {
         mid.truncatedTo(java.time.temporal.ChronoUnit.MINUTES), t.observations().size()),
         new Font(Font.SANS_SERIF, Font.PLAIN, 12)));
     return chart;
+  }
+
+  /** The SVG group of the {@code k}-th observation's marker. */
+  private static Map<String, String> tag(Observation o, int k) {
+    return Map.of("class", "observation-start", "data-request", o.id(), "data-number", Integer.toString(k));
+  }
+
+  /** Lines and shapes whose shapes of some series are each wrapped in an SVG group (see {@link SvgGroups}). */
+  private static final class TaggedShapes extends XYLineAndShapeRenderer {
+    private final Map<Integer, List<Map<String, String>>> tags;
+
+    /** {@code tags}: series index to the group of each item, by item index. */
+    TaggedShapes(Map<Integer, List<Map<String, String>>> tags) {
+      this.tags = Map.copyOf(tags);
+    }
+
+    @Override
+    public void drawItem(Graphics2D g2, XYItemRendererState state, Rectangle2D dataArea, PlotRenderingInfo info,
+        XYPlot plot, ValueAxis domainAxis, ValueAxis rangeAxis, XYDataset dataset, int series, int item,
+        CrosshairState crosshairState, int pass) {
+      List<Map<String, String>> mine = tags.get(series);
+      SvgGroups.around(g2, mine != null && isItemPass(pass) && item < mine.size() ? mine.get(item) : null,
+          () -> super.drawItem(g2, state, dataArea, info, plot, domainAxis, rangeAxis, dataset, series, item,
+              crosshairState, pass));
+    }
   }
 
   /** The midpoint between the first observation's start and the last one's end (the horizon's without any). */

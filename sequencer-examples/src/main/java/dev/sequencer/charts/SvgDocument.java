@@ -7,9 +7,10 @@ import java.util.LinkedHashMap;
 import java.util.Map;
 
 /**
- * The text of one SVG 1.1 document being drawn by {@link SvgGraphics}: the elements in drawing order, the
- * shared definitions (clip paths, gradients) and the number and text formatting they use. Coordinates are
- * device pixels, written with at most two decimals (1/100 px, far below what a viewer can show).
+ * The text of one SVG 1.1 document being drawn by {@link SvgGraphics}: the elements in drawing order (inside
+ * the groups opened around them; a group left open is closed at the end), the shared definitions (clip paths,
+ * gradients) and the number and text formatting they use. Coordinates are device pixels, written with at most
+ * two decimals (1/100 px, far below what a viewer can show).
  */
 final class SvgDocument {
   private final int widthPx;
@@ -19,6 +20,8 @@ final class SvgDocument {
   /** Clip path data to its id, so that the many elements clipped to the plot area share one definition. */
   private final Map<String, String> clipIds = new LinkedHashMap<>();
   private final Map<String, String> gradientIds = new LinkedHashMap<>();
+  /** Groups opened and not yet closed. */
+  private int openGroups;
 
   SvgDocument(int widthPx, int heightPx) {
     this.widthPx = widthPx;
@@ -28,6 +31,31 @@ final class SvgDocument {
   /** Appends one element (complete markup) to the body. */
   void element(String markup) {
     body.append(markup).append('\n');
+  }
+
+  /**
+   * Opens a {@code <g>} element with these attributes (names as given, in their map order, values escaped);
+   * the elements that follow belong to it until {@link #endGroup}. A name that is not a plain XML name is
+   * refused.
+   */
+  void beginGroup(Map<String, String> attributes) {
+    StringBuilder sb = new StringBuilder("<g");
+    attributes.forEach((name, value) -> {
+      if (!name.matches("[A-Za-z_][A-Za-z0-9_.-]*")) {
+        throw new IllegalArgumentException("not an attribute name: '" + name + "'");
+      }
+      sb.append(' ').append(name).append("=\"").append(escape(value == null ? "" : value)).append('"');
+    });
+    body.append(sb).append(">\n");
+    openGroups++;
+  }
+
+  /** Closes the group opened last; nothing when none is open. */
+  void endGroup() {
+    if (openGroups > 0) {
+      body.append("</g>\n");
+      openGroups--;
+    }
   }
 
   /** The id of a clip path with path data {@code d} (device pixels), defined on first use. */
@@ -59,7 +87,7 @@ final class SvgDocument {
     if (defs.length() > 0) {
       sb.append("<defs>\n").append(defs).append("</defs>\n");
     }
-    sb.append(body).append("</svg>\n");
+    sb.append(body).append("</g>\n".repeat(openGroups)).append("</svg>\n");
     return sb.toString();
   }
 

@@ -42,7 +42,9 @@ import java.text.AttributedCharacterIterator;
 import java.util.Base64;
 import java.util.Locale;
 import java.util.Map;
+import java.util.TreeMap;
 import javax.imageio.ImageIO;
+import org.jfree.chart.ChartHints;
 
 /**
  * A {@link Graphics2D} that records what is drawn as an SVG 1.1 document instead of pixels, enough for
@@ -56,7 +58,9 @@ import javax.imageio.ImageIO;
  * Unsupported, because an SVG cannot do them: XOR mode (drawn as paint mode), {@link #copyArea} (an
  * {@link UnsupportedOperationException}), paints other than {@link Color} and {@link GradientPaint}
  * (an {@link IllegalArgumentException} when drawn with). Composites other than {@link AlphaComposite}
- * are drawn as source-over. Not thread-safe; {@link #create()} copies share one document.
+ * are drawn as source-over. Groups: the element hints JFreeChart's renderers send ({@link ChartHints}) become
+ * {@code <g>} elements around what is drawn between them. Not thread-safe; {@link #create()} copies share one
+ * document.
  */
 final class SvgGraphics extends Graphics2D {
   /** A 1 x 1 image whose graphics measure fonts and give the device configuration (works headless). */
@@ -770,10 +774,42 @@ final class SvgGraphics extends Graphics2D {
     }
   }
 
+  /**
+   * Besides the usual hints: JFreeChart's {@link ChartHints#KEY_BEGIN_ELEMENT} opens an SVG group and
+   * {@link ChartHints#KEY_END_ELEMENT} closes it (see {@link #groupAttributes}); neither is kept as a hint.
+   */
   @Override
   public void setRenderingHint(RenderingHints.Key hintKey, Object hintValue) {
+    if (hintKey == ChartHints.KEY_BEGIN_ELEMENT) {
+      doc.beginGroup(groupAttributes(hintValue));
+      return;
+    }
+    if (hintKey == ChartHints.KEY_END_ELEMENT) {
+      doc.endGroup();
+      return;
+    }
     hints.put(hintKey, hintValue);
     metrics.setRenderingHint(hintKey, hintValue);
+  }
+
+  /**
+   * The attributes of the group a {@link ChartHints#KEY_BEGIN_ELEMENT} value asks for: a string is the
+   * group's {@code id}; in a map, {@code id}, {@code class} and {@code data-*} keep their names and any other
+   * key gets {@code data-} before it (JFreeChart's {@code ref} becomes {@code data-ref}). Sorted by name, so
+   * the document does not depend on the map's order.
+   */
+  static Map<String, String> groupAttributes(Object hintValue) {
+    Map<String, String> out = new TreeMap<>();
+    if (hintValue instanceof String id) {
+      out.put("id", id);
+    } else if (hintValue instanceof Map<?, ?> m) {
+      m.forEach((k, v) -> {
+        String name = String.valueOf(k);
+        out.put(name.equals("id") || name.equals("class") || name.startsWith("data-") ? name : "data-" + name,
+            v == null ? "" : v.toString());
+      });
+    }
+    return out;
   }
 
   @Override

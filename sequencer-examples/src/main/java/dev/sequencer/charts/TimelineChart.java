@@ -1,34 +1,49 @@
 package dev.sequencer.charts;
 
+import dev.sequencer.io.WindowsFile.ResourceWindows;
 import dev.sequencer.model.Observation;
 import dev.sequencer.model.RequestWindows;
 import dev.sequencer.model.Scenario;
 import dev.sequencer.model.TimeWindow;
 import dev.sequencer.model.Timeline;
-import dev.sequencer.model.Unscheduled;
 import java.awt.BasicStroke;
 import java.awt.Color;
 import java.awt.Font;
+import java.awt.Graphics2D;
+import java.awt.geom.Rectangle2D;
 import java.text.SimpleDateFormat;
 import java.time.Duration;
 import java.time.Instant;
 import java.util.ArrayList;
 import java.util.HashMap;
+import java.util.IdentityHashMap;
+import java.util.LinkedHashSet;
 import java.util.List;
 import java.util.Locale;
 import java.util.Map;
+import java.util.Objects;
+import java.util.Set;
 import java.util.TimeZone;
 import org.jfree.chart.JFreeChart;
+import org.jfree.chart.annotations.XYBoxAnnotation;
 import org.jfree.chart.axis.DateAxis;
 import org.jfree.chart.axis.SymbolAxis;
+import org.jfree.chart.axis.ValueAxis;
+import org.jfree.chart.plot.CrosshairState;
 import org.jfree.chart.plot.IntervalMarker;
+import org.jfree.chart.plot.Marker;
 import org.jfree.chart.plot.PlotOrientation;
+import org.jfree.chart.plot.PlotRenderingInfo;
 import org.jfree.chart.plot.XYPlot;
 import org.jfree.chart.renderer.xy.StandardXYBarPainter;
 import org.jfree.chart.renderer.xy.XYBarRenderer;
+import org.jfree.chart.renderer.xy.XYItemRendererState;
 import org.jfree.chart.title.TextTitle;
 import org.jfree.chart.ui.Layer;
+import org.jfree.chart.ui.RectangleAnchor;
 import org.jfree.chart.ui.RectangleEdge;
+import org.jfree.chart.ui.TextAnchor;
+import org.jfree.data.xy.XYDataset;
 import org.jfree.data.xy.XYIntervalSeries;
 import org.jfree.data.xy.XYIntervalSeriesCollection;
 
@@ -38,6 +53,14 @@ import org.jfree.data.xy.XYIntervalSeriesCollection;
  * before it in orange; at a ground site, daylight and twilight (Sun above the scenario's darkness limit,
  * else above -12 deg) shaded. Time axis in UTC, optionally local time and local sidereal time below it.
  * Row labels carry "!" for a required request and the priority ("R3 ! p5"); unscheduled rows their reason.
+ *
+ * <p>With several resources (format addition A6) the rows come in one lane group per resource, in the
+ * scenario's file order: a header row labelled with the resource id and its counts, then that resource's
+ * observations in start order, each with that resource's windows, on a tinted band shaded by the Sun at that
+ * resource's site with its own darkness limit; the unscheduled rows (when included) follow the groups, with the
+ * windows of every resource. In the SVG each band is a group {@code <g class="lane-group" data-resource="…">},
+ * its label one {@code <g class="lane-label" data-resource="…">} and each observation bar one
+ * {@code <g class="observation" data-request="…" data-resource="…">}.
  */
 public final class TimelineChart {
   /** Width of the picture, pixels. */
@@ -51,19 +74,22 @@ public final class TimelineChart {
   private static final Color WINDOW = new Color(150, 200, 240);
   private static final Color DAY = new Color(250, 215, 120, 150);
   private static final Color TWILIGHT = new Color(250, 235, 190, 140);
+  /** Lane-group bands, alternating. */
+  private static final Color[] LANE_GROUP = {new Color(205, 215, 235, 110), new Color(215, 232, 205, 110)};
+  private static final Color LABEL_BACKGROUND = new Color(255, 255, 255, 190);
+  private static final Color CLEAR = new Color(0, 0, 0, 0);
   private static final Font TICK_FONT = new Font(Font.SANS_SERIF, Font.PLAIN, 12);
   private static final Font LABEL_FONT = new Font(Font.SANS_SERIF, Font.BOLD, 14);
+  private static final Font GROUP_FONT = new Font(Font.SANS_SERIF, Font.BOLD, 13);
 
   private TimelineChart() {}
 
-  /** Picture height for this plan, pixels: a frame plus one row per drawn request. */
-  public static int heightPx(Timeline t, boolean includeUnscheduled) {
-    return FRAME_PX + ROW_PX * Math.max(4, rows(t, includeUnscheduled).size());
-  }
-
-  /** Picture height with the local and sidereal time axes, pixels. */
-  public static int heightPx(Timeline t, boolean includeUnscheduled, TimeAxes axes) {
-    return heightPx(t, includeUnscheduled) + (axes == null ? 0 : 110);
+  /**
+   * Picture height for this plan, pixels: a frame plus one row per drawn request (and one header row per
+   * resource, A6), plus the local and sidereal time axes when {@code axes} is not null.
+   */
+  public static int heightPx(Scenario s, Timeline t, boolean includeUnscheduled, TimeAxes axes) {
+    return FRAME_PX + ROW_PX * Math.max(4, Rows.of(s, t, includeUnscheduled).keys().size()) + (axes == null ? 0 : 110);
   }
 
   /** The chart of {@code timeline} over the scenario's horizon, UTC only, the timeline's own reasons. */
@@ -76,53 +102,128 @@ public final class TimelineChart {
    * The chart of {@code timeline}: each row labelled with the request id, "!" when required and its
    * priority; unscheduled rows (when included) say why, from {@code reasons} (id to words) or the
    * timeline's reason; {@code axes}, when not null, adds local time and local sidereal time below UTC.
+   * {@code windows} are the one observer's (with several resources only the unscheduled rows can use them:
+   * {@link #createByResource} gives each lane group its resource's own).
    */
   public static JFreeChart create(PlanGeometry geometry, List<RequestWindows> windows, Timeline timeline,
       boolean includeUnscheduled, Map<String, String> reasons, TimeAxes axes) {
+    return draw(geometry, List.of(new WindowsOf(null, windows)), timeline, includeUnscheduled, reasons, axes);
+  }
+
+  /**
+   * The chart of a plan with several resources (A6), in lane groups, each observation row with the windows of
+   * its own resource ({@code windows}, one entry per resource); otherwise as {@link #create}.
+   */
+  public static JFreeChart createByResource(PlanGeometry geometry, List<ResourceWindows> windows, Timeline timeline,
+      boolean includeUnscheduled, Map<String, String> reasons, TimeAxes axes) {
+    return draw(geometry, windows.stream().map(w -> new WindowsOf(w.resource(), w.windows())).toList(), timeline,
+        includeUnscheduled, reasons, axes);
+  }
+
+  /** Windows of one resource ({@code null}: of the one observer, or of every resource alike). */
+  private record WindowsOf(String resource, List<RequestWindows> windows) {}
+
+  /**
+   * A row: a request's row in the lane group of {@code resource} (null with one observer, and for the
+   * unscheduled rows), or with {@code id} null the group's header row.
+   */
+  private record RowKey(String resource, String id, boolean scheduled) {}
+
+  /** One lane group (A6): its resource (null when observations name none), header row, last row, observations. */
+  private record Group(String resource, int header, int last, List<Observation> observations) {}
+
+  /** The rows of a chart, top to bottom, and its lane groups (none with one observer). */
+  private record Rows(List<RowKey> keys, Map<RowKey, Integer> rowOf, List<Group> groups) {
+    static Rows of(Scenario s, Timeline t, boolean includeUnscheduled) {
+      List<RowKey> keys = new ArrayList<>();
+      List<Group> groups = new ArrayList<>();
+      if (s.hasResources()) {
+        // The scenario's resources in file order, then any other resource the timeline names (a timeline that
+        // fails its check still gets every observation drawn).
+        Set<String> names = new LinkedHashSet<>();
+        s.resources().forEach(r -> names.add(r.id()));
+        t.observations().forEach(o -> names.add(o.resource()));
+        for (String res : names) {
+          List<Observation> mine = t.observations().stream().filter(o -> Objects.equals(res, o.resource())).toList();
+          int header = keys.size();
+          keys.add(new RowKey(res, null, true));
+          mine.forEach(o -> keys.add(new RowKey(res, o.id(), true)));
+          groups.add(new Group(res, header, keys.size() - 1, mine));
+        }
+      } else {
+        t.observations().forEach(o -> keys.add(new RowKey(null, o.id(), true)));
+      }
+      if (includeUnscheduled) {
+        t.unscheduled().forEach(u -> keys.add(new RowKey(null, u.id(), false)));
+      }
+      Map<RowKey, Integer> rowOf = new HashMap<>();
+      for (int i = 0; i < keys.size(); i++) {
+        rowOf.put(keys.get(i), i);
+      }
+      return new Rows(keys, rowOf, groups);
+    }
+
+    /** The row of {@code o}. */
+    int of(Scenario s, Observation o) {
+      return rowOf.get(new RowKey(s.hasResources() ? o.resource() : null, o.id(), true));
+    }
+  }
+
+  private static JFreeChart draw(PlanGeometry geometry, List<WindowsOf> windows, Timeline timeline,
+      boolean includeUnscheduled, Map<String, String> reasons, TimeAxes axes) {
     ChartFiles.headless();
     Scenario s = geometry.scenario();
-    List<String> rows = rows(timeline, includeUnscheduled);
-    Map<String, Integer> rowOf = new HashMap<>();
-    for (int i = 0; i < rows.size(); i++) {
-      rowOf.put(rows.get(i), i);
-    }
+    Rows rows = Rows.of(s, timeline, includeUnscheduled);
     XYIntervalSeries obs = new XYIntervalSeries("observation");
     XYIntervalSeries slews = new XYIntervalSeries("slew and settle");
     XYIntervalSeries vis = new XYIntervalSeries("visibility window");
+    Map<Integer, Map<String, String>> obsTags = new HashMap<>(); // by row; with lane groups only
     for (Observation o : timeline.observations()) {
-      int row = rowOf.get(o.id());
+      int row = rows.of(s, o);
       add(obs, row, 0.32, o.start(), o.end());
+      if (!rows.groups().isEmpty()) {
+        obsTags.put(row, Map.of("class", "observation", "data-request", o.id(), "data-resource",
+            o.resource() == null ? "" : o.resource()));
+      }
       if (o.slewSeconds() > 0) {
         add(slews, row, 0.32, o.start().minusMillis(Math.round(o.slewSeconds() * 1000)), o.start());
       }
     }
-    for (RequestWindows w : windows) {
-      Integer row = rowOf.get(w.id());
-      if (row != null) {
-        for (TimeWindow tw : w.intervals()) {
-          add(vis, row, 0.45, tw.start(), tw.end());
+    for (WindowsOf source : windows) {
+      for (RequestWindows w : source.windows()) {
+        // its row in the source's lane group (the one observer's row), and its unscheduled row when drawn
+        for (RowKey k : List.of(new RowKey(source.resource(), w.id(), true), new RowKey(null, w.id(), false))) {
+          Integer row = rows.rowOf().get(k);
+          if (row == null) {
+            continue;
+          }
+          for (TimeWindow tw : w.intervals()) {
+            add(vis, row, 0.45, tw.start(), tw.end());
+          }
         }
       }
     }
     XYPlot plot = new XYPlot();
     plot.setOrientation(PlotOrientation.HORIZONTAL);
     // Dataset 0 is drawn last (on top) under the default reverse rendering order.
+    TaggedBars observed = new TaggedBars(obsTags);
     plot.setDataset(0, collection(obs));
-    plot.setRenderer(0, bars(OBSERVATION));
+    plot.setRenderer(0, bars(observed, OBSERVATION));
     plot.setDataset(1, collection(slews));
-    plot.setRenderer(1, bars(TRANSITION));
+    plot.setRenderer(1, bars(new XYBarRenderer(), TRANSITION));
     plot.setDataset(2, collection(vis));
-    plot.setRenderer(2, bars(WINDOW));
+    XYBarRenderer windowBars = bars(new XYBarRenderer(), WINDOW);
+    plot.setRenderer(2, windowBars);
 
     Map<String, String> why = new HashMap<>();
     timeline.unscheduled().forEach(u -> why.put(u.id(), reasons.getOrDefault(u.id(), u.reason())));
-    String[] labels = rows.stream().map(id -> label(s, id) + (rowOf.get(id) < timeline.observations().size() ? ""
-        : " \u2014 not scheduled: " + shorten(why.get(id)))).toArray(String[]::new);
+    String[] labels = rows.keys().stream().map(k -> k.id() == null ? "" : label(s, k.id())
+        + (k.scheduled() ? "" : " \u2014 not scheduled: " + shorten(why.get(k.id())))).toArray(String[]::new);
     SymbolAxis rowAxis = new SymbolAxis(null, labels.length == 0 ? new String[] {""} : labels);
     rowAxis.setInverted(true);
     rowAxis.setGridBandsVisible(true);
     rowAxis.setTickLabelFont(TICK_FONT);
-    rowAxis.setRange(-0.6, Math.max(0.6, rows.size() - 0.4));
+    rowAxis.setRange(-0.6, Math.max(0.6, rows.keys().size() - 0.4));
     plot.setDomainAxis(rowAxis);
 
     DateAxis timeAxis = new DateAxis("time (UTC)");
@@ -138,7 +239,7 @@ public final class TimelineChart {
     plot.setRangeAxisLocation(org.jfree.chart.axis.AxisLocation.TOP_OR_LEFT);
     if (axes != null) {
       int i = 1;
-      for (org.jfree.chart.axis.ValueAxis a : new org.jfree.chart.axis.ValueAxis[] {
+      for (ValueAxis a : new ValueAxis[] {
           axes.localAxis(s.horizon().start(), s.horizon().end(), multiDay),
           axes.siderealAxis(s.horizon().start(), s.horizon().end())}) {
         if (a != null) {
@@ -154,20 +255,62 @@ public final class TimelineChart {
     plot.setBackgroundPaint(Color.WHITE);
     plot.setDomainGridlinesVisible(false);
 
-    String shading = shadeSun(plot, geometry);
+    String shading = rows.groups().isEmpty() ? sunWords(shadeSun(geometry, (from, to, color) -> marker(plot, from, to,
+        color))) : laneGroups(plot, observed, windowBars, geometry, rows);
 
     JFreeChart chart = new JFreeChart(title(s), new Font(Font.SANS_SERIF, Font.BOLD, 18), plot, true);
     chart.setBackgroundPaint(Color.WHITE);
     chart.getLegend().setItemFont(TICK_FONT);
     chart.getLegend().setPosition(RectangleEdge.BOTTOM);
-    String sub = String.format(Locale.ROOT, "%s, %d scheduled, %d not; priority %.1f, bound %s, slew total %.0f s%s",
+    String sub = String.format(Locale.ROOT, "%s, %d scheduled, %d not; priority %.1f, bound %s, slew total %.0f s%s%s",
         timeline.status(), timeline.observations().size(), timeline.unscheduled().size(), timeline.priority(),
         timeline.bound() == null ? "-" : String.format(Locale.ROOT, "%.1f", timeline.bound()), timeline.slewSeconds(),
-        shading.isEmpty() ? "" : "; " + shading);
+        rows.groups().isEmpty() ? "" : "; " + s.resources().size() + " resources", shading.isEmpty() ? "" : "; " + shading);
     chart.addSubtitle(new TextTitle(sub, new Font(Font.SANS_SERIF, Font.PLAIN, 13)));
     return chart;
   }
 
+  /**
+   * Draws the lane groups (A6): each a tinted band over its rows labelled with the resource id and its counts,
+   * shaded by the Sun at its resource's site; returns the legend sentence of the shading ("" without any site).
+   */
+  private static String laneGroups(XYPlot plot, TaggedBars observed, XYBarRenderer background, PlanGeometry geometry,
+      Rows rows) {
+    Scenario s = geometry.scenario();
+    Set<String> limits = new LinkedHashSet<>();
+    for (int i = 0; i < rows.groups().size(); i++) {
+      Group gr = rows.groups().get(i);
+      double lo = gr.header() - 0.5;
+      double hi = gr.last() + 0.5;
+      String resource = gr.resource() == null ? "" : gr.resource();
+      IntervalMarker band = new IntervalMarker(lo, hi, LANE_GROUP[i % LANE_GROUP.length]);
+      observed.tag(band, Map.of("class", "lane-group", "data-resource", resource));
+      plot.addDomainMarker(0, band, Layer.BACKGROUND);
+      // The label is a second, clear marker in front, so that the Sun shading over the band does not cover it.
+      IntervalMarker label = new IntervalMarker(lo, hi, CLEAR);
+      label.setLabel(String.format(Locale.ROOT, "%s \u2014 %d observation%s, priority %s, slew total %.0f s",
+          gr.resource() == null ? "no resource" : gr.resource(), gr.observations().size(),
+          gr.observations().size() == 1 ? "" : "s", number(ResourcePlan.priority(s, gr.observations())),
+          gr.observations().stream().mapToDouble(Observation::slewSeconds).sum()));
+      label.setLabelFont(GROUP_FONT);
+      label.setLabelAnchor(RectangleAnchor.TOP_LEFT);
+      label.setLabelTextAnchor(TextAnchor.TOP_LEFT);
+      label.setLabelBackgroundColor(LABEL_BACKGROUND);
+      observed.tag(label, Map.of("class", "lane-label", "data-resource", resource));
+      plot.addDomainMarker(0, label, Layer.FOREGROUND);
+      PlanGeometry here = gr.resource() == null ? null : geometry.forResource(gr.resource());
+      if (here != null && here != geometry) {
+        // The box runs from x0 = hi to x1 = lo: on the inverted row axis that gives it a positive height.
+        double limit = shadeSun(here, (from, to, color) -> background.addAnnotation(new XYBoxAnnotation(hi,
+            from.toEpochMilli(), lo, to.toEpochMilli(), null, null, color), Layer.BACKGROUND));
+        if (!Double.isNaN(limit)) {
+          limits.add(String.format(Locale.ROOT, "%s %.0f\u00b0", gr.resource(), limit));
+        }
+      }
+    }
+    return limits.isEmpty() ? "" : "shaded: Sun above each resource's darkness limit (" + String.join(", ", limits)
+        + "; darker: above 0\u00b0)";
+  }
   /** "R3 ! p5": the id, "!" for a required request, the priority. */
   static String label(Scenario s, String id) {
     return s.request(id).map(r -> id + (r.required() ? " !" : "") + (r.priority() == null ? "" : " p" + number(r.priority())))
@@ -190,16 +333,6 @@ public final class TimelineChart {
     return s.name() == null ? "observing plan" : s.name();
   }
 
-  /** Request ids, one per row: scheduled in start order, then (optionally) the unscheduled in file order. */
-  private static List<String> rows(Timeline t, boolean includeUnscheduled) {
-    List<String> ids = new ArrayList<>();
-    t.observations().forEach(o -> ids.add(o.id()));
-    if (includeUnscheduled) {
-      t.unscheduled().stream().map(Unscheduled::id).forEach(ids::add);
-    }
-    return ids;
-  }
-
   private static void add(XYIntervalSeries series, int row, double halfHeight, Instant from, Instant to) {
     series.add(row, row - halfHeight, row + halfHeight, from.toEpochMilli(), from.toEpochMilli(), to.toEpochMilli());
   }
@@ -210,8 +343,7 @@ public final class TimelineChart {
     return c;
   }
 
-  private static XYBarRenderer bars(Color color) {
-    XYBarRenderer r = new XYBarRenderer();
+  private static <R extends XYBarRenderer> R bars(R r, Color color) {
     r.setUseYInterval(true);
     r.setBarPainter(new StandardXYBarPainter());
     r.setShadowVisible(false);
@@ -222,12 +354,51 @@ public final class TimelineChart {
   }
 
   /**
-   * Shades, at a ground site, the times the Sun is above 0 deg (day) and above the darkness limit
-   * (twilight); returns the legend sentence, or "" without a site. Edges are good to one sample step.
+   * Bars that wrap each bar, and each lane-group band, in an SVG group naming what it shows (see {@link SvgGroups}).
+   * Bars are found by their row: the series keeps its items sorted by row, not in the order they were added.
    */
-  private static String shadeSun(XYPlot plot, PlanGeometry g) {
+  private static final class TaggedBars extends XYBarRenderer {
+    private final Map<Integer, Map<String, String>> rowTags;
+    private final Map<Marker, Map<String, String>> markerTags = new IdentityHashMap<>();
+
+    /** {@code rowTags}: the group of the bar on each row (rows without one are drawn without a group). */
+    TaggedBars(Map<Integer, Map<String, String>> rowTags) {
+      this.rowTags = Map.copyOf(rowTags);
+    }
+
+    void tag(Marker marker, Map<String, String> attributes) {
+      markerTags.put(marker, attributes);
+    }
+
+    @Override
+    public void drawItem(Graphics2D g2, XYItemRendererState state, Rectangle2D dataArea, PlotRenderingInfo info,
+        XYPlot plot, ValueAxis domainAxis, ValueAxis rangeAxis, XYDataset dataset, int series, int item,
+        CrosshairState crosshairState, int pass) {
+      SvgGroups.around(g2, rowTags.get((int) Math.round(dataset.getXValue(series, item))), () -> super.drawItem(g2,
+          state, dataArea, info, plot, domainAxis, rangeAxis, dataset, series, item, crosshairState, pass));
+    }
+
+    @Override
+    public void drawDomainMarker(Graphics2D g2, XYPlot plot, ValueAxis domainAxis, Marker marker,
+        Rectangle2D dataArea) {
+      SvgGroups.around(g2, markerTags.get(marker), () -> super.drawDomainMarker(g2, plot, domainAxis, marker,
+          dataArea));
+    }
+  }
+
+  /** Receives one shaded interval. */
+  private interface Shade {
+    void add(Instant from, Instant to, Color color);
+  }
+
+  /**
+   * Hands {@code shade}, at a ground site, the times the Sun is above 0 deg (day) and above the darkness limit
+   * (twilight), in the order they end; returns the darkness limit used, degrees, or NaN without a site. Edges are
+   * good to one sample step.
+   */
+  private static double shadeSun(PlanGeometry g, Shade shade) {
     if (g.site() == null) {
-      return "";
+      return Double.NaN;
     }
     Double limitOrNull = g.scenario().constraints().sunElevationMaxDeg();
     double limit = limitOrNull == null ? -12 : limitOrNull;
@@ -244,20 +415,26 @@ public final class TimelineChart {
       if (day && dayFrom == null) {
         dayFrom = at;
       } else if (!day && dayFrom != null) {
-        marker(plot, dayFrom, at, DAY);
+        shade.add(dayFrom, at, DAY);
         dayFrom = null;
       }
       if (twi && twiFrom == null) {
         twiFrom = at;
       } else if (!twi && twiFrom != null) {
-        marker(plot, twiFrom, at, TWILIGHT);
+        shade.add(twiFrom, at, TWILIGHT);
         twiFrom = null;
       }
       if (last) {
         break;
       }
     }
-    return String.format(Locale.ROOT, "shaded: Sun above %.0f\u00b0 (darker: above 0\u00b0)", limit);
+    return limit;
+  }
+
+  /** The legend sentence of the shading below {@code limitDeg}, or "" for NaN (no site). */
+  private static String sunWords(double limitDeg) {
+    return Double.isNaN(limitDeg) ? ""
+        : String.format(Locale.ROOT, "shaded: Sun above %.0f\u00b0 (darker: above 0\u00b0)", limitDeg);
   }
 
   private static void marker(XYPlot plot, Instant from, Instant to, Color color) {

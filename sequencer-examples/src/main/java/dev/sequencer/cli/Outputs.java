@@ -39,13 +39,16 @@ final class Outputs {
     return new Target(option, file == null ? List.of() : List.of(file), false);
   }
 
-  /** {@code --plot PREFIX} writes PREFIX-timeline.png/.svg and PREFIX-sky.png/.svg; {@code prefix} may be null. */
-  static Target plot(String option, String prefix) {
+  /**
+   * {@code --plot PREFIX} writes PREFIX-timeline.png/.svg and PREFIX-sky.png/.svg, with several resources a sky
+   * chart per resource ({@link PlanOutputs#plotSuffixes}); {@code prefix} may be null.
+   */
+  static Target plot(String option, String prefix, dev.sequencer.model.Scenario s) {
     if (prefix == null) {
       return new Target(option, List.of(), false);
     }
     List<Path> files = new ArrayList<>();
-    for (String suffix : PlanOutputs.PLOT_SUFFIXES) {
+    for (String suffix : PlanOutputs.plotSuffixes(s)) {
       files.add(Path.of(prefix + suffix));
     }
     return new Target(option, files, false);

@@ -1,6 +1,7 @@
 package dev.sequencer.cli;
 
 import dev.sequencer.astro.AstroContext;
+import dev.sequencer.io.WindowsFile.ResourceWindows;
 import dev.sequencer.model.RequestWindows;
 import dev.sequencer.model.Scenario;
 import dev.sequencer.model.Timeline;
@@ -40,6 +41,13 @@ record Pipeline(Geometry geometry, AstroContext astro) {
 
   List<RequestWindows> windows() {
     return geometry.windows();
+  }
+
+  /** Each resource's windows (A6), in the scenario's file order; empty with one observer. */
+  List<ResourceWindows> windowsByResource() {
+    List<dev.sequencer.model.Resource> resources = scenario().resources();
+    return java.util.stream.IntStream.range(0, geometry.resources().size())
+        .mapToObj(i -> new ResourceWindows(resources.get(i).id(), geometry.resources().get(i).windows())).toList();
   }
 
   /** Each request's visibility with what removes the most time (for the explained reasons). */

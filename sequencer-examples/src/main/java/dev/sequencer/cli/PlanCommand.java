@@ -48,7 +48,7 @@ final class PlanCommand implements Callable<Integer> {
   Path csv;
 
   @Option(names = "--plot", paramLabel = "PREFIX", description = "Also draw PREFIX-timeline.png/.svg and "
-      + "PREFIX-sky.png/.svg.")
+      + "PREFIX-sky.png/.svg (with several resources PREFIX-sky-RESOURCE.png/.svg for each).")
   String plot;
 
   @Option(names = "--report", paramLabel = "FILE", description = "Also write the night report (one HTML file, "
@@ -73,8 +73,8 @@ final class PlanCommand implements Callable<Integer> {
     PrintWriter out = spec.commandLine().getOut();
     ScenarioReader.Result r = Pipeline.read(scenario, out);
     ReportOutput.zone(zone, r.scenario());
-    Outputs.check(Outputs.file("--output", output), Outputs.file("--csv", csv), Outputs.plot("--plot", plot),
-        Outputs.file("--report", report));
+    Outputs.check(Outputs.file("--output", output), Outputs.file("--csv", csv),
+        Outputs.plot("--plot", plot, r.scenario()), Outputs.file("--report", report));
     PlanOutcome planned = solve(r.scenario(), common.astro(), solverOptions, r.scenario().solverOrDefaults(), out);
     Pipeline p = new Pipeline(planned.geometry(), common.astro());
     print(out, planned.result(), planned.timeline(), p.visibility());

@@ -47,7 +47,7 @@ final class ReportOutput {
       reasons.put(u.id(), Explained.of(u, p.visibility()));
     }
     NightReport.Input in = new NightReport.Input(p.scenario(), t, p.windows(), gap, warnings, reasons,
-        zone(zoneArg, p.scenario()), zoneNote(zoneArg, p.scenario()), violations);
+        zone(zoneArg, p.scenario()), zoneNote(zoneArg, p.scenario()), violations, p.windowsByResource());
     AtomicFiles.writeUtf8(file, NightReport.html(in, p.astro()));
     out.println("wrote " + file);
   }

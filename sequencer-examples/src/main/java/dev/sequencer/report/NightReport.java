@@ -5,10 +5,12 @@ import static dev.sequencer.report.Html.esc;
 import static dev.sequencer.report.Html.num;
 
 import dev.sequencer.astro.AstroContext;
+import dev.sequencer.io.WindowsFile.ResourceWindows;
 import dev.sequencer.charts.ChartFiles;
 import dev.sequencer.charts.GroundMap;
 import dev.sequencer.charts.NightChart;
 import dev.sequencer.charts.PlanGeometry;
+import dev.sequencer.charts.ResourcePlan;
 import dev.sequencer.charts.SkyChart;
 import dev.sequencer.charts.TimeAxes;
 import dev.sequencer.charts.TimelineChart;
@@ -23,6 +25,7 @@ import dev.sequencer.model.OrbitingTarget;
 import dev.sequencer.model.RaDec;
 import dev.sequencer.model.Request;
 import dev.sequencer.model.RequestWindows;
+import dev.sequencer.model.Resource;
 import dev.sequencer.model.Scenario;
 import dev.sequencer.model.SlewSettings;
 import dev.sequencer.model.Timeline;
@@ -34,9 +37,13 @@ import java.time.ZoneId;
 import java.time.format.DateTimeFormatter;
 import java.time.temporal.ChronoUnit;
 import java.util.ArrayList;
+import java.util.Arrays;
+import java.util.HashMap;
 import java.util.List;
 import java.util.Locale;
 import java.util.Map;
+import java.util.function.UnaryOperator;
+import org.jfree.chart.JFreeChart;
 
 /**
  * Builds the night report of one plan as a single HTML page. Nothing is fetched: the charts are inline
@@ -65,24 +72,40 @@ public final class NightReport {
    * @param zone the zone of "local time"
    * @param zoneNote how that zone was chosen, or null
    * @param violations what the validator found wrong with the timeline (empty when it is valid)
+   * @param resourceWindows with several resources (A6), each resource's windows (empty with one observer)
    */
   public record Input(Scenario scenario, Timeline timeline, List<RequestWindows> windows, Double gap,
-      List<String> warnings, Map<String, String> reasons, ZoneId zone, String zoneNote, List<String> violations) {
+      List<String> warnings, Map<String, String> reasons, ZoneId zone, String zoneNote, List<String> violations,
+      List<ResourceWindows> resourceWindows) {
     public Input {
       windows = List.copyOf(windows);
       warnings = List.copyOf(warnings);
       reasons = Map.copyOf(reasons);
       violations = List.copyOf(violations);
+      resourceWindows = List.copyOf(resourceWindows);
+    }
+
+    /** What a report of a scenario with one observer shows. */
+    public Input(Scenario scenario, Timeline timeline, List<RequestWindows> windows, Double gap, List<String> warnings,
+        Map<String, String> reasons, ZoneId zone, String zoneNote, List<String> violations) {
+      this(scenario, timeline, windows, gap, warnings, reasons, zone, zoneNote, violations, List.of());
     }
   }
 
-  /** One resource lane of the lane chart: today the scenario has one observer, so one lane. */
-  record Lane(String name, List<Observation> observations) {}
+  /**
+   * One lane of the lane chart: the one observer's, or one per resource (A6), with the sky values and the
+   * darkness limit (null: none set) of its site for the shading.
+   */
+  record Lane(String name, List<Observation> observations, SkyValues sky, Double sunLimitDeg) {}
 
   private final Input in;
   private final AstroContext ctx;
   private final SkyValues sky;
   private final TimeAxes axes;
+  /** Each resource's share of the plan (A6), in file order; empty with one observer. */
+  private final List<ResourcePlan> plans;
+  /** The sky values of each resource with an observer, by id (A6). */
+  private final Map<String, SkyValues> skies = new HashMap<>();
   private final StringBuilder b = new StringBuilder(1 << 18);
   private int charts;
 
@@ -91,6 +114,9 @@ public final class NightReport {
     this.ctx = ctx;
     this.sky = in.scenario().observer() == null ? null : SkyValues.of(in.scenario(), ctx);
     this.axes = new TimeAxes(in.zone(), in.zoneNote(), sky);
+    this.plans = ResourcePlan.of(in.scenario(), in.timeline());
+    plans.stream().filter(p -> p.scenario().observer() != null)
+        .forEach(p -> skies.put(p.id(), SkyValues.of(p.scenario(), ctx)));
   }
 
   /** The report's HTML text. */
@@ -117,6 +143,7 @@ public final class NightReport {
     summary();
     lanes();
     chartsSection();
+    resources();
     observations();
     passes();
     unscheduled();
@@ -145,9 +172,18 @@ public final class NightReport {
     dt("observations", t.observations().size() + " scheduled, " + t.unscheduled().size() + " not ("
         + s().requests().stream().filter(Request::required).count() + " required requests in the scenario)");
     dt("slew total", num(t.slewSeconds(), 0) + " s (exact, as re-checked)");
-    double[] totals = totals(t);
-    dt("idle total", num(totals[1], 0) + " s between the first slew and the last end (" + percent(totals[1], totals[0])
-        + " of that span)");
+    if (!plans.isEmpty()) {
+      dt("resources", plans.size() + ": " + esc(String.join(", ", plans.stream().map(p -> p.id() + " ("
+          + p.timeline().observations().size() + " observations)").toList())) + "; each has its section below");
+    }
+    double[] totals = plans.isEmpty() ? totals(t) : new double[3];
+    for (ResourcePlan p : plans) { // each resource's span, idle and exposure (A6): they overlap in time
+      double[] each = totals(p.timeline());
+      Arrays.setAll(totals, i -> totals[i] + each[i]);
+    }
+    dt("idle total", num(totals[1], 0) + (plans.isEmpty() ? " s between the first slew and the last end ("
+        + percent(totals[1], totals[0]) + " of that span)" : " s between each resource's first slew and its last end, "
+        + "summed over the resources (" + percent(totals[1], totals[0]) + " of those spans)"));
     dt("observing", num(totals[2], 0) + " s of exposure");
     if (sky != null && sky.atGroundSite()) {
       Instant mid = mid();
@@ -220,7 +256,10 @@ public final class NightReport {
   // ------------------------------------------------------------------ lanes
 
   private void lanes() {
-    List<Lane> lanes = List.of(new Lane(resourceName(), t().observations()));
+    List<Lane> lanes = plans.isEmpty()
+        ? List.of(new Lane(observerName(s()), t().observations(), sky, s().constraints().sunElevationMaxDeg()))
+        : plans.stream().map(p -> new Lane(p.id(), p.timeline().observations(), skies.get(p.id()),
+            p.scenario().constraints().sunElevationMaxDeg())).toList();
     int w = 1400;
     int left = 160;
     int laneH = 34;
@@ -232,25 +271,11 @@ public final class NightReport {
     b.append("<section id=\"lanes\"><h2>Timeline by resource</h2>\n<svg class=\"chart lanes\" id=\"lane-chart\" "
         + "role=\"img\" viewBox=\"0 0 ").append(w).append(' ').append(h).append("\" xmlns=\"http://www.w3.org/2000/svg\">\n");
     charts++;
-    if (sky != null && sky.atGroundSite()) {
-      Double lim = s().constraints().sunElevationMaxDeg();
-      double limit = lim == null ? -12 : lim;
-      long step = 120_000;
-      Long from = null;
-      for (long ms = t0; ms <= t1 + step; ms += step) {
-        long at = Math.min(ms, t1);
-        boolean bright = at < t1 && sky.sunElevationDeg(Instant.ofEpochMilli(at)) > limit;
-        if (bright && from == null) {
-          from = at;
-        } else if (!bright && from != null) {
-          rect(left + (from - t0) * k, top - 4, (at - from) * k, laneH * lanes.size() + 8, "sun", "Sun above "
-              + num(limit, 0) + "\u00b0");
-          from = null;
-        }
-        if (at == t1) {
-          break;
-        }
-      }
+    for (int i = 0; i < lanes.size(); i++) {
+      // each lane shaded by the Sun at its own site; the outer lanes' shading reaches into the margins
+      double y0 = i == 0 ? top - 4 : top + i * laneH;
+      double y1 = i == lanes.size() - 1 ? top + laneH * lanes.size() + 4 : top + (i + 1) * laneH;
+      shadeLane(lanes.get(i), left, k, t0, t1, y0, y1 - y0);
     }
     for (long hour = (t0 / 3_600_000 + 1) * 3_600_000; hour < t1; hour += 3_600_000) {
       double x = left + (hour - t0) * k;
@@ -282,17 +307,41 @@ public final class NightReport {
         + "settle before it, yellow: Sun above the darkness limit (hover for times)</text>\n</svg>\n</section>\n");
   }
 
+  /** Shades, over {@code [y, y + height]}, the times the Sun is above the lane's darkness limit at its site. */
+  private void shadeLane(Lane lane, int left, double k, long t0, long t1, double y, double height) {
+    if (lane.sky() == null || !lane.sky().atGroundSite()) {
+      return;
+    }
+    double limit = lane.sunLimitDeg() == null ? -12 : lane.sunLimitDeg();
+    long step = 120_000;
+    Long from = null;
+    for (long ms = t0; ms <= t1 + step; ms += step) {
+      long at = Math.min(ms, t1);
+      boolean bright = at < t1 && lane.sky().sunElevationDeg(Instant.ofEpochMilli(at)) > limit;
+      if (bright && from == null) {
+        from = at;
+      } else if (!bright && from != null) {
+        rect(left + (from - t0) * k, y, (at - from) * k, height, "sun", "Sun above " + num(limit, 0) + "\u00b0");
+        from = null;
+      }
+      if (at == t1) {
+        break;
+      }
+    }
+  }
+
   private void rect(double x, double y, double w, double h, String cls, String title) {
     b.append("<rect class=\"").append(cls).append("\" x=\"").append(num(x, 1)).append("\" y=\"").append(num(y, 1))
         .append("\" width=\"").append(num(Math.max(0.5, w), 1)).append("\" height=\"").append(num(h, 1)).append("\"><title>")
         .append(esc(title)).append("</title></rect>\n");
   }
 
-  private String resourceName() {
-    if (s().observer() instanceof GroundSite g) {
+  /** The observer of {@code view} in a few words: "site 24.62°, 33.91°", "spacecraft", or "resource" without one. */
+  private static String observerName(Scenario view) {
+    if (view.observer() instanceof GroundSite g) {
       return String.format(Locale.ROOT, "site %.2f\u00b0, %.2f\u00b0", g.latitudeDeg(), g.longitudeDeg());
     }
-    if (s().observer() instanceof OrbitObserver) {
+    if (view.observer() instanceof OrbitObserver) {
       return "spacecraft";
     }
     return "resource";
@@ -305,30 +354,83 @@ public final class NightReport {
     PlanGeometry g = new PlanGeometry(s(), ctx);
     b.append("<section id=\"charts\"><h2>Charts</h2>\n");
     TimeAxes ax = sky != null && sky.atGroundSite() ? axes : null;
-    chart("timeline-chart", "The plan by request: visibility windows, observations, slews; unscheduled requests "
-        + "below with their reasons; \"!\" marks a required request, p its priority.",
-        TimelineChart.create(g, in.windows(), t(), true, in.reasons(), ax), TimelineChart.WIDTH_PX,
-        TimelineChart.heightPx(t(), true, ax));
-    if (sky != null && sky.atGroundSite()) {
-      chart("night-chart", "The night: the scheduled targets' elevation (thick while observed), the Sun and the "
-          + "Moon, the Moon's illuminated fraction, airmass levels; local and sidereal time above.",
-          NightChart.create(s(), t(), sky, axes), NightChart.WIDTH_PX, NightChart.HEIGHT_PX);
+    if (plans.isEmpty()) {
+      chart("timeline-chart", "The plan by request: visibility windows, observations, slews; unscheduled requests "
+          + "below with their reasons; \"!\" marks a required request, p its priority.",
+          TimelineChart.create(g, in.windows(), t(), true, in.reasons(), ax), TimelineChart.WIDTH_PX,
+          TimelineChart.heightPx(s(), t(), true, ax));
+    } else {
+      chart("timeline-chart", "The plan by resource: one lane group per resource with its observations, their "
+          + "visibility windows from that resource and its slews, shaded by the Sun at its site; unscheduled requests "
+          + "below with their reasons; \"!\" marks a required request, p its priority.",
+          TimelineChart.createByResource(g, in.resourceWindows(), t(), true, in.reasons(), ax), TimelineChart.WIDTH_PX,
+          TimelineChart.heightPx(s(), t(), true, ax));
     }
-    boolean onlyEarthPoints = !s().requests().isEmpty()
-        && s().requests().stream().allMatch(r -> r.target() instanceof EarthPoint);
-    if (s().observer() != null && !onlyEarthPoints) { // Earth points have no place on the sky: the ground map shows them
-      chart("sky-chart", sky != null && sky.atGroundSite() ? "The sky at the site, observations numbered in order."
-          : "Targets on the sky with the Sun and Moon keep-outs.", SkyChart.create(g, t()), SkyChart.WIDTH_PX,
-          SkyChart.HEIGHT_PX);
+    observerCharts(g, null);
+    b.append("</section>\n");
+  }
+
+  /**
+   * The charts drawn from one observer: the night chart at a ground site, the sky chart (unless every target is
+   * an Earth point), the ground map; of the one observer for {@code plan} null, else of that resource (A6), with
+   * its id in the titles and the chart ids.
+   */
+  private void observerCharts(PlanGeometry g, ResourcePlan plan) {
+    Scenario view = plan == null ? s() : plan.scenario();
+    Timeline part = plan == null ? t() : plan.timeline();
+    SkyValues here = plan == null ? sky : skies.get(plan.id());
+    String suffix = plan == null ? "" : "-" + plan.fileName();
+    UnaryOperator<JFreeChart> titled = plan == null ? c -> c : plan::titled;
+    if (here != null && here.atGroundSite()) {
+      chart("night-chart" + suffix, "The night: the scheduled targets' elevation (thick while observed), the Sun and "
+          + "the Moon, the Moon's illuminated fraction, airmass levels; local and sidereal time above.",
+          titled.apply(NightChart.create(view, part, here, plan == null ? axes : new TimeAxes(in.zone(), in.zoneNote(),
+              here))), NightChart.WIDTH_PX, NightChart.HEIGHT_PX);
     }
-    if (sky != null && GroundMap.applies(s(), sky)) {
-      chart("ground-map", "The ground track and the Earth-point targets (no coastlines are drawn).",
-          GroundMap.create(s(), t(), sky), GroundMap.WIDTH_PX, GroundMap.HEIGHT_PX);
+    boolean onlyEarthPoints = !view.requests().isEmpty()
+        && view.requests().stream().allMatch(r -> r.target() instanceof EarthPoint);
+    if (view.observer() != null && !onlyEarthPoints) { // Earth points have no place on the sky: the ground map shows them
+      chart("sky-chart" + suffix, here != null && here.atGroundSite() ? "The sky at the site, observations numbered "
+          + "in order." : "Targets on the sky with the Sun and Moon keep-outs.",
+          plan == null ? SkyChart.create(g, part) : SkyChart.create(g, plan), SkyChart.WIDTH_PX, SkyChart.HEIGHT_PX);
+    }
+    if (here != null && GroundMap.applies(view, here)) {
+      chart("ground-map" + suffix, "The ground track and the Earth-point targets (no coastlines are drawn).",
+          titled.apply(GroundMap.create(view, part, here)), GroundMap.WIDTH_PX, GroundMap.HEIGHT_PX);
+    }
+  }
+
+  // ------------------------------------------------------------------ resources (A6)
+
+  /**
+   * One section per resource: its observer, its counts, the constraints in force on it (its own fields over
+   * the scenario's) and the charts drawn from it.
+   */
+  private void resources() {
+    if (plans.isEmpty()) {
+      return;
+    }
+    PlanGeometry g = new PlanGeometry(s(), ctx);
+    b.append("<section id=\"resources\"><h2>Resources</h2>\n");
+    for (ResourcePlan p : plans) {
+      Timeline part = p.timeline();
+      b.append("<section class=\"resource\" id=\"resource-").append(esc(p.fileName())).append("\" data-resource=\"")
+          .append(esc(p.id())).append("\"><h3>").append(esc(p.id())).append("</h3>\n<dl class=\"summary\">\n");
+      dt("observer", esc(observerName(p.scenario())));
+      dt("observations", part.observations().size() + " scheduled on it; " + part.unscheduled().size()
+          + " requests it may observe are not scheduled");
+      dt("priority", num(part.priority(), 2) + " collected on it");
+      dt("slew total", num(part.slewSeconds(), 0) + " s");
+      dt("observing", num(totals(part)[2], 0) + " s of exposure");
+      b.append("</dl>\n<h4>Constraints in force</h4>\n");
+      constraintsTable("constraints-" + p.fileName(), p.scenario(), p.resource());
+      observerCharts(g, p);
+      b.append("</section>\n");
     }
     b.append("</section>\n");
   }
 
-  private void chart(String id, String caption, org.jfree.chart.JFreeChart chart, int w, int h) {
+  private void chart(String id, String caption, JFreeChart chart, int w, int h) {
     b.append("<figure>").append(ChartFiles.svgInline(chart, w, h, id)).append("<figcaption>").append(esc(caption))
         .append("</figcaption></figure>\n");
     charts++;
@@ -337,12 +439,18 @@ public final class NightReport {
   // ------------------------------------------------------------------ tables
 
   private void observations() {
-    boolean site = sky != null && sky.atGroundSite();
+    boolean site = sky != null && sky.atGroundSite() || skies.values().stream().anyMatch(SkyValues::atGroundSite);
+    boolean several = !plans.isEmpty();
     b.append("<section id=\"observations\"><h2>Observations</h2>\n<p class=\"hint\">Click a column to sort (again to "
-        + "reverse). Airmass and elevation are at the site, refracted as the constraints use them; the Moon "
-        + "separation is from the observer along the apparent line of sight.</p>\n");
+        + "reverse). Airmass and elevation are at the site").append(several ? " of the observation's resource" : "")
+        .append(", refracted as the constraints use them; the Moon separation is from the observer along the apparent "
+        + "line of sight.</p>\n");
     b.append("<table class=\"sortable\" id=\"observations-table\"><thead><tr>");
-    List<String> heads = new ArrayList<>(List.of("#", "id", "start (UTC)", "end (UTC)", "target", "priority", "required"));
+    List<String> heads = new ArrayList<>(List.of("#", "id"));
+    if (several) {
+      heads.add("resource");
+    }
+    heads.addAll(List.of("start (UTC)", "end (UTC)", "target", "priority", "required"));
     if (site) {
       heads.addAll(List.of("airmass at start", "airmass at end", "elevation at start [\u00b0]", "LST at start"));
     }
@@ -353,21 +461,27 @@ public final class NightReport {
     for (Observation o : t().observations()) {
       k++;
       Request r = s().request(o.id()).orElse(null);
-      b.append("<tr>").append(cell(Integer.toString(k), Integer.toString(k))).append(cell(esc(o.id()), o.id()))
-          .append(cell(HMS.format(o.start()), o.start().toString())).append(cell(HMS.format(o.end()), o.end().toString()))
+      SkyValues at = several ? skies.get(o.resource()) : sky;
+      b.append("<tr>").append(cell(Integer.toString(k), Integer.toString(k))).append(cell(esc(o.id()), o.id()));
+      if (several) {
+        String res = o.resource() == null ? "" : o.resource();
+        b.append(cell(esc(res), res));
+      }
+      b.append(cell(HMS.format(o.start()), o.start().toString())).append(cell(HMS.format(o.end()), o.end().toString()))
           .append(cell(esc(targetText(r)), targetText(r)))
           .append(cell(r == null || r.priority() == null ? "\u2013" : num(r.priority(), 2),
               r == null || r.priority() == null ? "" : Double.toString(r.priority())))
           .append(cell(r != null && r.required() ? "required" : "", r != null && r.required() ? "1" : "0"));
       if (site) {
-        double x0 = r == null ? Double.NaN : sky.airmass(r, o.start());
-        double x1 = r == null ? Double.NaN : sky.airmass(r, o.end());
-        double el = r == null ? Double.NaN : sky.elevationDeg(r, o.start());
-        double lst = sky.localSiderealTimeH(o.start());
+        boolean ground = at != null && at.atGroundSite();
+        double x0 = r == null || !ground ? Double.NaN : at.airmass(r, o.start());
+        double x1 = r == null || !ground ? Double.NaN : at.airmass(r, o.end());
+        double el = r == null || !ground ? Double.NaN : at.elevationDeg(r, o.start());
+        double lst = !ground ? Double.NaN : at.localSiderealTimeH(o.start());
         b.append(cell(num(x0, 3), key(x0))).append(cell(num(x1, 3), key(x1))).append(cell(num(el, 2), key(el)))
             .append(cell(hms(lst), key(lst)));
       }
-      double moon = r == null || sky == null ? Double.NaN : sky.moonSeparationDeg(r, o.start());
+      double moon = r == null || at == null ? Double.NaN : at.moonSeparationDeg(r, o.start());
       b.append(cell(num(moon, 1), key(moon))).append(cell(num(o.slewSeconds(), 1), key(o.slewSeconds())))
           .append(cell(num(o.durationS(), 0), key(o.durationS()))).append("</tr>\n");
     }
@@ -404,41 +518,63 @@ public final class NightReport {
   }
 
   private void passes() {
-    if (sky == null || !sky.atGroundSite()) {
-      return;
-    }
     List<Request> tle = s().requests().stream().filter(r -> r.target() instanceof OrbitingTarget).toList();
-    if (tle.isEmpty()) {
+    // the one observer, or each resource (A6) at a ground site, with its id and the requests it may observe
+    List<ResourcePlan> at = plans.stream().filter(p -> skies.containsKey(p.id()) && skies.get(p.id()).atGroundSite())
+        .toList();
+    if (tle.isEmpty() || (plans.isEmpty() ? sky == null || !sky.atGroundSite() : at.isEmpty())) {
       return;
     }
+    boolean several = !plans.isEmpty();
     Double elMin = s().constraints().elevationMinDeg();
     b.append("<section id=\"passes\"><h2>Passes of the orbiting targets</h2>\n<p class=\"hint\">Rise and set at the "
         + "geometric horizon (0\u00b0, no refraction, no mask), culmination at the highest geometric elevation; "
         + "from the TLE by SGP4.").append(elMin == null ? "" : " The scenario asks for at least " + num(elMin, 1)
-        + "\u00b0 to observe.").append("</p>\n<table class=\"sortable\" id=\"passes-table\"><thead><tr>");
-    for (String hd : List.of("request", "object", "pass", "rise (UTC)", "culmination (UTC)", "max elevation [\u00b0]",
-        "set (UTC)", "scheduled")) {
-      b.append("<th>").append(esc(hd)).append("</th>");
+        + "\u00b0 to observe.").append(several ? " One row per pass and resource; \"scheduled\": observed on that "
+        + "resource during the pass." : "").append("</p>\n<table class=\"sortable\" id=\"passes-table\"><thead><tr>");
+    List<String> heads = new ArrayList<>(List.of("request"));
+    if (several) {
+      heads.add("resource");
     }
+    heads.addAll(List.of("object", "pass", "rise (UTC)", "culmination (UTC)", "max elevation [\u00b0]", "set (UTC)",
+        "scheduled"));
+    heads.forEach(hd -> b.append("<th>").append(esc(hd)).append("</th>"));
     b.append("</tr></thead>\n<tbody>\n");
     for (Request r : tle) {
-      int k = 0;
-      for (SkyValues.Pass p : sky.passes(r, 0.0)) {
-        k++;
-        boolean observed = t().observations().stream().anyMatch(o -> o.id().equals(r.id())
-            && !o.end().isBefore(p.rise()) && !o.start().isAfter(p.set()));
-        b.append("<tr>").append(cell(esc(r.id()), r.id())).append(cell(esc(targetText(r)), targetText(r)))
-            .append(cell(Integer.toString(k), Integer.toString(k)))
-            .append(cell(HMS.format(p.rise()) + (p.risesBeforeHorizon() ? " (up at the horizon start)" : ""),
-                p.rise().toString()))
-            .append(cell(HMS.format(p.culmination()), p.culmination().toString()))
-            .append(cell(num(p.culminationElevationDeg(), 2), key(p.culminationElevationDeg())))
-            .append(cell(HMS.format(p.set()) + (p.setsAfterHorizon() ? " (still up at the horizon end)" : ""),
-                p.set().toString()))
-            .append(cell(observed ? "yes" : "", observed ? "1" : "0")).append("</tr>\n");
+      if (several) {
+        for (ResourcePlan p : at) {
+          if (r.allows(p.id())) {
+            passRows(r, p.id(), skies.get(p.id()), p.timeline());
+          }
+        }
+      } else {
+        passRows(r, null, sky, t());
       }
     }
     b.append("</tbody></table>\n</section>\n");
+  }
+
+  /** The rows of {@code r}'s passes seen with {@code here} ({@code resource} null: the one observer's). */
+  private void passRows(Request r, String resource, SkyValues here, Timeline part) {
+    int k = 0;
+    for (SkyValues.Pass p : here.passes(r, 0.0)) {
+      k++;
+      boolean observed = part.observations().stream().anyMatch(o -> o.id().equals(r.id())
+          && !o.end().isBefore(p.rise()) && !o.start().isAfter(p.set()));
+      b.append("<tr>").append(cell(esc(r.id()), r.id()));
+      if (resource != null) {
+        b.append(cell(esc(resource), resource));
+      }
+      b.append(cell(esc(targetText(r)), targetText(r)))
+          .append(cell(Integer.toString(k), Integer.toString(k)))
+          .append(cell(HMS.format(p.rise()) + (p.risesBeforeHorizon() ? " (up at the horizon start)" : ""),
+              p.rise().toString()))
+          .append(cell(HMS.format(p.culmination()), p.culmination().toString()))
+          .append(cell(num(p.culminationElevationDeg(), 2), key(p.culminationElevationDeg())))
+          .append(cell(HMS.format(p.set()) + (p.setsAfterHorizon() ? " (still up at the horizon end)" : ""),
+              p.set().toString()))
+          .append(cell(observed ? "yes" : "", observed ? "1" : "0")).append("</tr>\n");
+    }
   }
 
   private void unscheduled() {
@@ -463,28 +599,9 @@ public final class NightReport {
 
   private void constraints() {
     b.append("<section id=\"constraints\"><h2>Constraints in force</h2>\n");
-    b.append("<h3>").append(esc(resourceName())).append("</h3>\n<table id=\"constraints-table\"><thead><tr><th>field</th>"
-        + "<th>value</th></tr></thead><tbody>\n");
-    Constraints c = s().constraints();
-    int shown = 0;
-    for (ConstraintField f : ConstraintField.values()) {
-      Object v = f.valueIn(c);
-      if (v != null) {
-        b.append("<tr><td>").append(esc(f.key())).append("</td><td>").append(esc(v.toString())).append("</td></tr>\n");
-        shown++;
-      }
-    }
-    if (s().observer() instanceof GroundSite g) {
-      b.append("<tr><td>horizon mask</td><td>").append(g.horizonMask().isEmpty() ? "none" : esc(mask(g)))
-          .append("</td></tr>\n");
-      b.append("<tr><td>refraction</td><td>").append(g.refraction() == null ? "none (geometric elevations)"
-          : esc(g.refraction().toString())).append("</td></tr>\n");
-    }
-    b.append("<tr><td>slew</td><td>").append(esc(slewText(s().slew()))).append("</td></tr>\n");
-    b.append("</tbody></table>\n");
-    if (shown == 0) {
-      b.append("<p>The scenario sets no constraint fields: only the observer's geometry limits visibility.</p>\n");
-    }
+    b.append("<h3>").append(esc(plans.isEmpty() ? observerName(s()) : "every resource (a resource's own fields replace "
+        + "these: see its section under Resources)")).append("</h3>\n");
+    constraintsTable("constraints-table", s(), null);
     List<Request> own = s().requests().stream().filter(r -> !r.constraints().equals(
         dev.sequencer.model.ConstraintOverrides.none())).toList();
     if (!own.isEmpty()) {
@@ -503,6 +620,47 @@ public final class NightReport {
       b.append("</ul>\n");
     }
     b.append("</section>\n");
+  }
+
+  /**
+   * The table of the constraint fields in force in {@code view}, its horizon mask and refraction at a ground
+   * site and its slew model (not for the top level of a scenario with resources, whose slew is unused); for a
+   * {@code resource} (A6) a column says whether each value is the resource's own or the scenario's, and the
+   * fields the resource removes are listed as removed.
+   */
+  private void constraintsTable(String id, Scenario view, Resource resource) {
+    b.append("<table id=\"").append(esc(id)).append("\"><thead><tr><th>field</th><th>value</th>")
+        .append(resource == null ? "" : "<th>from</th>").append("</tr></thead><tbody>\n");
+    Constraints c = view.constraints();
+    int shown = 0;
+    for (ConstraintField f : ConstraintField.values()) {
+      Object v = f.valueIn(c);
+      boolean removed = resource != null && resource.constraints().removed().contains(f);
+      if (v != null || removed) {
+        b.append("<tr><td>").append(esc(f.key())).append("</td><td>")
+            .append(esc(removed ? "none (removed by this resource)" : v.toString())).append("</td>")
+            .append(resource == null ? "" : "<td>" + (resource.constraints().mentions(f) ? "resource" : "scenario")
+                + "</td>").append("</tr>\n");
+        shown++;
+      }
+    }
+    String blank = resource == null ? "" : "<td></td>";
+    if (view.observer() instanceof GroundSite g) {
+      b.append("<tr><td>horizon mask</td><td>").append(g.horizonMask().isEmpty() ? "none" : esc(mask(g)))
+          .append("</td>").append(blank).append("</tr>\n");
+      b.append("<tr><td>refraction</td><td>").append(g.refraction() == null ? "none (geometric elevations)"
+          : esc(g.refraction().toString())).append("</td>").append(blank).append("</tr>\n");
+    }
+    if (!view.hasResources()) {
+      b.append("<tr><td>slew</td><td>").append(esc(slewText(view.slew()))).append("</td>").append(blank)
+          .append("</tr>\n");
+    }
+    b.append("</tbody></table>\n");
+    if (shown == 0) {
+      b.append(resource == null ? "<p>The scenario sets no constraint fields: only the observer's geometry limits "
+          + "visibility.</p>\n" : "<p>No constraint fields apply to this resource: only its observer's geometry limits "
+          + "visibility.</p>\n");
+    }
   }
 
   private static String mask(GroundSite g) {

@@ -22,6 +22,7 @@ import java.nio.file.Files;
 import java.nio.file.Path;
 import javax.imageio.ImageIO;
 import javax.xml.parsers.DocumentBuilderFactory;
+import org.jfree.chart.ChartHints;
 import org.junit.jupiter.api.Test;
 import org.junit.jupiter.api.io.TempDir;
 import org.w3c.dom.Document;
@@ -91,6 +92,34 @@ class SvgGraphicsTest {
     assertEquals("2", p.getAttribute("stroke-dashoffset"));
     assertEquals("round", p.getAttribute("stroke-linecap"));
     assertEquals("bevel", p.getAttribute("stroke-linejoin"));
+  }
+
+  @Test
+  void elementHintsBecomeNestedGroupsAroundWhatIsDrawnBetweenThem() throws Exception {
+    SvgGraphics g = new SvgGraphics(200, 100);
+    g.setRenderingHint(ChartHints.KEY_BEGIN_ELEMENT, java.util.Map.of("class", "lane-group", "data-resource", "a&b"));
+    g.fillRect(0, 0, 10, 10);
+    g.setRenderingHint(ChartHints.KEY_BEGIN_ELEMENT, java.util.Map.of("ref", "{\"k\": 1}"));
+    g.fillRect(20, 0, 10, 10);
+    g.setRenderingHint(ChartHints.KEY_END_ELEMENT, Boolean.TRUE);
+    g.setRenderingHint(ChartHints.KEY_END_ELEMENT, Boolean.TRUE);
+    g.fillRect(40, 0, 10, 10); // outside every group
+    g.setRenderingHint(ChartHints.KEY_BEGIN_ELEMENT, "left-open");
+    g.fillRect(60, 0, 10, 10);
+    Document d = parse(g.document());
+    NodeList groups = d.getElementsByTagNameNS("http://www.w3.org/2000/svg", "g");
+    assertEquals(3, groups.getLength());
+    Element outer = (Element) groups.item(0);
+    assertEquals("lane-group", outer.getAttribute("class"));
+    assertEquals("a&b", outer.getAttribute("data-resource"));
+    Element inner = (Element) groups.item(1);
+    assertEquals(outer, inner.getParentNode(), "the second group is inside the first");
+    assertEquals("{\"k\": 1}", inner.getAttribute("data-ref"), "a key of no SVG meaning gets data- before it");
+    assertEquals(2, outer.getElementsByTagNameNS("http://www.w3.org/2000/svg", "path").getLength());
+    assertEquals("left-open", ((Element) groups.item(2)).getAttribute("id"), "a string names the group");
+    assertEquals("svg", ((Element) groups.item(2)).getParentNode().getLocalName(), "closed before the third");
+    assertEquals(4, d.getElementsByTagNameNS("http://www.w3.org/2000/svg", "path").getLength());
+    assertEquals(null, g.getRenderingHint(ChartHints.KEY_BEGIN_ELEMENT), "not kept as a hint");
   }
 
   @Test

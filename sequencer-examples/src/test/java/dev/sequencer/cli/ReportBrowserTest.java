@@ -162,6 +162,44 @@ class ReportBrowserTest {
   }
 
   @Test
+  void networkReportShowsEachResourceWithItsChartsWithoutConsoleErrors(@TempDir Path dir) throws Exception {
+    needBrowser();
+    // Two invented telescope sites sharing one queue (format addition A6).
+    Timeline t = planWithReport(bundled("network-two-sites-night.json", dir), dir, "network");
+    Path html = dir.resolve("network.html");
+    assertSelfContained(Files.readString(html));
+    Page page = open(html, null, null);
+    assertEquals(List.of(), page.console(), "console messages");
+    assertTrue(page.dom().contains("data-ready=\"yes\""), "the report's script did not run to its end");
+    assertEquals(t.observations().size(), count(tbody(page.dom(), "observations-table"), "<tr>"), "observation rows");
+    assertEquals(t.unscheduled().size(), count(tbody(page.dom(), "unscheduled-table"), "<tr>"), "unscheduled rows");
+    // lanes and timeline, then each site's night and sky charts
+    assertEquals(6, count(page.dom(), "<svg[^>]*class=\"chart"), "charts");
+    assertTrue(page.dom().contains("Plans are advisory"), "the caution");
+    for (String res : List.of("desert-1m", "plateau-60cm")) {
+      long mine = t.observations().stream().filter(o -> res.equals(o.resource())).count();
+      int at = page.dom().indexOf("<section class=\"resource\" id=\"resource-" + res + "\"");
+      assertTrue(at >= 0, res + ": its section");
+      String section = page.dom().substring(at, page.dom().indexOf("</section>", at));
+      assertEquals(mine, count(section, "<g class=\"observation-start\""), res + ": markers on its sky chart");
+      assertEquals(2, count(section, "<svg[^>]*class=\"chart"), res + ": its night and sky charts");
+      assertTrue(mine > 0 && section.contains("<dd>" + mine + " scheduled on it"), res + ": its count");
+    }
+    // Sorted on load by the 3rd column, the resource: all of the first site's rows, then the second's.
+    Page sorted = open(html, "#sort=3", null);
+    assertEquals(List.of(), sorted.console());
+    Matcher m = Pattern.compile("<tr><td data-v=\"\\d+\">\\d+</td><td[^>]*>[^<]*</td><td data-v=\"([^\"]*)\"")
+        .matcher(tbody(sorted.dom(), "observations-table"));
+    List<String> resources = new ArrayList<>();
+    while (m.find()) {
+      resources.add(m.group(1));
+    }
+    assertEquals(t.observations().stream().map(o -> o.resource()).sorted().toList(), resources, "sorted by resource");
+    open(html, null, "network-two-sites-night.png");
+    assertTrue(Files.size(SCREENS.resolve("network-two-sites-night.png")) > 10_000, "screenshot written");
+  }
+
+  @Test
   void stationReportHasAPassTableForEveryTleObject(@TempDir Path dir) throws Exception {
     needBrowser();
     Path scenario = bundled("satellite-tracking-night.json", dir);

@@ -13,10 +13,17 @@ import java.nio.file.Files;
 import java.nio.file.Path;
 import java.time.Instant;
 import java.util.List;
+import javax.xml.parsers.DocumentBuilderFactory;
 import org.junit.jupiter.api.Test;
 import org.junit.jupiter.api.io.TempDir;
+import org.w3c.dom.Document;
+import org.w3c.dom.Element;
+import org.w3c.dom.NodeList;
 
-/** The command line on the bundled two-site network (format addition A6): plan, CSV, check, windows, inspect and replan. */
+/**
+ * The command line on the bundled two-site network (format addition A6): plan, CSV, check, windows, inspect and
+ * replan, and the pictures of {@code --plot}.
+ */
 class ResourcesCliTest {
   private static final Path NETWORK = Path.of("src/main/resources/scenarios/network-two-sites-night.json");
 
@@ -106,5 +113,62 @@ class ResourcesCliTest {
     assertEquals(2, bad.code(), bad::all);
     assertTrue(bad.err().contains("--unavailable") && bad.err().contains("\"west-2m\""), bad::all);
     Runs.assertNoStackTrace(bad);
+  }
+
+  @Test
+  void plotDrawsTheLaneGroupsAndASkyChartPerResource(@TempDir Path dir) throws Exception {
+    Path timeline = dir.resolve("t.json");
+    String prefix = dir.resolve("net").toString();
+    CliTest.Run r = run("plan", NETWORK.toString(), "--solver", "greedy", "--time-limit", "15", "-o", timeline.toString(),
+        "--plot", prefix);
+    assertEquals(0, r.code(), r.err());
+    List<String> files = List.of("net-timeline.png", "net-timeline.svg", "net-sky-desert-1m.png", "net-sky-desert-1m.svg",
+        "net-sky-plateau-60cm.png", "net-sky-plateau-60cm.svg");
+    for (String f : files) {
+      assertTrue(r.out().contains("wrote " + dir.resolve(f)), f + " reported: " + r.out());
+      assertTrue(Files.size(dir.resolve(f)) > 1000, f);
+    }
+    try (var listed = Files.list(dir)) {
+      assertEquals(files.size(), listed.filter(f -> f.getFileName().toString().startsWith("net-")).count(),
+          "no sky chart of the whole scenario, which has no site");
+    }
+    JsonNode t = new ObjectMapper().readTree(timeline.toFile());
+    for (String res : List.of("desert-1m", "plateau-60cm")) {
+      long observed = 0;
+      for (JsonNode o : t.get("observations")) {
+        observed += res.equals(o.get("resource").textValue()) ? 1 : 0;
+      }
+      Document sky = svg(dir.resolve("net-sky-" + res + ".svg"));
+      assertTrue(observed > 0, res);
+      assertEquals(observed, groups(sky, "observation-start"), res + ": one marker per observation on it");
+    }
+    Document tl = svg(dir.resolve("net-timeline.svg"));
+    assertEquals(2, groups(tl, "lane-group"), "a lane group per resource");
+    assertEquals(t.get("observations").size(), groups(tl, "observation"));
+  }
+
+  @Test
+  void plotPrefixIsCheckedForEveryResourceFileBeforeTheRun(@TempDir Path dir) throws Exception {
+    // A folder where the second resource's sky chart would go: refused before any work, naming that file.
+    Path blocker = Files.createDirectory(dir.resolve("net-sky-plateau-60cm.svg"));
+    CliTest.Run r = run("plan", NETWORK.toString(), "--solver", "greedy", "--plot", dir.resolve("net").toString());
+    assertEquals(2, r.code(), r.out() + r.err());
+    assertTrue(r.err().contains("--plot: cannot write " + blocker + ": it is a folder"), r.err());
+  }
+
+  private static Document svg(Path file) throws Exception {
+    DocumentBuilderFactory f = DocumentBuilderFactory.newInstance();
+    f.setNamespaceAware(true);
+    return f.newDocumentBuilder().parse(file.toFile());
+  }
+
+  /** How many {@code <g>} elements of this class. */
+  private static long groups(Document d, String cls) {
+    NodeList l = d.getElementsByTagNameNS("http://www.w3.org/2000/svg", "g");
+    long n = 0;
+    for (int i = 0; i < l.getLength(); i++) {
+      n += cls.equals(((Element) l.item(i)).getAttribute("class")) ? 1 : 0;
+    }
+    return n;
   }
 }
