@@ -34,10 +34,15 @@ import org.junit.jupiter.params.provider.ValueSource;
 class NightReportResourcesTest {
   private static final Pattern CELL = Pattern.compile("<td data-v=\"([^\"]*)\">");
 
+  /** Reports built so far, by file: each scenario's report is built once per test run (it is read, not changed). */
+  private static final Map<String, String> REPORTS = new java.util.concurrent.ConcurrentHashMap<>();
+
   static String report(String file) {
-    NetworkPlans.Planned p = NetworkPlans.of(file);
-    return NightReport.html(new NightReport.Input(p.scenario(), p.timeline(), List.of(), null, List.of(), Map.of(),
-        ZoneId.of("UTC"), null, List.of(), p.windowsByResource()), NetworkPlans.CTX);
+    return REPORTS.computeIfAbsent(file, f -> {
+      NetworkPlans.Planned p = NetworkPlans.of(f);
+      return NightReport.html(new NightReport.Input(p.scenario(), p.timeline(), List.of(), null, List.of(), Map.of(),
+          ZoneId.of("UTC"), null, List.of(), p.windowsByResource()), NetworkPlans.CTX);
+    });
   }
 
   /** The text between {@code from} (included) and the next {@code to} after it. */
