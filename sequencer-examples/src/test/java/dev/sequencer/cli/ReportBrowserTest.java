@@ -129,20 +129,29 @@ class ReportBrowserTest {
     assertFalse(html.contains("@import") || html.contains("@font-face") || html.contains("url(http"));
   }
 
-  @Test
-  void demoNightReportShowsEveryRowAndChartWithoutConsoleErrors(@TempDir Path dir) throws Exception {
-    needBrowser();
-    Timeline t = planWithReport(bundled("demo-night.json", dir), dir, "demo");
-    Path html = dir.resolve("demo.html");
+  /**
+   * Opens the report and checks what every report shows: self-contained, no console message, the script ran to
+   * its end, a row per observation and per unscheduled request of {@code t}, {@code charts} charts, the caution.
+   */
+  private static Page openAndCheck(Path html, Timeline t, int charts) throws Exception {
     assertSelfContained(Files.readString(html));
     Page page = open(html, null, null);
     assertEquals(List.of(), page.console(), "console messages");
     assertTrue(page.dom().contains("data-ready=\"yes\""), "the report's script did not run to its end");
     assertEquals(t.observations().size(), count(tbody(page.dom(), "observations-table"), "<tr>"), "observation rows");
     assertEquals(t.unscheduled().size(), count(tbody(page.dom(), "unscheduled-table"), "<tr>"), "unscheduled rows");
-    // lanes, timeline, night, sky: four charts at a ground site
-    assertEquals(4, count(page.dom(), "<svg[^>]*class=\"chart"), "charts");
+    assertEquals(charts, count(page.dom(), "<svg[^>]*class=\"chart"), "charts");
     assertTrue(page.dom().contains("Plans are advisory"), "the caution");
+    return page;
+  }
+
+  @Test
+  void demoNightReportShowsEveryRowAndChartWithoutConsoleErrors(@TempDir Path dir) throws Exception {
+    needBrowser();
+    Timeline t = planWithReport(bundled("demo-night.json", dir), dir, "demo");
+    Path html = dir.resolve("demo.html");
+    // lanes, timeline, night, sky: four charts at a ground site
+    Page page = openAndCheck(html, t, 4);
     assertFalse(page.dom().contains("id=\"passes\""), "no pass table without orbiting targets");
     // Sorted on load by the 6th column (priority), descending, as a click on its header does.
     Page sorted = open(html, "#sort=-6", null);
@@ -167,15 +176,8 @@ class ReportBrowserTest {
     // Two invented telescope sites sharing one queue (format addition A6).
     Timeline t = planWithReport(bundled("network-two-sites-night.json", dir), dir, "network");
     Path html = dir.resolve("network.html");
-    assertSelfContained(Files.readString(html));
-    Page page = open(html, null, null);
-    assertEquals(List.of(), page.console(), "console messages");
-    assertTrue(page.dom().contains("data-ready=\"yes\""), "the report's script did not run to its end");
-    assertEquals(t.observations().size(), count(tbody(page.dom(), "observations-table"), "<tr>"), "observation rows");
-    assertEquals(t.unscheduled().size(), count(tbody(page.dom(), "unscheduled-table"), "<tr>"), "unscheduled rows");
     // lanes and timeline, then each site's night and sky charts
-    assertEquals(6, count(page.dom(), "<svg[^>]*class=\"chart"), "charts");
-    assertTrue(page.dom().contains("Plans are advisory"), "the caution");
+    Page page = openAndCheck(html, t, 6);
     for (String res : List.of("desert-1m", "plateau-60cm")) {
       long mine = t.observations().stream().filter(o -> res.equals(o.resource())).count();
       int at = page.dom().indexOf("<section class=\"resource\" id=\"resource-" + res + "\"");
