@@ -28,31 +28,6 @@ public final class InputRules {
   }
 
   /**
-   * Re-planning does not yet carry visits and groups (A4, A5) across the re-planning instant (what a done
-   * visit or a half-done chain leaves the rest of the night): such a scenario is refused with the path of
-   * the first visits or group, instead of a re-plan that could break their rules.
-   */
-  public static void checkReplannable(Scenario s, String source) {
-    List<Problem> problems = new ArrayList<>();
-    for (int i = 0; i < s.requests().size(); i++) {
-      Request r = s.requests().get(i);
-      if (r.hasVisits()) {
-        problems.add(new Problem("requests[" + i + "] (id \"" + r.id() + "\").visits",
-            "re-planning does not take requests with visits yet; plan the rest of the night as a new scenario",
-            Integer.toString(r.visits().count())));
-        break;
-      }
-    }
-    if (!s.groups().isEmpty()) {
-      problems.add(new Problem("groups[0] (id \"" + s.groups().get(0).id() + "\")",
-          "re-planning does not take groups yet; plan the rest of the night as a new scenario", s.groups().get(0).id()));
-    }
-    if (!problems.isEmpty()) {
-      throw new ScenarioException(source, problems);
-    }
-  }
-
-  /**
    * Several resources (A6) are planned without visits and groups so far (the first slice of the model):
    * a scenario with resources and either is refused with the path of the first one, instead of a plan
    * that could break their rules.

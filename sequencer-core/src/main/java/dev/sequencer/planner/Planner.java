@@ -225,7 +225,6 @@ public final class Planner {
       Set<String> failed, ReplanOptions options) {
     Budget clock = Budget.startingNow(options.sequencer().timeLimitS());
     InputRules.check(s, "scenario");
-    InputRules.checkReplannable(s, "scenario");
     InputRules.checkResources(s, "scenario");
     preloadSolver();
     Geometry g = geometry(s, ctx);

@@ -261,6 +261,41 @@ public final class FuzzScenarios {
   }
 
   /**
+   * A copy with the rules people write on top (format additions A4, A5): one request in four with 2–3 visits
+   * (separations of 0–60 min, a maximum one time in three, one per window one time in three, all or nothing
+   * one time in four), and up to two groups over requests without visits: one all or nothing, one ordered
+   * (a maximum gap one time in three). A request is in at most one group.
+   */
+  public static Scenario withStructure(Scenario s, Random rnd) {
+    List<Request> requests = new ArrayList<>();
+    for (Request q : s.requests()) {
+      if (rnd.nextInt(4) == 0) {
+        double min = 300 * rnd.nextInt(13);
+        Double max = rnd.nextInt(3) == 0 ? min + 1800 + 300 * rnd.nextInt(24) : null;
+        requests.add(q.withVisits(new dev.sequencer.model.Visits(2 + rnd.nextInt(2), min, max, rnd.nextInt(3) == 0,
+            rnd.nextInt(4) == 0)));
+      } else {
+        requests.add(q);
+      }
+    }
+    List<String> plain = new ArrayList<>(requests.stream().filter(q -> !q.hasVisits()).map(Request::id).toList());
+    java.util.Collections.shuffle(plain, rnd);
+    List<dev.sequencer.model.Group> groups = new ArrayList<>();
+    if (plain.size() >= 2 && rnd.nextBoolean()) {
+      groups.add(new dev.sequencer.model.Group("ALL", List.copyOf(plain.subList(0, 2)), true, false, null, false));
+      plain = plain.subList(2, plain.size());
+    }
+    if (plain.size() >= 2) {
+      int n = Math.min(plain.size(), 2 + rnd.nextInt(2));
+      groups.add(new dev.sequencer.model.Group("CHAIN", List.copyOf(plain.subList(0, n)), rnd.nextBoolean(), true,
+          rnd.nextInt(3) == 0 ? 600.0 + 300 * rnd.nextInt(12) : null, false));
+    }
+    return new Scenario(s.format(), s.name() + " with visits and groups", s.horizon(), s.observer(), s.constraints(),
+        s.slew(), s.startPointing(), requests, s.solver(), groups, s.reconfiguration(), s.startConfiguration(),
+        s.resources());
+  }
+
+  /**
    * The same requests on 2 or 3 resources (format addition A6): the scenario's own observer, slew model and
    * start pointing as the first; the others a ground site moved by a few degrees (a network: other sky,
    * a night shifted by up to an hour) with a stricter elevation minimum, or for a spacecraft a twin on the

@@ -174,11 +174,17 @@ class PlannerFuzzProperties {
       return;
     }
     long span = Duration.between(obs.get(0).start(), obs.get(obs.size() - 1).end()).getSeconds();
-    Instant now = obs.get(0).start().plusSeconds((long) (rnd.nextDouble() * span));
+    replan(s, plan, base, rnd, what, obs.get(0).start().plusSeconds((long) (rnd.nextDouble() * span)));
+  }
+
+  /** As {@link #replan(Scenario, Timeline, SequencerOptions, Random, String)} at the given instant. */
+  static void replan(Scenario s, Timeline plan, SequencerOptions base, Random rnd, String what, Instant now) {
+    List<Observation> obs = plan.observations();
     Set<String> done = new LinkedHashSet<>();
     Set<String> failed = new LinkedHashSet<>();
     for (Observation o : obs) {
-      if (o.start().isBefore(now)) {
+      // A request with visits appears several times: its id goes in one list at most.
+      if (o.start().isBefore(now) && !failed.contains(o.id()) && !done.contains(o.id())) {
         if (rnd.nextInt(4) == 0) {
           failed.add(o.id());
         } else if (!o.end().isAfter(now) || rnd.nextBoolean()) {
@@ -191,12 +197,21 @@ class PlannerFuzzProperties {
     ReplanOptions o = ReplanOptions.defaults().withSequencer(base).withDropFailed(rnd.nextBoolean())
         .withUnavailable(lost);
     String at = what + ": re-plan at " + now + (lost.isEmpty() ? "" : " with " + lost + " lost");
-    ReplanResult r = Planner.replan(s, CTX, plan, now, done, failed, o).result();
+    ReplanResult r;
+    try {
+      r = Planner.replan(s, CTX, plan, now, done, failed, o).result();
+    } catch (dev.sequencer.io.ScenarioException e) {
+      // The one case the re-planner refuses by design: an ordered group with maxGapS part done.
+      assertTrue(e.getMessage().contains("ordered with maxGapS and part done"), at + ": " + e.getMessage());
+      return;
+    }
     if (r.hasPlan()) {
-      Set<String> seen = new java.util.HashSet<>();
+      java.util.Map<String, Integer> seen = new java.util.HashMap<>();
       for (Observation x : r.timeline().observations()) {
-        assertTrue(seen.add(x.id()), at + ": " + x.id() + " observed twice");
-        if (done.contains(x.id())) {
+        int n = seen.merge(x.id(), 1, Integer::sum);
+        assertTrue(n <= s.request(x.id()).orElseThrow().visits().count(), at + ": " + x.id() + " observed " + n
+            + " times");
+        if (done.contains(x.id()) && x.start().isBefore(now)) {
           assertEquals(Observation.DONE, x.state(), at + ": lost done " + x.id());
         }
         if (Observation.PLANNED.equals(x.state())) {
@@ -205,7 +220,7 @@ class PlannerFuzzProperties {
         }
       }
       for (String id : done) {
-        assertTrue(seen.contains(id), at + ": done " + id + " missing");
+        assertTrue(seen.containsKey(id), at + ": done " + id + " missing");
       }
     }
   }

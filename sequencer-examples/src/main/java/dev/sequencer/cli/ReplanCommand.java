@@ -53,10 +53,12 @@ final class ReplanCommand implements Callable<Integer> {
       + "UTC (2031-05-04T23:10:00Z).")
   String now;
 
-  @Option(names = "--done", split = ",", paramLabel = "ID", description = "Observations that completed.")
+  @Option(names = "--done", split = ",", paramLabel = "ID", description = "Observations that completed (for a "
+      + "request with visits: its last visit started before --now).")
   List<String> done = List.of();
 
-  @Option(names = "--failed", split = ",", paramLabel = "ID", description = "Observations that failed or were aborted.")
+  @Option(names = "--failed", split = ",", paramLabel = "ID", description = "Observations that failed or were "
+      + "aborted (for a request with visits: its last visit started before --now).")
   List<String> failed = List.of();
 
   @Option(names = "--unavailable", split = ",", paramLabel = "RESOURCE", description = "Resources out of service "

@@ -12,6 +12,7 @@ import dev.sequencer.model.Timeline;
 import java.nio.file.Files;
 import java.nio.file.Path;
 import java.time.Instant;
+import java.util.List;
 import org.junit.jupiter.api.Test;
 import org.junit.jupiter.api.io.TempDir;
 
@@ -103,5 +104,40 @@ class ReplanCliTest {
       assertTrue(r.out().contains(o), o);
     }
     assertTrue(Files.exists(DEMO));
+  }
+
+  @Test
+  void replanOfTheCadenceNightInsideAChainAndBetweenVisitsKeepsTheirRules(@TempDir Path dir) {
+    // The bundled cadence night: ordered all-or-nothing chains with maxGapS 600 (calibrator, field, calibrator),
+    // three visits at least 40 min apart, all or nothing for F001. Re-planned while the first calibrator of a
+    // chain runs, and after F001's first visit: the chain's rest and F001's other visits are then owed.
+    Path cadence = Path.of("src/main/resources/scenarios/cadence-queue-night.json");
+    Path tl = dir.resolve("t.json");
+    Runs.Run plan = Runs.run("plan", cadence.toString(), "--solver", "greedy", "-o", tl.toString());
+    assertEquals(0, plan.code(), plan::all);
+    Timeline prev = TimelineFile.read(tl);
+    for (String id : List.of("CAL1A", "F001")) {
+      Observation first = prev.observations().stream().filter(o -> o.id().equals(id)).findFirst().orElseThrow();
+      Instant now = id.equals("F001") ? first.end().plusSeconds(60) : first.start().plusSeconds(30);
+      Path out = dir.resolve("r-" + id + ".json");
+      Runs.Run r = Runs.run("replan", cadence.toString(), "--previous", tl.toString(), "--now", now.toString(),
+          "--time-limit", "4", "--workers", "2", "-o", out.toString());
+      assertEquals(0, r.code(), r::all);
+      Timeline t = TimelineFile.read(out);
+      List<Observation> mine = t.observations().stream().filter(o -> o.id().equals(id)).toList();
+      assertEquals(id.equals("F001") ? Observation.DONE : Observation.RUNNING, mine.get(0).state(), r.out());
+      if (id.equals("F001")) {
+        assertEquals(3, mine.size(), "all or nothing: once begun, every visit: " + r.out());
+        for (int v = 0; v < 3; v++) {
+          assertEquals(v + 1, mine.get(v).visit(), "visits numbered in time order");
+        }
+      } else {
+        List<String> chain = t.observations().stream().map(Observation::id)
+            .filter(x -> List.of("CAL1A", "F005", "CAL1B").contains(x)).toList();
+        assertEquals(List.of("CAL1A", "F005", "CAL1B"), chain, "the chain's rest, in order: " + r.out());
+      }
+      Runs.Run check = Runs.run("check", cadence.toString(), out.toString());
+      assertEquals(0, check.code(), check::all);
+    }
   }
 }

@@ -122,6 +122,24 @@ public final class Task {
     return new Task(id, value, flexible, minDurationS, stepS, values, spans, null, marker);
   }
 
+  /**
+   * A copy whose starts are at most {@code latestS} (a re-plan: the next visit of a request part done, within
+   * {@code maxSeparationS} of the last visit done). Each span ends by {@code latestS} + the shortest exposure:
+   * exact for a fixed duration; for a flexible exposure a longer option must then start earlier than
+   * {@code latestS} (conservative, never allowing a late start). {@code why} is the reason when nothing is left.
+   */
+  public Task withLatestStart(long latestS, String why) {
+    List<Span> clipped = new ArrayList<>();
+    for (Span sp : spans) {
+      long to = Math.min(sp.toS(), latestS + minDurationS);
+      if (to >= sp.fromS()) {
+        clipped.add(new Span(sp.fromS(), to));
+      }
+    }
+    return new Task(id, required, flexible, minDurationS, stepS, values, clipped, emptyReason != null ? emptyReason
+        : why, marker);
+  }
+
   /** A copy with another id (a visit of a request observed several times). */
   public Task withId(String newId) {
     return new Task(newId, required, flexible, minDurationS, stepS, values, spans, null, marker);

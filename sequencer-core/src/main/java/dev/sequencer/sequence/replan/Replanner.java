@@ -2,6 +2,7 @@ package dev.sequencer.sequence.replan;
 
 import dev.sequencer.io.Problem;
 import dev.sequencer.io.ScenarioException;
+import dev.sequencer.model.Group;
 import dev.sequencer.model.Observation;
 import dev.sequencer.model.PlanStatus;
 import dev.sequencer.model.Request;
@@ -9,6 +10,7 @@ import dev.sequencer.model.RequestWindows;
 import dev.sequencer.model.TimeWindow;
 import dev.sequencer.model.Timeline;
 import dev.sequencer.model.Unscheduled;
+import dev.sequencer.model.Visits;
 import dev.sequencer.sequence.ProgressListener;
 import dev.sequencer.sequence.Seeds;
 import dev.sequencer.sequence.Sequencer;
@@ -114,6 +116,8 @@ public final class Replanner {
     private PlanningProblem sub;
     private int[] subToFull;
     private int[] fullToSub;
+    /** What the visits and groups rules ask of the rest of the night (set with the sub-problem). */
+    private Residual residual;
     /** Sub-problem section of each resource of {@code full} (-1: unavailable); {0} for one observer. */
     private int[] subSectionOf;
 
@@ -168,7 +172,7 @@ public final class Replanner {
         if (!lost.isEmpty()) {
           String message = "no resource left for the required request(s) " + String.join(", ", lost);
           Timeline none = new Timeline(PlanStatus.INFEASIBLE, frozenPriority, slewOf(frozen), null, frozen,
-              unscheduled(Set.of(), "not planned: " + message, List.of()));
+              unscheduled(Map.of(), "not planned: " + message, List.of()));
           return new ReplanResult(none, ReplanResult.Source.NONE, 0, tailPriority, Double.NaN, tail.size(), 0, 0,
               departure, message, notes.toString().trim());
         }
@@ -197,7 +201,7 @@ public final class Replanner {
               + String.join(", ", stranded) + "; " + message;
         }
         Timeline none = new Timeline(r.status(), frozenPriority, slewOf(frozen), null, frozen,
-            unscheduled(Set.of(), "not planned: " + message, List.of()));
+            unscheduled(Map.of(), "not planned: " + message, List.of()));
         return new ReplanResult(none, ReplanResult.Source.NONE, 0, tailPriority, Double.NaN, tail.size(), 0, 0,
             departure, message, (notes + sequencerNotes).trim());
       }
@@ -209,9 +213,15 @@ public final class Replanner {
             + "kept. ");
       }
       List<Observation> planned = timeline.observations().subList(frozen.size(), timeline.observations().size());
-      Set<String> tailKeys = new HashSet<>();
-      tail.forEach(o -> tailKeys.add(key(o)));
-      int keptRequests = (int) planned.stream().filter(o -> tailKeys.contains(key(o))).count();
+      Map<String, Integer> tailKeys = new HashMap<>();
+      tail.forEach(o -> tailKeys.merge(key(o), 1, Integer::sum));
+      int keptRequests = 0;
+      for (Observation o : planned) {
+        if (tailKeys.getOrDefault(key(o), 0) > 0) {
+          tailKeys.merge(key(o), -1, Integer::sum);
+          keptRequests++;
+        }
+      }
       Set<String> tailArcs = successorArcs(tail);
       int keptArcs = (int) successorArcs(planned).stream().filter(tailArcs::contains).count();
       return new ReplanResult(timeline, source, r.totalPriority(), tailPriority, r.stats().ownPriority(), tail.size(),
@@ -266,7 +276,12 @@ public final class Replanner {
         checkResource(k, o);
         planned.add(o.id());
         boolean started = o.start().isBefore(now);
-        if (failed.contains(o.id()) || done.contains(o.id())) {
+        // For a request with visits a listed id names its last visit started before now (the one running or
+        // just ended); earlier ones follow the usual rule, later ones are the tail (at least one must have
+        // started: checked below).
+        boolean listed = (failed.contains(o.id()) || done.contains(o.id()))
+            && (!full.requests().get(index.get(o.id())).hasVisits() || k == lastStarted(obs, o.id()));
+        if (listed) {
           if (!started) {
             String field = failed.contains(o.id()) ? "failed" : "done";
             throw badInput(field, "observation \"" + o.id() + "\" starts at " + o.start() + ", not before now "
@@ -295,11 +310,60 @@ public final class Replanner {
           throw badInput("done", "id \"" + id + "\" is not an observation of the previous timeline");
         }
       }
+      for (String id : union(done, failed)) {
+        boolean anyStarted = obs.stream().anyMatch(o -> o.id().equals(id) && o.start().isBefore(now));
+        if (planned.contains(id) && !anyStarted) {
+          String field = failed.contains(id) ? "failed" : "done";
+          throw badInput(field, "no visit of \"" + id + "\" starts before now " + now + ": it cannot be " + field
+              + " yet");
+        }
+      }
+      renumberFrozenVisits();
       for (String id : failed) {
         if (!planned.contains(id)) {
           throw badInput("failed", "id \"" + id + "\" is not an observation of the previous timeline");
         }
       }
+    }
+
+    /** Index in {@code obs} of the last observation of {@code id} that starts before now; -1 when none. */
+    private int lastStarted(List<Observation> obs, String id) {
+      int last = -1;
+      for (int k = 0; k < obs.size(); k++) {
+        if (obs.get(k).id().equals(id) && obs.get(k).start().isBefore(now)) {
+          last = k;
+        }
+      }
+      return last;
+    }
+
+    private static Set<String> union(Set<String> a, Set<String> b) {
+      Set<String> out = new java.util.TreeSet<>(a);
+      out.addAll(b);
+      return out;
+    }
+
+    /** Visits kept are numbered 1, 2, … in time order again (a failed visit before them is gone). */
+    private void renumberFrozenVisits() {
+      List<Observation> copy = renumbered(frozen);
+      frozen.clear();
+      frozen.addAll(copy);
+    }
+
+    /** {@code obs} with the visits of each request with visits numbered 1, 2, … in list (time) order. */
+    private List<Observation> renumbered(List<Observation> obs) {
+      Map<String, Integer> seen = new HashMap<>();
+      List<Observation> out = new ArrayList<>();
+      for (Observation o : obs) {
+        boolean several = full.requests().get(index.get(o.id())).hasVisits();
+        out.add(several ? o.withVisit(seen.merge(o.id(), 1, Integer::sum)) : o.withVisit(null));
+      }
+      return out;
+    }
+
+    /** Observations of request {@code id} among the frozen ones. */
+    private int frozenCount(String id) {
+      return (int) frozen.stream().filter(o -> o.id().equals(id)).count();
     }
 
     /** With several resources every previous observation names one of them; with one observer none. */
@@ -324,8 +388,13 @@ public final class Replanner {
     private void checkFrozen() {
       Set<String> in = new HashSet<>();
       frozen.forEach(o -> in.add(o.id()));
-      List<Unscheduled> rest = full.requests().stream().filter(q -> !in.contains(q.id()))
-          .map(q -> new Unscheduled(q.id(), "-")).toList();
+      List<Unscheduled> rest = new ArrayList<>();
+      for (Request q : full.requests()) {
+        int n = frozenCount(q.id());
+        if (n < q.visits().count()) {
+          rest.add(new Unscheduled(q.id(), "-", q.hasVisits() && n > 0 ? q.visits().count() - n : null));
+        }
+      }
       List<String> violations = validator.withRequiredIgnored().violations(
           new Timeline(PlanStatus.FEASIBLE, priorityOf(frozen), slewOf(frozen), null, frozen, rest));
       if (!violations.isEmpty()) {
@@ -395,13 +464,13 @@ public final class Replanner {
 
     /** The remaining requests from each resource's departure to the horizon end. */
     private void buildSubProblem() {
-      Set<String> frozenIds = new HashSet<>();
-      frozen.forEach(o -> frozenIds.add(o.id()));
+      residual = new Residual();
       List<Integer> keep = new ArrayList<>();
       for (int k = 0; k < full.requests().size(); k++) {
         Request q = full.requests().get(k);
-        boolean dropped = options.dropFailed() && failedIds.contains(q.id()) && !q.required();
-        if (!frozenIds.contains(q.id()) && !dropped) {
+        // Required ones, and those a begun all-or-nothing rule now asks for, are retried all the same.
+        boolean dropped = options.dropFailed() && failedIds.contains(q.id()) && !residual.request(q).required();
+        if (frozenCount(q.id()) < q.visits().count() && !dropped) {
           keep.add(k);
         }
       }
@@ -414,7 +483,7 @@ public final class Replanner {
       List<Request> requests = new ArrayList<>();
       Set<String> ids = new HashSet<>();
       for (int k : subToFull) {
-        requests.add(full.requests().get(k));
+        requests.add(residual.request(full.requests().get(k)));
         ids.add(full.requests().get(k).id());
       }
       int first = firstToDepart();
@@ -424,10 +493,13 @@ public final class Replanner {
       java.util.Arrays.fill(subSectionOf, -1);
       if (fullSec == null) {
         subSectionOf[0] = 0;
-        List<RequestWindows> windows = full.windows().stream().filter(w -> ids.contains(w.id())).toList();
-        PlanningProblem p = PlanningProblem.of(h, requests, windows, departures(full.transitions(), 0, offsetS));
+        List<RequestWindows> windows = full.windows().stream().filter(w -> ids.contains(w.id()))
+            .map(residual::windows).toList();
+        PlanningProblem p = PlanningProblem.of(h, requests, residual.groups(ids), windows,
+            departures(full.requestTransitions(), 0, offsetS));
+        p = residual.clipFirstVisits(p);
         int last = full.mustBeLastIndex();
-        p = last >= 0 && fullToSub[last] >= 0 ? p.withMustBeLast(full.task(last).id()) : p;
+        p = last >= 0 && fullToSub[full.structure().requestOf(last)] >= 0 ? p.withMustBeLast(full.task(last).id()) : p;
         sub = p.withPrizes(stabilityPrizes(p));
         return;
       }
@@ -457,6 +529,192 @@ public final class Replanner {
       sub = p.withPrizes(stabilityPrizes(p));
     }
 
+    /**
+     * What the rules of visits (A4) and groups (A5) ask of the rest of the night, given the frozen
+     * observations. A request with visits part done keeps its remaining visits: at least
+     * {@code minSeparationS} after the last visit done started (windows clipped), the first of them at most
+     * {@code maxSeparationS} after it (that task's latest start clipped), none in a window that holds a done
+     * visit ({@code onePerWindow}: those windows removed); all-or-nothing once begun means the rest is
+     * required. A group with a member done: all or nothing makes every other member required; ordered
+     * means the members after the last one done start after it ends (windows clipped) and the members before
+     * it can no longer be observed (windows removed); with {@code maxGapS} and all or nothing the next member
+     * (required, so the next scheduled) starts at most that long after it (its latest start clipped). An
+     * ordered group with {@code maxGapS} that is not all or nothing and part done is refused (the next
+     * scheduled member may be any later one: not modelled across the re-planning instant yet). A member failed
+     * and not retried closes the rest of its all-or-nothing group.
+     * The merged night is checked by the validator against the scenario's own rules.
+     */
+    private final class Residual {
+      /** Earliest start (scenario instant) for a request's remaining observations, by id. */
+      private final Map<String, Instant> notBefore = new HashMap<>();
+      /** Requests that may no longer be observed, with the reason (an ordered group has moved past them, ...). */
+      private final Map<String, String> closed = new HashMap<>();
+      private final Set<String> mustComplete = new HashSet<>();
+      /** Latest start (scenario instant) of a group member next after one done, by id. */
+      private final Map<String, Instant> latestStart = new HashMap<>();
+
+      Residual() {
+        for (Group g : full.groups()) {
+          List<String> done = g.members().stream().filter(id -> frozenCount(id) > 0).toList();
+          if (done.isEmpty()) {
+            continue;
+          }
+          int lastDone = -1;
+          for (int i = 0; i < g.members().size(); i++) {
+            lastDone = frozenCount(g.members().get(i)) > 0 ? i : lastDone;
+          }
+          boolean more = false;
+          for (int i = 0; i < g.members().size(); i++) {
+            String id = g.members().get(i);
+            if (frozenCount(id) > 0) {
+              continue;
+            }
+            if (g.allOrNothing()) {
+              mustComplete.add(id);
+            }
+            if (g.ordered() && i < lastDone) {
+              closed.put(id, "group " + g.id() + " is ordered and a later member, " + g.members().get(lastDone)
+                  + ", is already observed");
+            } else if (g.ordered()) {
+              more = true;
+              Instant end = lastEnd(g.members().get(lastDone));
+              notBefore.merge(id, end, (a, b) -> a.isAfter(b) ? a : b);
+            }
+          }
+          if (g.ordered() && g.maxGapS() != null && more && g.allOrNothing()) {
+            // Every remaining member is required, so the next one is the next scheduled: it starts at most
+            // maxGapS after the last one done ends.
+            String next = g.members().get(lastDone + 1);
+            latestStart.put(next, lastEnd(g.members().get(lastDone)).plusNanos(Math.round(g.maxGapS() * 1e9)));
+          } else if (g.ordered() && g.maxGapS() != null && more) {
+            throw badInput("previous", "group " + g.id() + " is ordered with maxGapS and part done ("
+                + String.join(", ", done) + "); re-planning the rest of such a group is not supported yet: plan it "
+                + "as a new scenario");
+          }
+        }
+        for (Group g : full.groups()) {
+          // All or nothing, not begun, one member failed and not retried: the others can no longer be observed.
+          boolean begun = g.members().stream().anyMatch(id -> frozenCount(id) > 0);
+          String gone = g.members().stream().filter(id -> options.dropFailed() && failedIds.contains(id)
+              && !full.requests().get(index.get(id)).required()).findFirst().orElse(null);
+          if (g.allOrNothing() && !begun && gone != null) {
+            for (String id : g.members()) {
+              if (!id.equals(gone)) {
+                closed.putIfAbsent(id, "group " + g.id() + " is all or nothing and " + gone + " failed and is not "
+                    + "retried");
+              }
+            }
+          }
+        }
+      }
+
+      /** Why request {@code id} may no longer be observed; null when it may. */
+      String closedReason(String id) {
+        return closed.get(id);
+      }
+
+      private Instant lastEnd(String id) {
+        Instant end = null;
+        for (Observation o : frozen) {
+          if (o.id().equals(id) && (end == null || o.end().isAfter(end))) {
+            end = o.end();
+          }
+        }
+        return end;
+      }
+
+      private Instant lastStart(String id) {
+        Instant start = null;
+        for (Observation o : frozen) {
+          if (o.id().equals(id) && (start == null || o.start().isAfter(start))) {
+            start = o.start();
+          }
+        }
+        return start;
+      }
+
+      /** The request's remaining visits, required when its rules now ask for all of them. */
+      Request request(Request q) {
+        int n = frozenCount(q.id());
+        Visits v = q.visits();
+        boolean complete = q.required() || mustComplete.contains(q.id()) || (n > 0 && v.allOrNothing());
+        Request out = q;
+        if (n > 0) {
+          out = out.withVisits(new Visits(v.count() - n, v.minSeparationS(), v.maxSeparationS(), v.onePerWindow(),
+              v.allOrNothing() && n == 0));
+        }
+        // A closed request keeps a required flag: it has no window left, so the re-plan says INFEASIBLE.
+        return out.withRequired(complete);
+      }
+
+      /** The request's windows with what its rules and the frozen observations leave. */
+      RequestWindows windows(RequestWindows w) {
+        if (closed.containsKey(w.id())) {
+          return new RequestWindows(w.id(), List.of());
+        }
+        Request q = full.requests().get(index.get(w.id()));
+        Instant from = notBefore.get(w.id());
+        List<Observation> mine = frozen.stream().filter(o -> o.id().equals(w.id())).toList();
+        if (!mine.isEmpty() && q.hasVisits()) {
+          Instant sep = lastStart(w.id()).plusNanos(Math.round(q.visits().minSeparationS() * 1e9));
+          from = from == null || sep.isAfter(from) ? sep : from;
+        }
+        List<TimeWindow> out = new ArrayList<>();
+        for (TimeWindow t : w.intervals()) {
+          boolean holdsDone = q.visits().onePerWindow()
+              && mine.stream().anyMatch(o -> o.start().isBefore(t.end()) && t.start().isBefore(o.end()));
+          if (holdsDone || from != null && !t.end().isAfter(from)) {
+            continue;
+          }
+          out.add(from != null && t.start().isBefore(from) ? new TimeWindow(from, t.end()) : t);
+        }
+        return new RequestWindows(w.id(), out);
+      }
+
+      /** The scenario's groups over the requests still to plan, each as its rules now read. */
+      List<Group> groups(Set<String> ids) {
+        List<Group> out = new ArrayList<>();
+        for (Group g : full.groups()) {
+          List<String> rest = g.members().stream().filter(ids::contains).filter(id -> !closed.containsKey(id)).toList();
+          boolean begun = g.members().stream().anyMatch(id -> frozenCount(id) > 0);
+          if (!rest.isEmpty()) {
+            out.add(new Group(g.id(), rest, g.allOrNothing() && !begun, g.ordered(), g.maxGapS(), g.sameResource()));
+          }
+        }
+        return out;
+      }
+
+      /**
+       * Latest starts: the first remaining visit of each request part done with {@code maxSeparationS}, and the
+       * member next after the last one done of an all-or-nothing ordered group with {@code maxGapS}.
+       */
+      PlanningProblem clipFirstVisits(PlanningProblem p) {
+        List<Task> tasks = new ArrayList<>(p.tasks());
+        boolean changed = false;
+        for (int k = 0; k < tasks.size(); k++) {
+          Request q = p.requests().get(p.structure().requestOf(k));
+          Request original = full.requests().get(index.get(q.id()));
+          Double max = original.visits().maxSeparationS();
+          boolean firstLeft = k == 0 || p.structure().requestOf(k - 1) != p.structure().requestOf(k);
+          Instant latest = null;
+          String why = null;
+          if (max != null && firstLeft && frozenCount(q.id()) > 0) {
+            latest = lastStart(q.id()).plusNanos(Math.round(max * 1e9));
+            why = "no window within maxSeparationS of the last visit done";
+          } else if (latestStart.containsKey(q.id())) {
+            latest = latestStart.get(q.id());
+            why = "no window within its group's maxGapS of the member done before it";
+          }
+          if (latest != null) {
+            long s = (long) Math.floor(Duration.between(p.horizonStart(), latest).toNanos() * 1e-9 + 1e-9);
+            tasks.set(k, tasks.get(k).withLatestStart(s, why));
+            changed = true;
+          }
+        }
+        return changed ? p.withTasks(tasks) : p;
+      }
+    }
+
     /** Resource r's transitions (indexed by request) from its frozen observations on, on the sub-problem's clock. */
     private DepartureTransitions departures(Transitions requestTransitions, int resource, long offsetS) {
       List<Observation> mine = frozenOn(resource);
@@ -472,7 +730,10 @@ public final class Replanner {
       return new DepartureTransitions(requestTransitions, subToFull, fo, fd, fa, fromEndS, offsetS);
     }
 
-    /** The sub-problem task of a previous observation: its request's option on its resource (-1: none). */
+    /**
+     * The sub-problem task of a previous observation: its request's option on its resource, or (visits) the
+     * request's remaining visit of the same rank among its tail observations; -1 when none.
+     */
     private int subTask(PlanningProblem p, Observation o) {
       int q = fullToSub[index.get(o.id())];
       if (q < 0) {
@@ -480,7 +741,19 @@ public final class Replanner {
       }
       Sections sec = p.sections();
       if (sec == null) {
-        return q;
+        int rank = 0;
+        for (Observation t : tail) {
+          if (t == o) {
+            break;
+          }
+          rank += t.id().equals(o.id()) ? 1 : 0;
+        }
+        for (int k = 0; k < p.size(); k++) {
+          if (p.structure().requestOf(k) == q && rank-- == 0) {
+            return k;
+          }
+        }
+        return -1;
       }
       int section = subSectionOf[resourceOf(o)];
       for (int k : sec.options(q)) {
@@ -626,10 +899,11 @@ public final class Replanner {
         planned.add(new Observation(p.id(), p.start(), p.end(), p.transitionS(), p.value(), Observation.PLANNED,
             null, null, null, p.resource()));
       }
-      Set<String> in = new HashSet<>();
-      planned.forEach(o -> in.add(o.id()));
+      Map<String, Integer> in = new HashMap<>();
+      planned.forEach(o -> in.merge(o.id(), 1, Integer::sum));
       List<Observation> obs = new ArrayList<>(frozen);
       obs.addAll(planned);
+      obs = renumbered(obs);
       double bound = Double.isNaN(r.boundPriority()) ? Double.NaN : frozenPriority + r.boundPriority();
       double priority = frozenPriority + r.totalPriority();
       return new Timeline(r.status(), priority, slewOf(frozen) + r.totalTransitionS(),
@@ -641,13 +915,19 @@ public final class Replanner {
       List<Observation> obs = new ArrayList<>(frozen);
       obs.addAll(planned);
       return new Timeline(status, frozenPriority, slewOf(frozen), frozenPriority, obs,
-          unscheduled(Set.of(), null, List.of()));
+          unscheduled(Map.of(), null, List.of()));
     }
 
     /** The tasks of request k of {@code p} (its options with several resources), {@code q} its index there. */
     private static List<Task> tasksOf(PlanningProblem p, int q) {
       if (p.sections() == null) {
-        return List.of(p.task(q));
+        List<Task> out = new ArrayList<>();
+        for (int k = 0; k < p.size(); k++) {
+          if (p.structure().requestOf(k) == q) {
+            out.add(p.task(k)); // its visits
+          }
+        }
+        return out;
       }
       List<Task> out = new ArrayList<>();
       for (int k : p.sections().options(q)) {
@@ -661,23 +941,31 @@ public final class Replanner {
      * ({@code fromSequencer}), else {@code notPlannedReason}, else dropped as failed / no window left / only
      * unavailable resources left.
      */
-    private List<Unscheduled> unscheduled(Set<String> planned, String notPlannedReason, List<Unscheduled> fromSequencer) {
+    private List<Unscheduled> unscheduled(Map<String, Integer> plannedCount, String notPlannedReason,
+        List<Unscheduled> fromSequencer) {
       Map<String, String> given = new HashMap<>();
       fromSequencer.forEach(u -> given.put(u.id(), u.reason()));
-      Set<String> frozenIds = new HashSet<>();
-      frozen.forEach(o -> frozenIds.add(o.id()));
+      Map<String, Integer> observed = new HashMap<>();
+      frozen.forEach(o -> observed.merge(o.id(), 1, Integer::sum));
+      plannedCount.forEach((id, n) -> observed.merge(id, n, Integer::sum));
       List<Unscheduled> out = new ArrayList<>();
       for (int k = 0; k < full.requests().size(); k++) {
-        String id = full.requests().get(k).id();
-        if (frozenIds.contains(id) || planned.contains(id)) {
+        Request request = full.requests().get(k);
+        String id = request.id();
+        int n = observed.getOrDefault(id, 0);
+        if (n >= request.visits().count()) {
           continue;
         }
+        Integer missing = request.hasVisits() ? request.visits().count() - n : null;
         List<Task> mine = tasksOf(full, k);
         boolean everSchedulable = mine.stream().anyMatch(Task::schedulable);
         int q = fullToSub == null ? -1 : fullToSub[k];
         String reason;
+        String closedWhy = residual == null ? null : residual.closedReason(id);
         if (fullToSub != null && q < 0) {
           reason = FAILED_DROPPED;
+        } else if (closedWhy != null) {
+          reason = closedWhy;
         } else if (sub == null || tasksOf(sub, q).stream().noneMatch(Task::schedulable)) {
           reason = !everSchedulable ? mine.get(0).emptyReason()
               : onlyUnavailable(k) ? RESOURCES_UNAVAILABLE : NO_TIME_LEFT;
@@ -686,7 +974,7 @@ public final class Replanner {
         } else {
           reason = given.getOrDefault(id, Reasons.LOST_TO_CONFLICTS);
         }
-        out.add(new Unscheduled(id, reason));
+        out.add(new Unscheduled(id, reason, missing));
       }
       return out;
     }

@@ -1,0 +1,57 @@
+package dev.sequencer.planner;
+
+import static org.junit.jupiter.api.Assertions.assertTrue;
+
+import dev.sequencer.astro.AstroContext;
+import dev.sequencer.model.Scenario;
+import dev.sequencer.model.Timeline;
+import dev.sequencer.sequence.SequencerOptions;
+import java.util.Random;
+import net.jqwik.api.Arbitraries;
+import net.jqwik.api.Arbitrary;
+import net.jqwik.api.Combinators;
+import net.jqwik.api.ForAll;
+import net.jqwik.api.Property;
+import net.jqwik.api.Provide;
+
+/**
+ * Re-planning with the rules people write (format additions A4, A5): scenarios of every kind
+ * ({@link FuzzScenarios}) with visits and groups ({@link FuzzScenarios#withStructure}) are planned, then
+ * re-planned at a random instant with random done and failed observations ({@link PlannerFuzzProperties#replan}:
+ * done kept, nothing new before now, each request at most its visits). Every re-plan passes the façade's
+ * independent validator on the merged night — visit numbers, separations from the visits done, one per window,
+ * all or nothing once begun, the order and gaps of groups — or it is a bug (thrown); the only refusal allowed
+ * is an ordered group with {@code maxGapS} part done.
+ */
+class StructureReplanProperties {
+  private static final AstroContext CTX = AstroContext.offline();
+
+  /** One try's settings. */
+  record Try(FuzzScenarios.Kind kind, long seed, SequencerOptions.Solver solver) {}
+
+  @Provide
+  Arbitrary<Try> tries() {
+    return Combinators.combine(Arbitraries.of(FuzzScenarios.Kind.class), Arbitraries.longs().between(1, 1_000_000),
+        Arbitraries.of(SequencerOptions.Solver.CPSAT, SequencerOptions.Solver.GREEDY)).as(Try::new);
+  }
+
+  @Property(tries = 24, shrinking = net.jqwik.api.ShrinkingMode.OFF)
+  void replansKeepEveryRuleOfVisitsAndGroups(@ForAll("tries") Try t) {
+    check(t);
+  }
+
+  static void check(Try t) {
+    Random rnd = new Random(t.seed());
+    Scenario s = FuzzScenarios.withStructure(FuzzScenarios.generate(t.kind(), t.seed(), CTX), rnd);
+    SequencerOptions base = SequencerOptions.defaults().withTimeLimitS(2).withWorkers(2).withReproducible(2)
+        .withSolver(t.solver());
+    PlanOutcome first = Planner.plan(s, CTX, base);
+    String what = t + ": " + FuzzScenarios.describe(s) + ", groups " + s.groups();
+    assertTrue(first.result().hasPlan(), what + ": no first plan (nothing is required): " + first.result().message());
+    Timeline plan = first.timeline();
+    PlannerFuzzProperties.replan(s, plan, base, new Random(t.seed() + 41), what);
+    // Re-planning one second into a later visit: the earlier visits done, that one running, the rest to plan.
+    plan.observations().stream().filter(o -> o.visit() != null && o.visit() > 1).findFirst().ifPresent(o ->
+        PlannerFuzzProperties.replan(s, plan, base, new Random(t.seed() + 43), what, o.start().plusSeconds(1)));
+  }
+}

@@ -1,0 +1,120 @@
+package dev.sequencer.planner;
+
+import static org.junit.jupiter.api.Assertions.assertEquals;
+import static org.junit.jupiter.api.Assertions.assertThrows;
+import static org.junit.jupiter.api.Assertions.assertTrue;
+
+import dev.sequencer.astro.AstroContext;
+import dev.sequencer.io.ScenarioException;
+import dev.sequencer.model.Constraints;
+import dev.sequencer.model.Group;
+import dev.sequencer.model.Observation;
+import dev.sequencer.model.Request;
+import dev.sequencer.model.Scenario;
+import dev.sequencer.model.SlewSettings;
+import dev.sequencer.model.TimeWindow;
+import dev.sequencer.model.Timeline;
+import dev.sequencer.model.Unscheduled;
+import dev.sequencer.model.Visits;
+import dev.sequencer.sequence.SequencerOptions;
+import dev.sequencer.sequence.replan.ReplanOptions;
+import dev.sequencer.sequence.replan.ReplanResult;
+import java.time.Duration;
+import java.time.Instant;
+import java.util.List;
+import java.util.Set;
+import org.junit.jupiter.api.Test;
+
+/**
+ * Re-planning what the rules of visits (A4) and groups (A5) owe once part of them is done, on a table without
+ * an observer (windows given, 30 s between any two requests): the values follow from the rules' wording.
+ */
+class StructureReplanTest {
+  private static final AstroContext CTX = AstroContext.offline();
+  private static final Instant T0 = Instant.parse("2031-10-14T18:00:00Z");
+
+  private static Request fixed(String id, long durationS, double priority) {
+    return new Request(id, null, (double) durationS, priority, false, List.of(new TimeWindow(T0, T0.plusSeconds(
+        6 * 3600))), null);
+  }
+
+  private static Scenario scenario(List<Request> requests, List<Group> groups) {
+    return new Scenario(Scenario.FORMAT, "invented table", new TimeWindow(T0, T0.plusSeconds(6 * 3600)), null,
+        Constraints.none(), new SlewSettings.Fixed(30), null, requests, null, groups, null, "", List.of());
+  }
+
+  private static ReplanResult replan(Scenario s, Timeline previous, Instant now, Set<String> done,
+      Set<String> failed) {
+    return Planner.replan(s, CTX, previous, now, done, failed, ReplanOptions.defaults().withSequencer(
+        SequencerOptions.defaults().withTimeLimitS(3).withWorkers(2).withReproducible(3))).result();
+  }
+
+  private static Observation first(Timeline t, String id) {
+    return t.observations().stream().filter(o -> o.id().equals(id)).findFirst().orElseThrow();
+  }
+
+  @Test
+  void theVisitsLeftKeepTheirSeparationFromTheVisitDoneAndTheirNumbers() {
+    // Three visits at least 40 min apart; the first done, the second failed while it ran.
+    Request v = fixed("V", 600, 5).withVisits(new Visits(3, 2400, 4000.0, false, false));
+    Scenario s = scenario(List.of(v, fixed("A", 900, 1), fixed("B", 900, 1)), List.of());
+    Timeline previous = Planner.plan(s, CTX, SequencerOptions.defaults().withTimeLimitS(3).withReproducible(3))
+        .timeline();
+    List<Observation> visits = previous.observations().stream().filter(o -> o.id().equals("V")).toList();
+    assertEquals(3, visits.size(), "precondition: all three visits planned");
+    Instant now = visits.get(1).start().plusSeconds(10);
+    ReplanResult r = replan(s, previous, now, Set.of(), Set.of("V"));
+    assertTrue(r.hasPlan(), r.message());
+    List<Observation> after = r.timeline().observations().stream().filter(o -> o.id().equals("V")).toList();
+    // "V" failed names its last visit started (the second, running): the first stays done, and the visits
+    // left start at least 40 min (at most 66 min) after the previous one.
+    assertEquals(Observation.DONE, after.get(0).state());
+    assertEquals(visits.get(0).start(), after.get(0).start());
+    for (int i = 0; i < after.size(); i++) {
+      assertEquals(i + 1, after.get(i).visit(), "visits numbered 1, 2, … in time order: " + after);
+      if (i > 0) {
+        long sep = Duration.between(after.get(i - 1).start(), after.get(i).start()).getSeconds();
+        assertTrue(sep >= 2400 && sep <= 4000, "separation " + sep + " s: " + after);
+        assertTrue(!after.get(i).start().isBefore(now), "a new visit starts after now: " + after);
+      }
+    }
+    ReplanResult kept = replan(s, previous, now, Set.of(), Set.of());
+    List<Observation> mine = kept.timeline().observations().stream().filter(o -> o.id().equals("V")).toList();
+    assertEquals(Observation.DONE, mine.get(0).state());
+    assertEquals(Observation.RUNNING, mine.get(1).state());
+    long sep = Duration.between(mine.get(1).start(), mine.get(2).start()).getSeconds();
+    assertTrue(mine.size() == 3 && sep >= 2400 && sep <= 4000, "the third visit 40–66 min after the second: " + mine);
+  }
+
+  @Test
+  void anOrderedGroupPastAMemberListsItWithTheReasonAndAPartDoneGapChainIsOwedWhole() {
+    Group chain = new Group("G", List.of("A", "B", "C"), false, true, null, false);
+    Scenario s = scenario(List.of(fixed("A", 600, 3), fixed("B", 600, 3), fixed("C", 600, 3)), List.of(chain));
+    Timeline previous = Planner.plan(s, CTX, SequencerOptions.defaults().withTimeLimitS(3).withReproducible(3))
+        .timeline();
+    Instant now = first(previous, "B").end().plusSeconds(1);
+    // A failed, B done: A can no longer come before B.
+    ReplanResult r = replan(s, previous, now, Set.of("B"), Set.of("A"));
+    assertTrue(r.hasPlan(), r.message());
+    Unscheduled a = r.timeline().unscheduled().stream().filter(u -> u.id().equals("A")).findFirst().orElseThrow();
+    assertEquals("group G is ordered and a later member, B, is already observed", a.reason());
+    // All or nothing with a 120 s gap: once A is done, B and C are owed and B starts within 120 s of A's end.
+    Group tight = new Group("G", List.of("A", "B", "C"), true, true, 120.0, false);
+    Scenario t = scenario(s.requests(), List.of(tight));
+    Timeline prev2 = Planner.plan(t, CTX, SequencerOptions.defaults().withTimeLimitS(3).withReproducible(3))
+        .timeline();
+    ReplanResult r2 = replan(t, prev2, first(prev2, "A").end().plusSeconds(5), Set.of(), Set.of());
+    assertTrue(r2.hasPlan(), r2.message());
+    long gap = Duration.between(first(r2.timeline(), "A").end(), first(r2.timeline(), "B").start()).getSeconds();
+    assertTrue(gap <= 120, "B starts " + gap + " s after A ends");
+    assertEquals(3, r2.timeline().observations().size());
+    // Not all or nothing, with a gap, part done: the next scheduled member could be B or C; refused by name.
+    Scenario u = scenario(s.requests(), List.of(new Group("G", List.of("A", "B", "C"), false, true, 120.0, false)));
+    Timeline prev3 = Planner.plan(u, CTX, SequencerOptions.defaults().withTimeLimitS(3).withReproducible(3))
+        .timeline();
+    ScenarioException e = assertThrows(ScenarioException.class, () -> replan(u, prev3,
+        first(prev3, "A").end().plusSeconds(5), Set.of(), Set.of()));
+    assertEquals("previous", e.problems().get(0).path());
+    assertTrue(e.problems().get(0).message().contains("ordered with maxGapS and part done"), e.getMessage());
+  }
+}
