@@ -117,4 +117,37 @@ class StructureReplanTest {
     assertEquals("previous", e.problems().get(0).path());
     assertTrue(e.problems().get(0).message().contains("ordered with maxGapS and part done"), e.getMessage());
   }
+
+  /**
+   * What the fuzz ({@link StructureReplanProperties}) found before it landed, kept as plain examples: with
+   * {@code --drop-failed}, a failed member of an all-or-nothing group is still retried once another member is
+   * done (the group is owed whole), and closes the rest of the group when none is done.
+   */
+  @Test
+  void aFailedMemberOfAnAllOrNothingGroupIsRetriedOnceBegunAndClosesTheGroupOtherwise() {
+    Group pair = new Group("P", List.of("A", "B"), true, false, null, false);
+    Scenario s = scenario(List.of(fixed("A", 600, 3), fixed("B", 600, 3), fixed("C", 600, 1)), List.of(pair));
+    Timeline previous = Planner.plan(s, CTX, SequencerOptions.defaults().withTimeLimitS(3).withReproducible(3))
+        .timeline();
+    List<String> order = previous.observations().stream().map(Observation::id).filter(List.of("A", "B")::contains)
+        .toList();
+    assertEquals(2, order.size(), "precondition: the pair is planned");
+    Observation earlier = first(previous, order.get(0));
+    Observation later = first(previous, order.get(1));
+    ReplanOptions drop = ReplanOptions.defaults().withDropFailed(true).withSequencer(SequencerOptions.defaults()
+        .withTimeLimitS(3).withWorkers(2).withReproducible(3));
+    // The later one fails while the earlier one is done: it is owed and retried despite --drop-failed.
+    ReplanResult owed = Planner.replan(s, CTX, previous, later.start().plusSeconds(5), Set.of(earlier.id()),
+        Set.of(later.id()), drop).result();
+    assertTrue(owed.hasPlan(), owed.message());
+    assertEquals(2, owed.timeline().observations().stream().filter(o -> List.of("A", "B").contains(o.id())).count(),
+        "the pair complete: " + owed.timeline().observations());
+    // The earlier one fails and is not retried: its partner can no longer be observed, and says why.
+    ReplanResult closed = Planner.replan(s, CTX, previous, earlier.start().plusSeconds(5), Set.of(),
+        Set.of(earlier.id()), drop).result();
+    assertTrue(closed.hasPlan(), closed.message());
+    Unscheduled partner = closed.timeline().unscheduled().stream().filter(u -> u.id().equals(later.id())).findFirst()
+        .orElseThrow();
+    assertEquals("group P is all or nothing and " + earlier.id() + " failed and is not retried", partner.reason());
+  }
 }
