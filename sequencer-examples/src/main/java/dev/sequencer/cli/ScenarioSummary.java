@@ -56,21 +56,79 @@ final class ScenarioSummary {
     int flexible = 0;
     for (Request r : s.requests()) {
       kinds.merge(kind(r.target()), 1, Integer::sum);
-      requested += r.isFlexible() ? r.flexible().minDurationS() : r.durationS();
+      requested += r.minDurationS() * r.visits().count();
       required += r.required() ? 1 : 0;
       flexible += r.isFlexible() ? 1 : 0;
     }
     out.add("requests    " + s.requests().size() + " " + kinds + (required > 0 ? ", " + required + " required" : "")
         + (flexible > 0 ? ", " + flexible + " flexible" : ""));
+    out.addAll(structure(s));
     int m = Math.max(1, s.resources().size());
     out.add(String.format(Locale.ROOT, "requested   %.0f s of observation (minimum) for a %.0f s horizon%s: %.0f%%",
         requested, horizonS, m > 1 ? " on each of " + m + " resources" : "", 100 * requested / (m * horizonS)));
     return out;
   }
 
-  /** Seconds of observation requested (each request's shortest exposure). */
+  /**
+   * The rules on top of the requests (format additions A4, A5): visits (how many, all or nothing, one per
+   * window, the separations), each group (at most 10: its rules and members), configurations (labels in use,
+   * the change times, the start set-up). Empty when the scenario has none.
+   */
+  static List<String> structure(Scenario s) {
+    List<String> out = new ArrayList<>();
+    List<Request> repeated = s.requests().stream().filter(Request::hasVisits).toList();
+    if (!repeated.isEmpty()) {
+      int visits = repeated.stream().mapToInt(r -> r.visits().count()).sum();
+      long aon = repeated.stream().filter(r -> r.visits().allOrNothing()).count();
+      long perWindow = repeated.stream().filter(r -> r.visits().onePerWindow()).count();
+      double minSep = repeated.stream().mapToDouble(r -> r.visits().minSeparationS()).min().orElse(0);
+      boolean anyMax = repeated.stream().anyMatch(r -> r.visits().maxSeparationS() != null);
+      double maxSep = repeated.stream().filter(r -> r.visits().maxSeparationS() != null)
+          .mapToDouble(r -> r.visits().maxSeparationS()).max().orElse(0);
+      out.add(String.format(Locale.ROOT, "visits      %d request(s) with %d visits in all%s%s; separations from %.0f s%s",
+          repeated.size(), visits, aon > 0 ? ", " + aon + " all or nothing" : "",
+          perWindow > 0 ? ", " + perWindow + " one per window" : "", minSep,
+          anyMax ? String.format(Locale.ROOT, ", at most %.0f s", maxSep) : ", no maximum"));
+    }
+    int shown = 0;
+    for (dev.sequencer.model.Group g : s.groups()) {
+      if (shown++ == 10) {
+        out.add("group       ... and " + (s.groups().size() - 10) + " more");
+        break;
+      }
+      List<String> rules = new ArrayList<>();
+      if (g.ordered()) {
+        rules.add("ordered");
+      }
+      if (g.allOrNothing()) {
+        rules.add("all or nothing");
+      }
+      if (g.maxGapS() != null) {
+        rules.add(String.format(Locale.ROOT, "gap <= %.0f s", g.maxGapS()));
+      }
+      if (g.sameResource()) {
+        rules.add("same resource");
+      }
+      out.add("group       " + g.id() + ": " + (rules.isEmpty() ? "no rule" : String.join(", ", rules)) + ": "
+          + String.join(g.ordered() ? " -> " : ", ", g.members()));
+    }
+    Map<String, Integer> labels = new java.util.TreeMap<>();
+    s.requests().forEach(r -> labels.merge(r.configuration().isEmpty() ? "(none)" : r.configuration(), 1,
+        Integer::sum));
+    dev.sequencer.model.Reconfiguration rc = s.reconfiguration();
+    if (labels.size() > 1 || !labels.containsKey("(none)") || rc != null) {
+      String change = rc == null ? "no change time" : (rc.labels().isEmpty()
+          ? String.format(Locale.ROOT, "change %.0f s", rc.constantS())
+          : "change times for " + rc.labels().size() + " labels (matrix)")
+          + (rc.concurrentWithSlew() ? ", concurrent with the slew" : ", added to the slew");
+      out.add("configs     " + labels + "; " + change + "; start \"" + s.startConfiguration() + "\"");
+    }
+    return out;
+  }
+
+  /** Seconds of observation requested (each request's shortest exposure, once per visit). */
   static double requestedS(Scenario s) {
-    return s.requests().stream().mapToDouble(Request::minDurationS).sum();
+    return s.requests().stream().mapToDouble(r -> r.minDurationS() * r.visits().count()).sum();
   }
 
   /**
