@@ -48,7 +48,7 @@ import org.jfree.data.xy.XYIntervalSeries;
 import org.jfree.data.xy.XYIntervalSeriesCollection;
 
 /**
- * The plan against time: one row per scheduled request in start order (optionally the unscheduled ones
+ * The plan against time: one row per scheduled request in start order (its visits side by side on it) (optionally the unscheduled ones
  * below), its visibility windows as light bands, the observation as a dark bar and the slew/settle
  * before it in orange; at a ground site, daylight and twilight (Sun above the scenario's darkness limit,
  * else above -12 deg) shaded. Time axis in UTC, optionally local time and local sidereal time below it.
@@ -147,11 +147,12 @@ public final class TimelineChart {
           List<Observation> mine = t.observations().stream().filter(o -> Objects.equals(res, o.resource())).toList();
           int header = keys.size();
           keys.add(new RowKey(res, null, true));
-          mine.forEach(o -> keys.add(new RowKey(res, o.id(), true)));
+          // One row per request: the visits of a request (A4) side by side on it.
+          mine.stream().map(Observation::id).distinct().forEach(id -> keys.add(new RowKey(res, id, true)));
           groups.add(new Group(res, header, keys.size() - 1, mine));
         }
       } else {
-        t.observations().forEach(o -> keys.add(new RowKey(null, o.id(), true)));
+        t.observations().stream().map(Observation::id).distinct().forEach(id -> keys.add(new RowKey(null, id, true)));
       }
       if (includeUnscheduled) {
         t.unscheduled().forEach(u -> keys.add(new RowKey(null, u.id(), false)));

@@ -19,6 +19,7 @@ import java.util.ArrayList;
 import java.util.Comparator;
 import java.util.LinkedHashMap;
 import java.util.List;
+import java.util.Set;
 import java.util.Map;
 import javax.xml.parsers.DocumentBuilderFactory;
 import org.junit.jupiter.api.Test;
@@ -189,6 +190,26 @@ class TimelineChartResourcesTest {
     // one row per observation, then one per unscheduled request: the frame plus 18 px a row
     assertEquals(200 + 18 * Math.max(4, t.observations().size() + t.unscheduled().size()),
         TimelineChart.heightPx(s, t, true, null));
+  }
+
+  @Test
+  void theVisitsOfARequestShareItsRow() throws Exception {
+    // The bundled cadence night (A4): three visits of each of four fields; one row per request, no empty rows.
+    Scenario s = Embedding.bundled("/scenarios/cadence-queue-night.json");
+    PlanOutcome o = Planner.plan(s, NetworkPlans.CTX, SequencerOptions.from(s.solverOrDefaults())
+        .withSolver(SequencerOptions.Solver.GREEDY).withTimeLimitS(5));
+    Timeline t = o.timeline();
+    long requests = t.observations().stream().map(dev.sequencer.model.Observation::id).distinct().count();
+    assertTrue(requests < t.observations().size(), "precondition: some request has several visits");
+    int height = TimelineChart.heightPx(s, t, false, null);
+    assertEquals(200 + 18 * Math.max(4, requests), height, "one row per request");
+    Document d = parse(ChartFiles.svgDocument(TimelineChart.create(new PlanGeometry(s, NetworkPlans.CTX),
+        o.geometry().windows(), t, false), TimelineChart.WIDTH_PX, height));
+    List<Rectangle2D> bars = filled(d, OBSERVATION_FILL);
+    assertEquals(t.observations().size(), bars.size() - 1, "one bar per visit and the legend's swatch");
+    Set<Long> rows = new java.util.TreeSet<>();
+    bars.subList(0, bars.size() - 1).forEach(b -> rows.add(Math.round(b.getCenterY())));
+    assertEquals(requests, rows.size(), "every request's row holds its bars: " + rows);
   }
 
   @Test
