@@ -276,10 +276,15 @@ public final class ExactRepair {
       if (problem.isMarker(other)) {
         continue; // a resource's section boundary, not an observation
       }
-      // With several resources, the request's id (its observations there are on k's resource: the sections
-      // do not overlap in planner time).
-      String id = problem.sections() != null
-          ? problem.requests().get(problem.structure().requestOf(other)).id() : problem.task(other).id();
+      // Names of requests, not of the planner's tasks: with several resources the request's id (its
+      // observations there are on k's resource: the sections do not overlap in planner time); with visits
+      // "R visit 2", or "its visit 2" for another visit of k's own request (one per window).
+      int request = problem.structure().requestOf(other);
+      String id = problem.requests().get(request).id();
+      if (problem.requests().get(request).hasVisits()) {
+        id = (request == problem.structure().requestOf(k) ? "its" : id) + " visit "
+            + problem.structure().visitOf(other);
+      }
       if (overlaps) {
         taken.add(id);
       } else if (busyTo <= t.earliestStartS()) {
