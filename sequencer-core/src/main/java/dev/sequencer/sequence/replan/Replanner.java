@@ -456,10 +456,8 @@ public final class Replanner {
 
     /** Required requests neither frozen nor in the sub-problem's reach (no resource left). */
     private List<String> requiredLeft() {
-      Set<String> frozenIds = new HashSet<>();
-      frozen.forEach(o -> frozenIds.add(o.id()));
-      return full.requests().stream().filter(q -> q.required() && !frozenIds.contains(q.id())).map(Request::id)
-          .toList();
+      return full.requests().stream().filter(q -> q.required() && frozenCount(q.id()) < q.visits().count())
+          .map(Request::id).toList();
     }
 
     /** The remaining requests from each resource's departure to the horizon end. */
@@ -614,23 +612,22 @@ public final class Replanner {
       }
 
       private Instant lastEnd(String id) {
-        Instant end = null;
-        for (Observation o : frozen) {
-          if (o.id().equals(id) && (end == null || o.end().isAfter(end))) {
-            end = o.end();
-          }
-        }
-        return end;
+        return latest(id, Observation::end);
       }
 
       private Instant lastStart(String id) {
-        Instant start = null;
+        return latest(id, Observation::start);
+      }
+
+      /** The latest of {@code field} over the frozen observations of request {@code id} (null when none). */
+      private Instant latest(String id, java.util.function.Function<Observation, Instant> field) {
+        Instant out = null;
         for (Observation o : frozen) {
-          if (o.id().equals(id) && (start == null || o.start().isAfter(start))) {
-            start = o.start();
+          if (o.id().equals(id) && (out == null || field.apply(o).isAfter(out))) {
+            out = field.apply(o);
           }
         }
-        return start;
+        return out;
       }
 
       /** The request's remaining visits, required when its rules now ask for all of them. */
