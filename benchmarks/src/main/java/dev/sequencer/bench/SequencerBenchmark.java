@@ -41,9 +41,10 @@ public final class SequencerBenchmark {
       case "team" -> team(Double.parseDouble(args[1]), args.length > 2 ? args[2] : "");
       case "optw" -> optw(Double.parseDouble(args[1]), args.length > 2 ? args[2] : "");
       case "optwbound" -> optwBound(Double.parseDouble(args[1]), Integer.parseInt(args[2]), args.length > 3 ? args[3] : "");
+      case "cadence" -> cadence(Integer.parseInt(args[1]), Double.parseDouble(args[2]), Long.parseLong(args[3]));
       case "night" -> night(Integer.parseInt(args[1]), Double.parseDouble(args[2]), Long.parseLong(args[3]),
           args.length > 4 ? args[4] : "full");
-      default -> throw new IllegalArgumentException("usage: dumas <timeLimitS> [prefix] | team <timeLimitS> [prefix] | team1 <timeLimitS> <m> [prefix] | network <n> <sites> <timeLimitS> <seed> | optw <timeLimitS> [prefix] | optwbound <timeLimitS> <ngSize> [prefix] | night <n> <timeLimitS> <seed> [variant]");
+      default -> throw new IllegalArgumentException("usage: dumas <timeLimitS> [prefix] | team <timeLimitS> [prefix] | team1 <timeLimitS> <m> [prefix] | network <n> <sites> <timeLimitS> <seed> | optw <timeLimitS> [prefix] | optwbound <timeLimitS> <ngSize> [prefix] | night <n> <timeLimitS> <seed> [variant] | cadence <n> <timeLimitS> <seed>");
     }
   }
 
@@ -303,6 +304,41 @@ public final class SequencerBenchmark {
         r.totalTransitionS(), r.observations().size(), st.arcsKept(), st.arcsFeasible(), st.buildS(), st.solveS(), s,
         st.lnsRounds(), st.lnsImprovements(), peakHeapMb(), genS);
     System.out.println("  notes: " + st.notes());
+  }
+
+  /**
+   * The synthetic night with rules ({@code NightScenario.cadence}: 20 % of requests with 3 visits, 10
+   * calibration chains): greedy and CP-SAT at the same limit, priority, ratio, bound and gap, the visits and
+   * chains each plan completes.
+   */
+  private static void cadence(int n, double timeLimitS, long seed) {
+    PlanningProblem p = NightScenario.cadence(n, seed);
+    SequencerResult greedy = new Sequencer().plan(p, SequencerOptions.defaults()
+        .withSolver(SequencerOptions.Solver.GREEDY).withTimeLimitS(timeLimitS).withRelaxationBound(false));
+    long t0 = System.nanoTime();
+    SequencerResult r = new Sequencer().plan(p, SequencerOptions.defaults().withTimeLimitS(timeLimitS).withWorkers(2)
+        .withSeed((int) seed));
+    double s = (System.nanoTime() - t0) * 1e-9;
+    System.out.printf("cadence n=%d seed=%d limit=%.0fs: status %s, priority %.0f (greedy %.0f, ratio %.3f), bound %.1f,"
+            + " gap %.1f%%, observations %d (greedy %d), third visits %d (greedy %d), chains complete %d (greedy %d) of"
+            + " %d, wall %.1f s%n", n, seed, timeLimitS, r.status(), r.totalPriority(), greedy.totalPriority(),
+        r.totalPriority() / greedy.totalPriority(), r.boundPriority(), 100 * r.gap(), r.observations().size(),
+        greedy.observations().size(), thirdVisits(r), thirdVisits(greedy), chains(p, r), chains(p, greedy),
+        p.groups().size(), s);
+    System.out.printf("  build %.2f s, solve %.2f s, LNS rounds %d (improving %d), phases %s%n", r.stats().buildS(),
+        r.stats().solveS(), r.stats().lnsRounds(), r.stats().lnsImprovements(), r.stats().phaseS());
+    System.out.println("  notes: " + r.stats().notes());
+  }
+
+  private static long thirdVisits(SequencerResult r) {
+    return r.observations().stream().filter(o -> Integer.valueOf(3).equals(o.visit())).count();
+  }
+
+  /** Chains with all three members observed. */
+  private static long chains(PlanningProblem p, SequencerResult r) {
+    java.util.Set<String> in = new java.util.HashSet<>();
+    r.observations().forEach(o -> in.add(o.id()));
+    return p.groups().stream().filter(g -> in.containsAll(g.members())).count();
   }
 
   private static void resetPeaks() {

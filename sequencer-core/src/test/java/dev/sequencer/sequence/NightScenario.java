@@ -1,6 +1,8 @@
 package dev.sequencer.sequence;
 
+import dev.sequencer.model.Group;
 import dev.sequencer.model.Request;
+import dev.sequencer.model.Visits;
 import dev.sequencer.model.RequestWindows;
 import dev.sequencer.model.TimeWindow;
 import dev.sequencer.sequence.problem.PlanningProblem;
@@ -60,6 +62,34 @@ public final class NightScenario {
     }
     return PlanningProblem.of(new TimeWindow(T0, T0.plusSeconds(NIGHT_S)), requests, windows,
         Transitions.matrix(m, fromStart));
+  }
+
+  /**
+   * The night of {@link #generate} as a queue with rules (format additions A4, A5; the benchmark of issue 16):
+   * every fifth request asks for 3 visits 40 min to 3 h apart (20 %), and 10 chains calibrator → science →
+   * calibrator, ordered, all or nothing, at most 10 min between members, each chain's two calibrators (other
+   * requests of the night, 5 min, priority 1) given the science request's windows. Same (n, seed), same problem.
+   */
+  public static PlanningProblem cadence(int n, long seed) {
+    PlanningProblem base = generate(n, seed);
+    List<Request> requests = new ArrayList<>(base.requests());
+    List<RequestWindows> windows = new ArrayList<>(base.windows());
+    for (int k = 0; k < n; k += 5) {
+      requests.set(k, requests.get(k).withVisits(new Visits(3, 2400, 10800.0, false, false)));
+    }
+    List<Group> groups = new ArrayList<>();
+    int chains = 0;
+    for (int k = 1; k + 2 < n && chains < 10; k += 5 * Math.max(1, n / 50)) {
+      Request science = requests.get(k + 1);
+      for (int c : new int[] {k, k + 2}) {
+        Request cal = requests.get(c);
+        requests.set(c, new Request(cal.id(), null, 300.0, 1.0, false, List.of(), null));
+        windows.set(c, new RequestWindows(cal.id(), windows.get(k + 1).intervals()));
+      }
+      groups.add(new Group("CHAIN" + (++chains), List.of(requests.get(k).id(), science.id(), requests.get(k + 2).id()),
+          true, true, 600.0, false));
+    }
+    return PlanningProblem.of(base.horizon(), requests, groups, windows, base.requestTransitions());
   }
 
   /**
