@@ -78,7 +78,7 @@ final class InspectCommand implements Callable<Integer> {
     for (Resource res : resources) {
       Scenario view = res == null ? s
           : s.forResource(res).withRequests(s.requests().stream().filter(q -> q.allows(res.id())).toList());
-      Map<String, List<WindowsFile.Pass>> passes = WindowsCommand.passes(view, astro);
+      Map<String, List<WindowsFile.Pass>> passes = ContactPlan.passes(view, astro);
       for (Request q : view.requests()) {
         int k = 0;
         for (WindowsFile.Pass p : passes.getOrDefault(q.id(), List.of())) {

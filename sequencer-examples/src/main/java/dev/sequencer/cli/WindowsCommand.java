@@ -5,7 +5,6 @@ import dev.sequencer.io.WindowsFile;
 import dev.sequencer.model.Scenario;
 import dev.sequencer.model.TimeWindow;
 import dev.sequencer.visibility.RequestVisibility;
-import dev.sequencer.visibility.SkyValues;
 import dev.sequencer.visibility.VisibilityCalculator;
 import java.io.PrintWriter;
 import java.nio.file.Path;
@@ -60,11 +59,11 @@ final class WindowsCommand implements Callable<Integer> {
     java.util.Map<String, java.util.Map<String, List<WindowsFile.Pass>>> passes = new java.util.HashMap<>();
     if (s.hasResources()) {
       for (dev.sequencer.model.Resource res : s.resources()) {
-        passes.put(res.id(), passes(s.forResource(res).withRequests(
+        passes.put(res.id(), ContactPlan.passes(s.forResource(res).withRequests(
             s.requests().stream().filter(q -> q.allows(res.id())).toList()), common.astro()));
       }
     } else {
-      passes.put(null, passes(s, common.astro()));
+      passes.put(null, ContactPlan.passes(s, common.astro()));
     }
     double elapsed = (System.nanoTime() - t0) * 1e-9;
     boolean several = s.hasResources();
@@ -105,25 +104,5 @@ final class WindowsCommand implements Callable<Integer> {
       out.println("wrote " + output);
     }
     return 0;
-  }
-
-  /**
-   * The passes of {@code s}'s orbiting targets over its ground site, by request id (none elsewhere): rise and
-   * set at the geometric horizon, as in the report's pass table.
-   */
-  static java.util.Map<String, List<WindowsFile.Pass>> passes(Scenario s, dev.sequencer.astro.AstroContext ctx) {
-    java.util.Map<String, List<WindowsFile.Pass>> out = new java.util.HashMap<>();
-    boolean orbiting = s.requests().stream().anyMatch(q -> q.target() instanceof dev.sequencer.model.OrbitingTarget);
-    if (!(s.observer() instanceof dev.sequencer.model.GroundSite) || !orbiting) {
-      return out;
-    }
-    SkyValues sky = SkyValues.of(s, ctx);
-    for (dev.sequencer.model.Request q : s.requests()) {
-      if (q.target() instanceof dev.sequencer.model.OrbitingTarget) {
-        out.put(q.id(), sky.passes(q, 0.0).stream().map(p -> new WindowsFile.Pass(p.rise(), p.culmination(),
-            p.culminationElevationDeg(), p.set())).toList());
-      }
-    }
-    return out;
   }
 }

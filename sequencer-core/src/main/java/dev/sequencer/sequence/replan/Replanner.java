@@ -956,10 +956,10 @@ public final class Replanner {
         Integer missing = request.hasVisits() ? request.visits().count() - n : null;
         List<Task> mine = tasksOf(full, k);
         boolean everSchedulable = mine.stream().anyMatch(Task::schedulable);
-        int q = fullToSub == null ? -1 : fullToSub[k];
+        int q = fullToSub[k]; // set with the sub-problem, before any timeline is built
         String reason;
         String closedWhy = residual == null ? null : residual.closedReason(id);
-        if (fullToSub != null && q < 0) {
+        if (q < 0) {
           reason = FAILED_DROPPED;
         } else if (closedWhy != null) {
           reason = closedWhy;
