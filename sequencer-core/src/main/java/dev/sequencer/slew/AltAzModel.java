@@ -9,6 +9,14 @@ import java.util.List;
  * by the {@link CableWrap}; a pointing outside [elevationMinDeg, elevationMaxDeg] is refused.
  */
 final class AltAzModel implements SlewModel {
+  /**
+   * Axis moves at or below this many degrees are no move: what is left of a zero move after the azimuth is
+   * unwrapped over an observation by summing pieces (a mount tracking one target through two back-to-back
+   * observations, as the visits of one request, does not move). 1e-9 deg is 3.6 micro-arcseconds, far below
+   * any mount's encoder; the validator draws the same line on its own (SlewLegs).
+   */
+  static final double NO_MOVE_DEG = 1e-9;
+
   private final RestToRest azimuth;
   private final RestToRest elevation;
   private final double settleS;
@@ -60,9 +68,12 @@ final class AltAzModel implements SlewModel {
     return elevationMaxDeg;
   }
 
-  /** Seconds for axis moves of the given sizes (>= 0): the slower axis plus settle, 0 when neither moves. */
+  /**
+   * Seconds for axis moves of the given sizes (>= 0): the slower axis plus settle, 0 when neither moves
+   * (more than {@link #NO_MOVE_DEG}).
+   */
   double seconds(double azimuthDeg, double elevationDeg) {
-    if (!(azimuthDeg > 0) && !(elevationDeg > 0)) {
+    if (!(azimuthDeg > NO_MOVE_DEG) && !(elevationDeg > NO_MOVE_DEG)) {
       return 0;
     }
     return movingSeconds(azimuthDeg, elevationDeg);

@@ -28,8 +28,8 @@ import org.orekit.time.AbsoluteDate;
  *       through those catalogue directions (taken as written, GCRF, without aberration): the sum of the legs'
  *       profiles plus one settle.
  *   <li><b>altaz</b> (ground sites): each axis its own profile, the slower axis plus settle (0 when neither
- *       moves); the target's elevation at arrival must lie in the mount's [0°, 90°]. Cable wrap: the mount's
- *       unwrapped azimuth starts at the start pointing's azimuth if inside {@code azimuthRangeDeg}, else at
+ *       moves more than {@link #NO_MOVE_DEG}); the target's elevation at arrival must lie in the mount's
+ *       [0°, 90°]. Cable wrap: the mount's unwrapped azimuth starts at the start pointing's azimuth if inside {@code azimuthRangeDeg}, else at
  *       its branch nearest the range centre (without a start pointing: 0 s onto the first target's branch
  *       nearest the centre); each leg goes to the branch of the target's azimuth nearest the current one inside
  *       the range (ties to the branch nearer the centre); during an observation the mount follows the target's
@@ -43,6 +43,11 @@ final class SlewLegs {
   /** Mount elevation limits of the alt-az model, degrees (the format's default mount). */
   static final double MOUNT_ELEVATION_MIN_DEG = 0;
   static final double MOUNT_ELEVATION_MAX_DEG = 90;
+  /**
+   * Axis moves at or below this are no move (alt-az): the noise of summing the unwrapped azimuth over an
+   * observation, where one target is tracked through two back-to-back observations (3.6 micro-arcseconds).
+   */
+  static final double NO_MOVE_DEG = 1e-9;
   private static final double UNWRAP_STEP_S = 10;
   private static final double UNWRAP_MAX_TURN_DEG = 30;
   private static final double UNWRAP_MIN_S = 0.25;
@@ -203,7 +208,7 @@ final class SlewLegs {
       }
       double dAz = Math.abs(v - u);
       double dEl = Math.abs(target[1] - fromEl);
-      boolean moves = dAz > 0 || dEl > 0;
+      boolean moves = dAz > NO_MOVE_DEG || dEl > NO_MOVE_DEG;
       double seconds = moves ? Math.max(az.seconds(dAz), el.seconds(dEl)) + a.settleS() : 0;
       out.add(new Leg(seconds, null, null, moves ? new double[] {u, fromEl, v, target[1]} : null));
       state = v;
