@@ -1,6 +1,7 @@
 package dev.sequencer.charts;
 
 import dev.sequencer.io.WindowsFile.ResourceWindows;
+import dev.sequencer.model.Group;
 import dev.sequencer.model.Observation;
 import dev.sequencer.model.RequestWindows;
 import dev.sequencer.model.Scenario;
@@ -10,11 +11,15 @@ import java.awt.BasicStroke;
 import java.awt.Color;
 import java.awt.Font;
 import java.awt.Graphics2D;
+import java.awt.Paint;
+import java.awt.Stroke;
+import java.awt.geom.Line2D;
 import java.awt.geom.Rectangle2D;
 import java.text.SimpleDateFormat;
 import java.time.Duration;
 import java.time.Instant;
 import java.util.ArrayList;
+import java.util.Comparator;
 import java.util.HashMap;
 import java.util.IdentityHashMap;
 import java.util.LinkedHashSet;
@@ -25,6 +30,9 @@ import java.util.Objects;
 import java.util.Set;
 import java.util.TimeZone;
 import org.jfree.chart.JFreeChart;
+import org.jfree.chart.LegendItem;
+import org.jfree.chart.LegendItemCollection;
+import org.jfree.chart.annotations.AbstractXYAnnotation;
 import org.jfree.chart.annotations.XYBoxAnnotation;
 import org.jfree.chart.axis.DateAxis;
 import org.jfree.chart.axis.SymbolAxis;
@@ -32,6 +40,7 @@ import org.jfree.chart.axis.ValueAxis;
 import org.jfree.chart.plot.CrosshairState;
 import org.jfree.chart.plot.IntervalMarker;
 import org.jfree.chart.plot.Marker;
+import org.jfree.chart.plot.Plot;
 import org.jfree.chart.plot.PlotOrientation;
 import org.jfree.chart.plot.PlotRenderingInfo;
 import org.jfree.chart.plot.XYPlot;
@@ -42,6 +51,7 @@ import org.jfree.chart.title.TextTitle;
 import org.jfree.chart.ui.Layer;
 import org.jfree.chart.ui.RectangleAnchor;
 import org.jfree.chart.ui.RectangleEdge;
+import org.jfree.chart.text.TextUtils;
 import org.jfree.chart.ui.TextAnchor;
 import org.jfree.data.xy.XYDataset;
 import org.jfree.data.xy.XYIntervalSeries;
@@ -61,6 +71,11 @@ import org.jfree.data.xy.XYIntervalSeriesCollection;
  * windows of every resource. In the SVG each band is a group {@code <g class="lane-group" data-resource="…">},
  * its label one {@code <g class="lane-label" data-resource="…">} and each observation bar one
  * {@code <g class="observation" data-request="…" data-resource="…">}.
+ *
+ * <p>Groups (format addition A5): the scheduled members of each group are linked in start order by a thin
+ * dashed line from the end of one member's bar to the start of the next member's, across rows and lane groups,
+ * the group id written once beside the first link; in the SVG each group's links and label are one group
+ * {@code <g class="group-link" data-group="…">}. A group with fewer than two members scheduled has no link.
  */
 public final class TimelineChart {
   /** Width of the picture, pixels. */
@@ -78,6 +93,10 @@ public final class TimelineChart {
   private static final Color[] LANE_GROUP = {new Color(205, 215, 235, 110), new Color(215, 232, 205, 110)};
   private static final Color LABEL_BACKGROUND = new Color(255, 255, 255, 190);
   private static final Color CLEAR = new Color(0, 0, 0, 0);
+  private static final Color GROUP_LINK = new Color(128, 40, 150);
+  private static final BasicStroke GROUP_LINK_STROKE = new BasicStroke(1.5f, BasicStroke.CAP_BUTT,
+      BasicStroke.JOIN_MITER, 4f, new float[] {5f, 3f}, 0f);
+  private static final Font GROUP_LINK_FONT = new Font(Font.SANS_SERIF, Font.BOLD, 11);
   private static final Font TICK_FONT = new Font(Font.SANS_SERIF, Font.PLAIN, 12);
   private static final Font LABEL_FONT = new Font(Font.SANS_SERIF, Font.BOLD, 14);
   private static final Font GROUP_FONT = new Font(Font.SANS_SERIF, Font.BOLD, 13);
@@ -130,13 +149,13 @@ public final class TimelineChart {
   private record RowKey(String resource, String id, boolean scheduled) {}
 
   /** One lane group (A6): its resource (null when observations name none), header row, last row, observations. */
-  private record Group(String resource, int header, int last, List<Observation> observations) {}
+  private record LaneGroup(String resource, int header, int last, List<Observation> observations) {}
 
   /** The rows of a chart, top to bottom, and its lane groups (none with one observer). */
-  private record Rows(List<RowKey> keys, Map<RowKey, Integer> rowOf, List<Group> groups) {
+  private record Rows(List<RowKey> keys, Map<RowKey, Integer> rowOf, List<LaneGroup> groups) {
     static Rows of(Scenario s, Timeline t, boolean includeUnscheduled) {
       List<RowKey> keys = new ArrayList<>();
-      List<Group> groups = new ArrayList<>();
+      List<LaneGroup> groups = new ArrayList<>();
       if (s.hasResources()) {
         // The scenario's resources in file order, then any other resource the timeline names (a timeline that
         // fails its check still gets every observation drawn).
@@ -149,7 +168,7 @@ public final class TimelineChart {
           keys.add(new RowKey(res, null, true));
           // One row per request: the visits of a request (A4) side by side on it.
           mine.stream().map(Observation::id).distinct().forEach(id -> keys.add(new RowKey(res, id, true)));
-          groups.add(new Group(res, header, keys.size() - 1, mine));
+          groups.add(new LaneGroup(res, header, keys.size() - 1, mine));
         }
       } else {
         t.observations().stream().map(Observation::id).distinct().forEach(id -> keys.add(new RowKey(null, id, true)));
@@ -258,11 +277,18 @@ public final class TimelineChart {
 
     String shading = rows.groups().isEmpty() ? sunWords(shadeSun(geometry, (from, to, color) -> marker(plot, from, to,
         color))) : laneGroups(plot, observed, windowBars, geometry, rows);
+    boolean linked = groupLinks(plot, s, timeline, rows);
 
     JFreeChart chart = new JFreeChart(title(s), new Font(Font.SANS_SERIF, Font.BOLD, 18), plot, true);
     chart.setBackgroundPaint(Color.WHITE);
     chart.getLegend().setItemFont(TICK_FONT);
     chart.getLegend().setPosition(RectangleEdge.BOTTOM);
+    if (linked) {
+      LegendItemCollection items = plot.getLegendItems();
+      items.add(new LegendItem("group (members in start order)", null, null, null, new Line2D.Double(-8, 0, 8, 0),
+          GROUP_LINK_STROKE, GROUP_LINK));
+      plot.setFixedLegendItems(items);
+    }
     String sub = String.format(Locale.ROOT, "%s, %d scheduled, %d not; priority %.1f, bound %s, slew total %.0f s%s%s",
         timeline.status(), timeline.observations().size(), timeline.unscheduled().size(), timeline.priority(),
         timeline.bound() == null ? "-" : String.format(Locale.ROOT, "%.1f", timeline.bound()), timeline.slewSeconds(),
@@ -280,7 +306,7 @@ public final class TimelineChart {
     Scenario s = geometry.scenario();
     Set<String> limits = new LinkedHashSet<>();
     for (int i = 0; i < rows.groups().size(); i++) {
-      Group gr = rows.groups().get(i);
+      LaneGroup gr = rows.groups().get(i);
       double lo = gr.header() - 0.5;
       double hi = gr.last() + 0.5;
       String resource = gr.resource() == null ? "" : gr.resource();
@@ -312,6 +338,74 @@ public final class TimelineChart {
     return limits.isEmpty() ? "" : "shaded: Sun above each resource's darkness limit (" + String.join(", ", limits)
         + "; darker: above 0\u00b0)";
   }
+  /**
+   * Adds the links of every group (A5) with at least two members scheduled: its members' observations in start
+   * order, one link between each two consecutive ones of different members (visits of one member share a row and
+   * are not linked); returns whether any link was drawn.
+   */
+  private static boolean groupLinks(XYPlot plot, Scenario s, Timeline timeline, Rows rows) {
+    boolean any = false;
+    for (Group gr : s.groups()) {
+      List<Observation> members = timeline.observations().stream().filter(o -> gr.members().contains(o.id()))
+          .sorted(Comparator.comparing(Observation::start)).toList();
+      List<double[]> links = new ArrayList<>();
+      for (int i = 1; i < members.size(); i++) {
+        Observation from = members.get(i - 1);
+        Observation to = members.get(i);
+        if (!from.id().equals(to.id())) {
+          links.add(new double[] {rows.of(s, from), from.end().toEpochMilli(), rows.of(s, to), to.start().toEpochMilli()});
+        }
+      }
+      if (!links.isEmpty()) {
+        plot.addAnnotation(new GroupLink(gr.id(), links));
+        any = true;
+      }
+    }
+    return any;
+  }
+
+  /**
+   * The links of one group (A5) on the horizontal timeline plot (rows down, time across): each a dashed line
+   * from (row, epoch ms) to (row, epoch ms), the group id once above the first link's start, all inside one SVG
+   * group {@code <g class="group-link" data-group="…">}.
+   */
+  private static final class GroupLink extends AbstractXYAnnotation {
+    private final String group;
+    /** Each link: {row from, epoch ms from, row to, epoch ms to}. */
+    private final List<double[]> links;
+
+    GroupLink(String group, List<double[]> links) {
+      this.group = group;
+      this.links = List.copyOf(links);
+    }
+
+    @Override
+    public void draw(Graphics2D g2, XYPlot plot, Rectangle2D dataArea, ValueAxis domainAxis, ValueAxis rangeAxis,
+        int rendererIndex, PlotRenderingInfo info) {
+      RectangleEdge rowEdge = Plot.resolveDomainAxisLocation(plot.getDomainAxisLocation(), plot.getOrientation());
+      RectangleEdge timeEdge = Plot.resolveRangeAxisLocation(plot.getRangeAxisLocation(), plot.getOrientation());
+      Paint paint = g2.getPaint();
+      Stroke stroke = g2.getStroke();
+      Font font = g2.getFont();
+      SvgGroups.around(g2, Map.of("class", "group-link", "data-group", group), () -> {
+        g2.setPaint(GROUP_LINK);
+        g2.setStroke(GROUP_LINK_STROKE);
+        for (double[] l : links) {
+          g2.draw(new Line2D.Double(rangeAxis.valueToJava2D(l[1], dataArea, timeEdge),
+              domainAxis.valueToJava2D(l[0], dataArea, rowEdge), rangeAxis.valueToJava2D(l[3], dataArea, timeEdge),
+              domainAxis.valueToJava2D(l[2], dataArea, rowEdge)));
+        }
+        double[] first = links.get(0);
+        g2.setFont(GROUP_LINK_FONT);
+        TextUtils.drawAlignedString(group, g2, (float) rangeAxis.valueToJava2D(first[1], dataArea, timeEdge) + 3,
+            (float) domainAxis.valueToJava2D(first[0], dataArea, rowEdge) - 4, TextAnchor.BOTTOM_LEFT);
+      });
+      g2.setPaint(paint);
+      g2.setStroke(stroke);
+      g2.setFont(font);
+    }
+  }
+
   /** "R3 ! p5": the id, "!" for a required request, the priority. */
   static String label(Scenario s, String id) {
     return s.request(id).map(r -> id + (r.required() ? " !" : "") + (r.priority() == null ? "" : " p" + number(r.priority())))
