@@ -19,6 +19,7 @@ import dev.sequencer.model.ConstraintField;
 import dev.sequencer.model.Constraints;
 import dev.sequencer.model.EarthPoint;
 import dev.sequencer.model.GroundSite;
+import dev.sequencer.model.Group;
 import dev.sequencer.model.Observation;
 import dev.sequencer.model.OrbitObserver;
 import dev.sequencer.model.OrbitingTarget;
@@ -455,6 +456,19 @@ public final class NightReport {
       heads.addAll(List.of("airmass at start", "airmass at end", "elevation at start [\u00b0]", "LST at start"));
     }
     heads.addAll(List.of("Moon separation [\u00b0]", "slew before [s]", "duration [s]"));
+    // A4, A5 after the others, so that a column's number (#sort=N) is the same with them or without
+    boolean visits = s().requests().stream().anyMatch(Request::hasVisits);
+    boolean groups = !s().groups().isEmpty();
+    boolean configurations = hasConfigurations();
+    if (visits) {
+      heads.add("visit");
+    }
+    if (groups) {
+      heads.add("group");
+    }
+    if (configurations) {
+      heads.add("configuration");
+    }
     heads.forEach(hd -> b.append("<th>").append(esc(hd)).append("</th>"));
     b.append("</tr></thead>\n<tbody>\n");
     int k = 0;
@@ -483,9 +497,41 @@ public final class NightReport {
       }
       double moon = r == null || at == null ? Double.NaN : at.moonSeparationDeg(r, o.start());
       b.append(cell(num(moon, 1), key(moon))).append(cell(num(o.slewSeconds(), 1), key(o.slewSeconds())))
-          .append(cell(num(o.durationS(), 0), key(o.durationS()))).append("</tr>\n");
+          .append(cell(num(o.durationS(), 0), key(o.durationS())));
+      if (visits) {
+        boolean repeated = r != null && r.hasVisits() && o.visit() != null;
+        b.append(cell(repeated ? o.visit() + "/" + r.visits().count() : "", repeated ? Integer.toString(o.visit()) : ""));
+      }
+      if (groups) {
+        groupCell(o.id());
+      }
+      if (configurations) {
+        String label = r == null ? "" : r.configuration();
+        b.append(cell(label.isEmpty() ? "(default)" : esc(label), label));
+      }
+      b.append("</tr>\n");
     }
     b.append("</tbody></table>\n</section>\n");
+  }
+
+  /**
+   * The group cell of request {@code id} (A5): the group's id and, in an ordered group, the member's place in it
+   * ("CHAIN1 2/3"); empty for a request in no group. Sorted by group, then place.
+   */
+  private void groupCell(String id) {
+    Group g = s().groupOf(id).orElse(null);
+    if (g == null) {
+      b.append(cell("", ""));
+      return;
+    }
+    int place = g.members().indexOf(id) + 1;
+    String text = g.ordered() ? g.id() + " " + place + "/" + g.members().size() : g.id();
+    b.append(cell(esc(text), String.format(Locale.ROOT, "%s %04d", g.id(), g.ordered() ? place : 0)));
+  }
+
+  /** True when some request names a configuration (A5) other than the default {@code ""}. */
+  private boolean hasConfigurations() {
+    return s().requests().stream().anyMatch(r -> !r.configuration().isEmpty());
   }
 
   private static String key(double v) {
@@ -583,8 +629,9 @@ public final class NightReport {
       b.append("<p>Every request is in the plan.</p>\n</section>\n");
       return;
     }
+    boolean groups = !s().groups().isEmpty();
     b.append("<table class=\"sortable\" id=\"unscheduled-table\"><thead><tr><th>id</th><th>priority</th><th>required</th>"
-        + "<th>target</th><th>reason</th></tr></thead>\n<tbody>\n");
+        + "<th>target</th>").append(groups ? "<th>group</th>" : "").append("<th>reason</th></tr></thead>\n<tbody>\n");
     for (Unscheduled u : t().unscheduled()) {
       Request r = s().request(u.id()).orElse(null);
       String reason = in.reasons().getOrDefault(u.id(), u.reason());
@@ -592,7 +639,11 @@ public final class NightReport {
           .append(cell(r == null || r.priority() == null ? "\u2013" : num(r.priority(), 2),
               r == null || r.priority() == null ? "" : Double.toString(r.priority())))
           .append(cell(r != null && r.required() ? "required" : "", r != null && r.required() ? "1" : "0"))
-          .append(cell(esc(targetText(r)), targetText(r))).append(cell(esc(reason), reason)).append("</tr>\n");
+          .append(cell(esc(targetText(r)), targetText(r)));
+      if (groups) {
+        groupCell(u.id());
+      }
+      b.append(cell(esc(reason), reason)).append("</tr>\n");
     }
     b.append("</tbody></table>\n</section>\n");
   }
