@@ -72,7 +72,7 @@ final class PlanCommand implements Callable<Integer> {
   public Integer call() {
     PrintWriter out = spec.commandLine().getOut();
     ScenarioReader.Result r = Pipeline.read(scenario, out);
-    ReportOutput.zone(zone, r.scenario());
+    ReportOutput.zone(zone, r.scenario().observer());
     Outputs.check(Outputs.file("--output", output), Outputs.file("--csv", csv),
         Outputs.plot("--plot", plot, r.scenario()), Outputs.file("--report", report));
     PlanOutcome planned = solve(r.scenario(), common.astro(), solverOptions, r.scenario().solverOrDefaults(), out);

@@ -49,7 +49,7 @@ final class ReportCommand implements Callable<Integer> {
     PrintWriter out = spec.commandLine().getOut();
     ScenarioReader.Result r = Pipeline.read(scenario, out);
     Timeline t = TimelineFile.read(timeline);
-    ReportOutput.zone(zone, r.scenario());
+    ReportOutput.zone(zone, r.scenario().observer());
     Outputs.check(Outputs.file("--output", output));
     Pipeline p = Pipeline.of(r.scenario(), common.astro());
     List<String> violations = Pipeline.violations(r.scenario(), common.astro(), t, CheckCommand.replanInstant(t));

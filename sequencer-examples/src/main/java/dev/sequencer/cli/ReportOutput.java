@@ -3,6 +3,9 @@ package dev.sequencer.cli;
 import dev.sequencer.charts.TimeAxes;
 import dev.sequencer.io.AtomicFiles;
 import dev.sequencer.model.GroundSite;
+import dev.sequencer.model.Observer;
+import dev.sequencer.model.Resource;
+import dev.sequencer.model.Scenario;
 import dev.sequencer.model.Timeline;
 import dev.sequencer.model.Unscheduled;
 import dev.sequencer.report.NightReport;
@@ -18,8 +21,11 @@ import java.util.Map;
 final class ReportOutput {
   private ReportOutput() {}
 
-  /** The zone of "local time": {@code --zone} when given, else the site's nautical zone (UTC for a spacecraft). */
-  static ZoneId zone(String zoneArg, dev.sequencer.model.Scenario s) {
+  /**
+   * The zone of "local time" at {@code observer}: {@code --zone} when given, else the site's nautical zone (UTC for
+   * a spacecraft, or without an observer).
+   */
+  static ZoneId zone(String zoneArg, Observer observer) {
     if (zoneArg != null) {
       try {
         return ZoneId.of(zoneArg.trim());
@@ -28,15 +34,24 @@ final class ReportOutput {
             + "or an offset such as +02:00)");
       }
     }
-    return s.observer() instanceof GroundSite g ? TimeAxes.nauticalZone(g.longitudeDeg()) : ZoneId.of("UTC");
+    return observer instanceof GroundSite g ? TimeAxes.nauticalZone(g.longitudeDeg()) : ZoneId.of("UTC");
   }
 
-  /** How the zone was chosen, for the axis label. */
-  static String zoneNote(String zoneArg, dev.sequencer.model.Scenario s) {
+  /** How the zone of {@link #zone} was chosen, for the axis label. */
+  static String zoneNote(String zoneArg, Observer observer) {
     if (zoneArg != null) {
       return "--zone";
     }
-    return s.observer() instanceof GroundSite ? "nautical zone of the longitude; --zone to choose" : null;
+    return observer instanceof GroundSite ? "nautical zone of the longitude; --zone to choose" : null;
+  }
+
+  /** With several resources (A6), each resource's zone of "local time" by id, by the rule of {@link #zone}. */
+  static Map<String, NightReport.LocalZone> resourceZones(String zoneArg, Scenario s) {
+    Map<String, NightReport.LocalZone> out = new LinkedHashMap<>();
+    for (Resource r : s.resources()) {
+      out.put(r.id(), new NightReport.LocalZone(zone(zoneArg, r.observer()), zoneNote(zoneArg, r.observer())));
+    }
+    return out;
   }
 
   /** Writes the report of {@code t} to {@code file} and says so on {@code out}. */
@@ -47,7 +62,8 @@ final class ReportOutput {
       reasons.put(u.id(), Explained.of(u, p.visibility()));
     }
     NightReport.Input in = new NightReport.Input(p.scenario(), t, p.windows(), gap, warnings, reasons,
-        zone(zoneArg, p.scenario()), zoneNote(zoneArg, p.scenario()), violations, p.windowsByResource());
+        zone(zoneArg, p.scenario().observer()), zoneNote(zoneArg, p.scenario().observer()), violations,
+        p.windowsByResource(), resourceZones(zoneArg, p.scenario()));
     AtomicFiles.writeUtf8(file, NightReport.html(in, p.astro()));
     out.println("wrote " + file);
   }

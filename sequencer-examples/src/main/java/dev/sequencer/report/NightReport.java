@@ -62,6 +62,14 @@ public final class NightReport {
       .withZone(java.time.ZoneOffset.UTC);
 
   /**
+   * The zone of "local time" and how it was chosen (shown beside it), e.g. the nautical zone of a site's longitude.
+   *
+   * @param zone the zone
+   * @param note how it was chosen, or null
+   */
+  public record LocalZone(ZoneId zone, String note) {}
+
+  /**
    * What a report shows.
    *
    * @param scenario the scenario
@@ -74,22 +82,37 @@ public final class NightReport {
    * @param zoneNote how that zone was chosen, or null
    * @param violations what the validator found wrong with the timeline (empty when it is valid)
    * @param resourceWindows with several resources (A6), each resource's windows (empty with one observer)
+   * @param resourceZones with several resources (A6), the zone of "local time" of each resource, by id: its
+   *     section and its night chart use it; a resource not in the map gets {@code zone} and {@code zoneNote}
    */
   public record Input(Scenario scenario, Timeline timeline, List<RequestWindows> windows, Double gap,
       List<String> warnings, Map<String, String> reasons, ZoneId zone, String zoneNote, List<String> violations,
-      List<ResourceWindows> resourceWindows) {
+      List<ResourceWindows> resourceWindows, Map<String, LocalZone> resourceZones) {
     public Input {
       windows = List.copyOf(windows);
       warnings = List.copyOf(warnings);
       reasons = Map.copyOf(reasons);
       violations = List.copyOf(violations);
       resourceWindows = List.copyOf(resourceWindows);
+      resourceZones = Map.copyOf(resourceZones);
+    }
+
+    /** What a report shows, every resource (A6) in the one {@code zone}. */
+    public Input(Scenario scenario, Timeline timeline, List<RequestWindows> windows, Double gap, List<String> warnings,
+        Map<String, String> reasons, ZoneId zone, String zoneNote, List<String> violations,
+        List<ResourceWindows> resourceWindows) {
+      this(scenario, timeline, windows, gap, warnings, reasons, zone, zoneNote, violations, resourceWindows, Map.of());
     }
 
     /** What a report of a scenario with one observer shows. */
     public Input(Scenario scenario, Timeline timeline, List<RequestWindows> windows, Double gap, List<String> warnings,
         Map<String, String> reasons, ZoneId zone, String zoneNote, List<String> violations) {
       this(scenario, timeline, windows, gap, warnings, reasons, zone, zoneNote, violations, List.of());
+    }
+
+    /** The zone of "local time" of resource {@code id} (A6): its own, else the report's. */
+    LocalZone zoneOf(String id) {
+      return resourceZones.getOrDefault(id, new LocalZone(zone, zoneNote));
     }
   }
 
@@ -190,7 +213,7 @@ public final class NightReport {
       Instant mid = mid();
       dt("Moon", "illuminated " + num(100 * sky.moonIlluminatedFraction(mid), 0) + " % at " + hm(mid)
           + " UTC; elevation " + num(sky.moonElevationDeg(mid), 1) + "\u00b0 then");
-      dt("local time", esc(axes.zoneName(mid)) + (in.zoneNote() == null ? "" : " (" + esc(in.zoneNote()) + ")"));
+      dt("local time", zoneWords(axes, mid));
     }
     b.append("</dl>\n");
     if (!in.warnings().isEmpty()) {
@@ -199,6 +222,17 @@ public final class NightReport {
       b.append("</ul></div>\n");
     }
     b.append("</section>\n");
+  }
+
+  /** "UTC+02:00 (nautical zone of the longitude; …)": the zone's name at {@code at} and how it was chosen, HTML. */
+  private static String zoneWords(TimeAxes zone, Instant at) {
+    return esc(zone.zoneName(at)) + (zone.zoneNote() == null ? "" : " (" + esc(zone.zoneNote()) + ")");
+  }
+
+  /** The time axes of resource {@code plan} (A6): its own zone of "local time", its sky values. */
+  private TimeAxes axesOf(ResourcePlan plan) {
+    LocalZone z = in.zoneOf(plan.id());
+    return new TimeAxes(z.zone(), z.note(), skies.get(plan.id()));
   }
 
   private void dt(String term, String html) {
@@ -385,8 +419,8 @@ public final class NightReport {
     if (here != null && here.atGroundSite()) {
       chart("night-chart" + suffix, "The night: the scheduled targets' elevation (thick while observed), the Sun and "
           + "the Moon, the Moon's illuminated fraction, airmass levels; local and sidereal time above.",
-          titled.apply(NightChart.create(view, part, here, plan == null ? axes : new TimeAxes(in.zone(), in.zoneNote(),
-              here))), NightChart.WIDTH_PX, NightChart.HEIGHT_PX);
+          titled.apply(NightChart.create(view, part, here, plan == null ? axes : axesOf(plan))), NightChart.WIDTH_PX,
+          NightChart.HEIGHT_PX);
     }
     boolean onlyEarthPoints = !view.requests().isEmpty()
         && view.requests().stream().allMatch(r -> r.target() instanceof EarthPoint);
@@ -404,8 +438,9 @@ public final class NightReport {
   // ------------------------------------------------------------------ resources (A6)
 
   /**
-   * One section per resource: its observer, its counts, the constraints in force on it (its own fields over
-   * the scenario's) and the charts drawn from it.
+   * One section per resource: its observer, at a ground site its zone of "local time" (which its night chart's
+   * local-time axis uses), its counts, the constraints in force on it (its own fields over the scenario's) and the
+   * charts drawn from it.
    */
   private void resources() {
     if (plans.isEmpty()) {
@@ -418,6 +453,9 @@ public final class NightReport {
       b.append("<section class=\"resource\" id=\"resource-").append(esc(p.fileName())).append("\" data-resource=\"")
           .append(esc(p.id())).append("\"><h3>").append(esc(p.id())).append("</h3>\n<dl class=\"summary\">\n");
       dt("observer", esc(observerName(p.scenario())));
+      if (skies.containsKey(p.id()) && skies.get(p.id()).atGroundSite()) {
+        dt("local time", zoneWords(axesOf(p), mid()));
+      }
       dt("observations", part.observations().size() + " scheduled on it; " + part.unscheduled().size()
           + " requests it may observe are not scheduled");
       dt("priority", num(part.priority(), 2) + " collected on it");
