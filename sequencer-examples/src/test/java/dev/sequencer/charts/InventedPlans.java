@@ -3,9 +3,12 @@ package dev.sequencer.charts;
 import dev.sequencer.model.AzEl;
 import dev.sequencer.model.ConstraintOverrides;
 import dev.sequencer.model.Constraints;
+import dev.sequencer.model.EarthPoint;
 import dev.sequencer.model.GroundSite;
 import dev.sequencer.model.Group;
+import dev.sequencer.model.KeplerianElements;
 import dev.sequencer.model.Observer;
+import dev.sequencer.model.OrbitObserver;
 import dev.sequencer.model.RaDec;
 import dev.sequencer.model.Reconfiguration;
 import dev.sequencer.model.Request;
@@ -17,7 +20,9 @@ import dev.sequencer.model.Visits;
 import dev.sequencer.planner.PlanOutcome;
 import dev.sequencer.planner.Planner;
 import dev.sequencer.sequence.SequencerOptions;
+import dev.sequencer.visibility.SkyValues;
 import java.time.Instant;
+import java.util.ArrayList;
 import java.util.List;
 import java.util.Map;
 import java.util.concurrent.ConcurrentHashMap;
@@ -26,7 +31,7 @@ import java.util.concurrent.ConcurrentHashMap;
  * Scenarios built in code from invented sites, orbits and ids (none is a real observatory, mission or person),
  * each planned once per test run through the {@link Planner} façade as {@link NetworkPlans} plans the bundled ones
  * (CP-SAT, reproducible work limit, 2 workers): a night at one site with groups, visits and configurations (A4,
- * A5); two sites three time zones apart with a group across them (A5, A6).
+ * A5); two sites three time zones apart with a group across them (A5, A6); two imaging spacecraft (A6).
  */
 public final class InventedPlans {
   /** 2031-10-15, evening to morning at 20 deg E (Sun below -12 deg from about 17:30 to 03:30 UTC). */
@@ -87,6 +92,35 @@ public final class InventedPlans {
     });
   }
 
+  /**
+   * Two imaging spacecraft on invented sun-synchronous-like orbits (550 km, 97.5 deg, RAAN 40 and 160 deg),
+   * three hours, each with three Earth points of its own placed below its ground track (so each is seen at
+   * elevation near 90 deg then), only that spacecraft allowed to observe them.
+   */
+  public static NetworkPlans.Planned imagingFleet() {
+    return PLANNED.computeIfAbsent("fleet", k -> {
+      Instant t0 = Instant.parse("2031-06-01T00:00:00Z");
+      TimeWindow horizon = new TimeWindow(t0, t0.plusSeconds(3 * 3600));
+      SlewSettings slew = new SlewSettings.Eigenaxis(1.0, 0.1, 10);
+      List<Resource> resources = List.of(
+          new Resource("imager-a", orbit(t0, 40, 0), slew, null, null, null),
+          new Resource("imager-b", orbit(t0, 160, 120), slew, null, null, null));
+      Scenario bare = new Scenario(1, "invented imaging fleet", horizon, null,
+          Constraints.builder().elevationMinDeg(40).build(), slew, null, List.of(), null, List.of(),
+          Reconfiguration.NONE, "", resources);
+      List<Request> requests = new ArrayList<>();
+      for (Resource r : resources) {
+        SkyValues sky = SkyValues.of(bare.forResource(r), NetworkPlans.CTX);
+        for (int i = 1; i <= 3; i++) {
+          double[] latLon = sky.subObserverLatLonDeg(t0.plusSeconds(1500L + 2700L * i));
+          requests.add(Request.of(r.id() + "-P" + i, new EarthPoint(round(latLon[0]), round(latLon[1]), 0), 30, i)
+              .withResources(List.of(r.id())));
+        }
+      }
+      return plan(bare.withRequests(requests));
+    });
+  }
+
   private static NetworkPlans.Planned plan(Scenario s) {
     PlanOutcome o = Planner.plan(s, NetworkPlans.CTX, SequencerOptions.from(s.solverOrDefaults()).withTimeLimitS(5)
         .withWorkers(2).withReproducible(5).withSolver(SequencerOptions.Solver.CPSAT));
@@ -100,6 +134,10 @@ public final class InventedPlans {
     return new GroundSite(latDeg, lonDeg, 900, List.<AzEl>of());
   }
 
+  private static Observer orbit(Instant epoch, double raanDeg, double meanAnomalyDeg) {
+    return new OrbitObserver(new KeplerianElements(epoch, 6928.137, 0.001, 97.5, raanDeg, 90, meanAnomalyDeg));
+  }
+
   private static Constraints nightConstraints() {
     return Constraints.builder().elevationMinDeg(25).sunElevationMaxDeg(-12).build();
   }
@@ -107,5 +145,9 @@ public final class InventedPlans {
   private static Request fixed(String id, double raDeg, double decDeg, double durationS, double priority) {
     return new Request(id, new RaDec(raDeg, decDeg), durationS, priority, false, List.of(), null,
         ConstraintOverrides.none());
+  }
+
+  private static double round(double deg) {
+    return Math.round(deg * 1000) / 1000.0;
   }
 }
