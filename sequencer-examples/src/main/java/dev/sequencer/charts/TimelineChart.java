@@ -353,7 +353,8 @@ public final class TimelineChart {
         Observation from = members.get(i - 1);
         Observation to = members.get(i);
         if (!from.id().equals(to.id())) {
-          links.add(new double[] {rows.of(s, from), from.end().toEpochMilli(), rows.of(s, to), to.start().toEpochMilli()});
+          links.add(new double[] {rows.of(s, from), from.end().toEpochMilli(), rows.of(s, to),
+              to.start().toEpochMilli()});
         }
       }
       if (!links.isEmpty()) {

@@ -538,7 +538,8 @@ public final class NightReport {
           .append(cell(num(o.durationS(), 0), key(o.durationS())));
       if (visits) {
         boolean repeated = r != null && r.hasVisits() && o.visit() != null;
-        b.append(cell(repeated ? o.visit() + "/" + r.visits().count() : "", repeated ? Integer.toString(o.visit()) : ""));
+        b.append(cell(repeated ? o.visit() + "/" + r.visits().count() : "",
+            repeated ? Integer.toString(o.visit()) : ""));
       }
       if (groups) {
         groupCell(o.id());

@@ -107,7 +107,8 @@ class TimelineChartGroupsTest {
     Map<String, Long> scheduled = new HashMap<>();
     t.observations().forEach(o -> scheduled.merge(o.id(), 1L, Long::sum));
     assertTrue(List.of("CHN-1", "CHN-2", "CHN-3", "PR-1", "PR-2", "SOLO-1").stream().allMatch(scheduled::containsKey)
-        && !scheduled.containsKey("SOLO-2"), "precondition: chain and pair whole, SOLO-2 never up: " + t.observations());
+        && !scheduled.containsKey("SOLO-2"), "precondition: chain and pair whole, SOLO-2 never up: "
+        + t.observations());
     assertEquals(2L, scheduled.get("FLD-1"), "precondition: both visits of FLD-1");
 
     int height = TimelineChart.heightPx(p.scenario(), t, false, null);

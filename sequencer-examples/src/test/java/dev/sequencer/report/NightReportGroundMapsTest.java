@@ -1,5 +1,7 @@
 package dev.sequencer.report;
 
+import static dev.sequencer.report.NightReportResourcesTest.between;
+import static dev.sequencer.report.NightReportResourcesTest.count;
 import static org.junit.jupiter.api.Assertions.assertEquals;
 import static org.junit.jupiter.api.Assertions.assertFalse;
 import static org.junit.jupiter.api.Assertions.assertTrue;
@@ -26,21 +28,6 @@ class NightReportGroundMapsTest {
   private static final Pattern NUMBER = Pattern.compile("<text [^>]*font-size=\"10\"[^>]*>([0-9]+)</text>");
   /** An orange line: the ground track over the horizon, or its legend swatch. */
   private static final Pattern TRACK = Pattern.compile("<path d=\"([^\"]+)\" fill=\"none\" stroke=\"#eb7814\"");
-
-  private static String between(String html, String from, String to) {
-    int a = html.indexOf(from);
-    assertTrue(a >= 0, "no " + from);
-    return html.substring(a, html.indexOf(to, a));
-  }
-
-  private static int count(String text, String regex) {
-    Matcher m = Pattern.compile(regex).matcher(text);
-    int n = 0;
-    while (m.find()) {
-      n++;
-    }
-    return n;
-  }
 
   @Test
   void eachOrbitingResourceHasAGroundMapOfItsOwn() {

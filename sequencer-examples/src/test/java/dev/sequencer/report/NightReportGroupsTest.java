@@ -1,5 +1,6 @@
 package dev.sequencer.report;
 
+import static dev.sequencer.report.NightReportResourcesTest.between;
 import static org.junit.jupiter.api.Assertions.assertEquals;
 import static org.junit.jupiter.api.Assertions.assertTrue;
 
@@ -36,12 +37,6 @@ class NightReportGroupsTest {
   private static String html(Scenario s, Timeline t, List<dev.sequencer.model.RequestWindows> windows) {
     return NightReport.html(new NightReport.Input(s, t, windows, null, List.of(), Map.of(), ZoneId.of("UTC"), null,
         List.of()), NetworkPlans.CTX);
-  }
-
-  private static String between(String html, String from, String to) {
-    int a = html.indexOf(from);
-    assertTrue(a >= 0, "no " + from);
-    return html.substring(a, html.indexOf(to, a));
   }
 
   /** Each body row's cells as {sort key, text}. */
@@ -105,7 +100,8 @@ class NightReportGroupsTest {
     List<List<String[]>> rows = rows(table);
     assertEquals(t.unscheduled().size(), rows.size());
     List<String[]> row = rows.get(t.unscheduled().indexOf(solo));
-    assertEquals(List.of("SOLO-2", "SOLO", Html.esc(solo.reason())), List.of(row.get(0)[1], row.get(4)[1], row.get(5)[1]),
+    assertEquals(List.of("SOLO-2", "SOLO", Html.esc(solo.reason())),
+        List.of(row.get(0)[1], row.get(4)[1], row.get(5)[1]),
         "the group, then the timeline's reason as before");
     // and the timeline chart links the two groups with members scheduled
     String chart = between(html, "<svg id=\"timeline-chart\"", "</svg>");

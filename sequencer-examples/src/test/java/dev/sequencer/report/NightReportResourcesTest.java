@@ -46,14 +46,14 @@ class NightReportResourcesTest {
   }
 
   /** The text between {@code from} (included) and the next {@code to} after it. */
-  private static String between(String html, String from, String to) {
+  static String between(String html, String from, String to) {
     int a = html.indexOf(from);
     assertTrue(a >= 0, "no " + from);
     int e = html.indexOf(to, a + from.length());
     return html.substring(a, e < 0 ? html.length() : e);
   }
 
-  private static int count(String text, String regex) {
+  static int count(String text, String regex) {
     Matcher m = Pattern.compile(regex).matcher(text);
     int n = 0;
     while (m.find()) {

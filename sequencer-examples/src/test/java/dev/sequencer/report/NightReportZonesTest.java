@@ -1,5 +1,6 @@
 package dev.sequencer.report;
 
+import static dev.sequencer.report.NightReportResourcesTest.between;
 import static org.junit.jupiter.api.Assertions.assertEquals;
 import static org.junit.jupiter.api.Assertions.assertTrue;
 
@@ -27,12 +28,6 @@ class NightReportZonesTest {
   private static final Pattern TICK = Pattern.compile(
       "<text x=\"(-?[0-9.]+)\" y=\"(-?[0-9.]+)\"[^>]*? textLength=\"([0-9.]+)\"[^>]*>([0-9]{2}):([0-9]{2})</text>");
   private static final String NOTE = "nautical zone of the longitude; --zone to choose";
-
-  private static String between(String html, String from, String to) {
-    int a = html.indexOf(from);
-    assertTrue(a >= 0, "no " + from);
-    return html.substring(a, html.indexOf(to, a));
-  }
 
   /**
    * The constant shifts, minutes mod 1440, between two rows of "HH:MM" tick labels of {@code svg}: for each two
