@@ -27,34 +27,6 @@ public final class InputRules {
     }
   }
 
-  /**
-   * Several resources (A6) are planned without visits and groups so far (the first slice of the model):
-   * a scenario with resources and either is refused with the path of the first one, instead of a plan
-   * that could break their rules.
-   */
-  static void checkResources(Scenario s, String source) {
-    if (!s.hasResources()) {
-      return;
-    }
-    List<Problem> problems = new ArrayList<>();
-    for (int i = 0; i < s.requests().size(); i++) {
-      Request r = s.requests().get(i);
-      if (r.hasVisits()) {
-        problems.add(new Problem("requests[" + i + "] (id \"" + r.id() + "\").visits",
-            "visits on several resources are not planned yet; give each visit as its own request",
-            Integer.toString(r.visits().count())));
-        break;
-      }
-    }
-    if (!s.groups().isEmpty()) {
-      problems.add(new Problem("groups[0] (id \"" + s.groups().get(0).id() + "\")",
-          "groups on several resources are not planned yet", s.groups().get(0).id()));
-    }
-    if (!problems.isEmpty()) {
-      throw new ScenarioException(source, problems);
-    }
-  }
-
   /** Every rule broken by {@code s}, in file order (empty when it can be planned). */
   public static List<Problem> problems(Scenario s) {
     List<Problem> problems = new ArrayList<>();

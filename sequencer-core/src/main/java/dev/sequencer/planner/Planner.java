@@ -127,7 +127,6 @@ public final class Planner {
   public static PlanOutcome plan(Scenario s, AstroContext ctx, SequencerOptions options) {
     Budget clock = Budget.startingNow(options.timeLimitS());
     InputRules.check(s, "scenario");
-    InputRules.checkResources(s, "scenario");
     preloadSolver();
     Geometry g = geometry(s, ctx);
     PlanningProblem problem = problem(s, g);
@@ -157,7 +156,8 @@ public final class Planner {
         .map(r -> dev.sequencer.slew.Reconfigured.of(r.transitions(), r.scenario().reconfiguration(), configurations,
             s.startConfiguration()))
         .toList();
-    return PlanningProblem.ofSections(s.horizon(), s.requests(), ids, windows, transitions);
+    return PlanningProblem.ofSections(s.horizon(), s.requests(), s.groups(), ids, windows, transitions,
+        new long[ids.size()]);
   }
 
   /** The timeline with its slews' departures and waypoints (spec A3), per resource when there are several. */
@@ -211,7 +211,6 @@ public final class Planner {
    */
   public static Prepared prepare(Scenario s, AstroContext ctx) {
     InputRules.check(s, "scenario");
-    InputRules.checkResources(s, "scenario");
     preloadSolver();
     Geometry g = geometry(s, ctx);
     return new Prepared(g, problem(s, g), validator(g, ctx));
@@ -225,7 +224,6 @@ public final class Planner {
       Set<String> failed, ReplanOptions options) {
     Budget clock = Budget.startingNow(options.sequencer().timeLimitS());
     InputRules.check(s, "scenario");
-    InputRules.checkResources(s, "scenario");
     preloadSolver();
     Geometry g = geometry(s, ctx);
     PlanningProblem problem = problem(s, g);

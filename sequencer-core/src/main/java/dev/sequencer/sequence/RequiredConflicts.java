@@ -106,7 +106,10 @@ public final class RequiredConflicts {
         for (int k : sec.options(u)) {
           where.add("on " + sec.resourceId(sec.sectionOf(k)) + ": " + problem.task(k).emptyReason());
         }
-        alone.add(new Conflict(List.of(problem.requests().get(u).id()), String.join("; ", where)));
+        String id = problem.requestId(sec.options(u)[0]);
+        if (alone.stream().noneMatch(c -> c.ids().contains(id))) { // one conflict per request, not per visit
+          alone.add(new Conflict(List.of(id), String.join("; ", where)));
+        }
       }
     }
     for (int k = 0; k < problem.size(); k++) {

@@ -87,7 +87,7 @@ public final class SelfCheck implements TimelineCheck {
    */
   public static TimelineCheck of(dev.sequencer.sequence.problem.PlanningProblem problem) {
     return problem.sections() != null
-        ? new SectionsCheck(problem.horizon(), problem.requests(), problem.sections())
+        ? new SectionsCheck(problem.horizon(), problem.requests(), problem.groups(), problem.sections())
         : new SelfCheck(problem.horizon(), problem.requests(), problem.groups(), problem.windows(),
             problem.requestTransitions());
   }

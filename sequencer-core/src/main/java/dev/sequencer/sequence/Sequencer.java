@@ -201,7 +201,7 @@ public final class Sequencer {
       Sections sec = problem.sections();
       for (int u = 0; sec != null && u < sec.unitCount(); u++) {
         if (sec.unitRequired(u) && java.util.Arrays.stream(sec.options(u)).noneMatch(k -> problem.task(k).schedulable())) {
-          unschedulable.add(problem.requests().get(u).id()); // a required request no resource can observe
+          unschedulable.add(problem.requestId(sec.options(u)[0])); // a required request no resource can observe
         }
       }
       if (!unschedulable.isEmpty()) {
@@ -452,21 +452,33 @@ public final class Sequencer {
         for (Request q : problem.requests()) {
           requests.add(q.withRequired(false));
         }
+        // A request goes to one resource with all its visits, a group with all its members: a group with a
+        // member taken by an earlier resource is not offered again.
+        java.util.Set<String> blocked = new java.util.HashSet<>();
+        List<dev.sequencer.model.Group> groups = new ArrayList<>();
+        for (dev.sequencer.model.Group g : problem.groups()) {
+          if (g.members().stream().anyMatch(id -> taken[requestIndex(id)])) {
+            blocked.addAll(g.members());
+          } else {
+            groups.add(g);
+          }
+        }
         List<dev.sequencer.model.RequestWindows> windows = new ArrayList<>();
         for (dev.sequencer.model.RequestWindows w : sec.windows(r)) {
           int q = requestIndex(w.id());
-          if (q >= 0 && !taken[q]) {
+          if (q >= 0 && !taken[q] && !blocked.contains(w.id())) {
             windows.add(w);
           }
         }
-        PlanningProblem alone = PlanningProblem.of(problem.horizon(), requests, windows, sec.transitions(r));
+        PlanningProblem alone = PlanningProblem.of(problem.horizon(), requests, groups, windows, sec.transitions(r));
         SequencerOptions o = (reproducible ? options.withReproducible(options.deterministicLimit() * IN_TURN_SHARE / m)
             : options.withTimeLimitS(each)).withClock(null).withListener(null).withValidator(null);
         SequencerResult one = new Run(alone, o, Seeds.NONE, false).execute();
         for (Planned p : one.observations()) {
           int q = requestIndex(p.id());
           taken[q] = true;
-          picked.add(new long[] {optionOn(sec, q, r), p.startS() + sec.offsetS(r), p.endS() - p.startS()});
+          picked.add(new long[] {optionOn(sec, q, p.visit() == null ? 1 : p.visit(), r), p.startS() + sec.offsetS(r),
+              p.endS() - p.startS()});
         }
         if (r + 1 < m) {
           picked.add(new long[] {sec.markerOf(r + 1), problem.task(sec.markerOf(r + 1)).earliestStartS(), 0});
@@ -494,13 +506,14 @@ public final class Sequencer {
       return -1;
     }
 
-    private static int optionOn(Sections sec, int unit, int section) {
-      for (int k : sec.options(unit)) {
-        if (sec.sectionOf(k) == section) {
+    /** The option of request q's visit (1-based) on resource {@code section}. */
+    private int optionOn(Sections sec, int q, int visit, int section) {
+      for (int k : sec.requestOptions(q)) {
+        if (sec.sectionOf(k) == section && problem.structure().visitOf(k) == visit) {
           return k;
         }
       }
-      throw new IllegalStateException("request " + unit + " has no option on resource " + section);
+      throw new IllegalStateException("request " + q + " has no option for visit " + visit + " on resource " + section);
     }
 
     /** The two-stage baseline (flexible exposures): stage 1 gets the time left, stage 2 is one LP. */
@@ -757,6 +770,8 @@ public final class Sequencer {
       java.util.Map<Integer, String> why = new java.util.HashMap<>();
       Sections sections = problem.sections();
       java.util.Map<Integer, java.util.Map<String, String>> perResource = new java.util.HashMap<>();
+      java.util.Map<Integer, Integer> firstTask = new java.util.HashMap<>();
+      java.util.Set<Integer> units = new java.util.HashSet<>();
       for (int k = 0; k < problem.size(); k++) {
         Task t = problem.task(k);
         if (in[k] || problem.isMarker(k) || sections != null && (heldElsewhere(sections, k, in)
@@ -776,13 +791,18 @@ public final class Sequencer {
         int r = problem.structure().requestOf(k);
         if (sections != null) {
           perResource.computeIfAbsent(r, x -> new java.util.LinkedHashMap<>())
-              .put(sections.resourceId(sections.sectionOf(k)), reason);
+              .putIfAbsent(sections.resourceId(sections.sectionOf(k)), reason);
+          firstTask.putIfAbsent(r, k);
+          if (!units.add(sections.unitOf(k))) {
+            continue; // another option of the same visit: one visit missing, not one per resource
+          }
         }
         if (missing.merge(r, 1, Integer::sum) == 1) {
           why.put(r, Reasons.withRules(problem, k, timed.plan(), reason));
         }
       }
-      perResource.forEach((r, each) -> why.put(r, onResources(each)));
+      perResource.forEach((r, each) -> why.put(r, Reasons.withRules(problem, firstTask.get(r), timed.plan(),
+          onResources(each))));
       missing.forEach((r, n) -> out.add(new Unscheduled(problem.requests().get(r).id(), why.get(r),
           problem.requests().get(r).hasVisits() ? n : null)));
       return out;

@@ -105,14 +105,19 @@ class ResourcesPlannerTest {
         o.result().message());
   }
 
+  /** A required request with two visits on the network: both planned, numbered in time order, 10 min apart (A4, A6). */
   @Test
-  void visitsOnSeveralResourcesAreRefusedWithTheirPath() {
+  void requiredVisitsOnSeveralResourcesArePlanned() {
     Scenario s = network();
     List<Request> r = new ArrayList<>(s.requests());
-    r.set(3, r.get(3).withVisits(new Visits(2, 600, null, false, false)));
-    ScenarioException e = assertThrows(ScenarioException.class, () -> Planner.plan(s.withRequests(r), CTX,
-        SequencerOptions.defaults().withTimeLimitS(2)));
-    assertEquals("requests[3] (id \"EQ0\").visits", e.problems().get(0).path());
+    r.set(3, r.get(3).withVisits(new Visits(2, 600, null, false, false)).withRequired(true));
+    PlanOutcome o = Planner.plan(s.withRequests(r), CTX, SequencerOptions.defaults().withTimeLimitS(4).withWorkers(2));
+    assertTrue(o.result().hasPlan(), o.result().message());
+    List<Observation> eq0 = o.timeline().observations().stream().filter(x -> x.id().equals("EQ0")).toList();
+    assertEquals(2, eq0.size(), o.timeline().toString());
+    assertEquals(Integer.valueOf(1), eq0.get(0).visit());
+    assertEquals(Integer.valueOf(2), eq0.get(1).visit());
+    assertTrue(java.time.Duration.between(eq0.get(0).start(), eq0.get(1).start()).getSeconds() >= 600, eq0.toString());
   }
 
   /** The network's CP-SAT plan (the re-planning tests start from it). */

@@ -115,6 +115,64 @@ class ResourcesCliTest {
     Runs.assertNoStackTrace(bad);
   }
 
+  /**
+   * The network with visits and groups (A4–A6), written as a user would: eight fields wanted twice at least an
+   * hour apart, and a calibration chain that must stay on one telescope. The plan passes the validator, its
+   * visits are numbered in time order across the two sites, the chain is on one site, and a re-plan after
+   * losing a site keeps every rule; these scenarios were refused (exit 2) before.
+   */
+  @Test
+  void visitsAndAOneSiteChainPlanAndReplanOnTheNetwork(@TempDir Path dir) throws Exception {
+    ObjectMapper json = new ObjectMapper();
+    com.fasterxml.jackson.databind.node.ObjectNode root = (com.fasterxml.jackson.databind.node.ObjectNode)
+        json.readTree(NETWORK.toFile());
+    com.fasterxml.jackson.databind.node.ArrayNode requests = (com.fasterxml.jackson.databind.node.ArrayNode)
+        root.get("requests");
+    List<String> chain = new java.util.ArrayList<>();
+    for (int i = 0; i < requests.size(); i++) {
+      com.fasterxml.jackson.databind.node.ObjectNode q = (com.fasterxml.jackson.databind.node.ObjectNode) requests.get(i);
+      if (i < 8) {
+        q.putObject("visits").put("count", 2).put("minSeparationS", 3600);
+      } else if (chain.size() < 3 && !q.path("required").asBoolean(false)) {
+        chain.add(q.get("id").textValue());
+      }
+    }
+    com.fasterxml.jackson.databind.node.ObjectNode g = root.putArray("groups").addObject();
+    g.put("id", "CAL").put("ordered", true).put("sameResource", true);
+    chain.forEach(g.putArray("members")::add);
+    Path scenario = dir.resolve("network-visits.json");
+    json.writeValue(scenario.toFile(), root);
+    Path timeline = dir.resolve("t.json");
+    CliTest.Run r = run("plan", scenario.toString(), "--time-limit", "10", "--workers", "2", "-o",
+        timeline.toString());
+    assertEquals(0, r.code(), r.out() + r.err());
+    Timeline t = TimelineFile.read(timeline);
+    java.util.Map<String, List<Observation>> byId = new java.util.HashMap<>();
+    t.observations().forEach(o -> byId.computeIfAbsent(o.id(), x -> new java.util.ArrayList<>()).add(o));
+    long twice = byId.values().stream().filter(v -> v.size() == 2).count();
+    assertTrue(twice >= 1, "some field gets both visits: " + r.out());
+    for (List<Observation> v : byId.values()) {
+      if (v.size() == 2) {
+        assertEquals(Integer.valueOf(1), v.get(0).visit(), v.toString());
+        assertEquals(Integer.valueOf(2), v.get(1).visit(), v.toString());
+        assertTrue(java.time.Duration.between(v.get(0).start(), v.get(1).start()).getSeconds() >= 3600, v.toString());
+      }
+    }
+    assertTrue(chain.stream().flatMap(id -> byId.getOrDefault(id, List.of()).stream()).map(Observation::resource)
+        .distinct().count() <= 1, "the chain stays on one site: " + r.out());
+    assertEquals(0, run("check", scenario.toString(), timeline.toString()).code());
+    // The southern site is lost in the middle of its night (the required F013 is the northern site's alone).
+    List<Observation> south = t.observations().stream().filter(o -> o.resource().equals("plateau-60cm")).toList();
+    Observation mid = south.get(south.size() / 2);
+    Path out = dir.resolve("r.json");
+    CliTest.Run re = run("replan", scenario.toString(), "--previous", timeline.toString(), "--now",
+        mid.start().plusSeconds(30).toString(), "--unavailable", "plateau-60cm", "--time-limit", "6", "--workers",
+        "2", "-o", out.toString());
+    assertEquals(0, re.code(), re.out() + re.err());
+    CliTest.Run check = run("check", scenario.toString(), out.toString());
+    assertEquals(0, check.code(), check.out() + check.err());
+  }
+
   @Test
   void plotDrawsTheLaneGroupsAndASkyChartPerResource(@TempDir Path dir) throws Exception {
     Path timeline = dir.resolve("t.json");

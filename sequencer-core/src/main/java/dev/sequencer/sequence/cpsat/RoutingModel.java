@@ -473,68 +473,188 @@ public final class RoutingModel {
       if (st.sections() != null) {
         addUnits(st.sections(), pos, whole);
       }
+      Sections sec = st.sections();
       for (Structure.VisitRule rule : st.visits()) {
-        Literal[] p = presence(rule.tasks(), pos, whole);
-        if (p == null) {
+        if (presence(rule.tasks(), pos, whole) == null) {
           continue;
         }
-        int[] t = rule.tasks();
-        for (int i = 0; i + 1 < t.length; i++) {
-          Integer a = pos.get(t[i]);
-          Integer b = pos.get(t[i + 1]);
-          model.addImplication(p[i + 1], p[i]);
-          if (rule.allOrNothing()) {
-            model.addEquality(p[i + 1], p[i]);
-          }
-          if (a != null && b != null) {
-            model.addGreaterOrEqual(startS.get(b), LinearExpr.affine(startS.get(a), 1, rule.minSeparationS()))
-                .onlyEnforceIf(present.get(b));
-            if (rule.hasMax()) {
-              model.addLessOrEqual(startS.get(b), LinearExpr.affine(startS.get(a), 1, rule.maxSeparationS()))
-                  .onlyEnforceIf(present.get(b));
-            }
-          }
-        }
-        if (rule.onePerWindow()) {
-          addOnePerWindow(t, pos);
+        if (sec == null) {
+          addVisits(rule, pos, whole);
+        } else {
+          addVisitsAcross(rule, pos, whole);
         }
       }
       for (Structure.GroupRule g : st.groups()) {
         int[] all = java.util.Arrays.stream(g.members()).flatMapToInt(java.util.Arrays::stream).toArray();
-        Literal[] p = presence(all, pos, whole);
-        if (p == null) {
+        if (presence(all, pos, whole) == null) {
           continue;
         }
         if (g.allOrNothing()) {
-          for (int i = 1; i < p.length; i++) {
-            model.addEquality(p[i], p[0]);
+          java.util.Map<Integer, List<Literal>> byUnit = new java.util.LinkedHashMap<>();
+          for (int k : all) {
+            byUnit.computeIfAbsent(sec == null ? k : sec.unitOf(k), x -> new ArrayList<>())
+                .add(presence(new int[] {k}, pos, whole)[0]);
+          }
+          LinearExpr first = null;
+          for (List<Literal> unit : byUnit.values()) {
+            LinearExpr held = LinearExpr.sum(unit.toArray(new Literal[0]));
+            if (first == null) {
+              first = held;
+            } else {
+              model.addEquality(held, first);
+            }
           }
         }
-        if (!g.ordered()) {
-          continue;
+        if (g.sameResource() && sec != null) {
+          BoolVar[] on = new BoolVar[sec.count()];
+          for (int r = 0; r < on.length; r++) {
+            on[r] = model.newBoolVar("group[" + g.id() + "]@" + sec.resourceId(r));
+          }
+          model.addAtMostOne(on);
+          for (int k : all) {
+            Integer a = pos.get(k);
+            if (a != null) {
+              model.addImplication(present.get(a), on[sec.sectionOf(k)]);
+            }
+          }
         }
-        int[] m = java.util.Arrays.stream(g.members()).mapToInt(x -> x[0]).toArray(); // ordered members: one visit
-        for (int j = 1; j < m.length; j++) {
-          Integer b = pos.get(m[j]);
+        if (g.ordered()) {
+          addOrder(g, pos);
+        }
+      }
+    }
+
+    /** Visits of one resource: presence in visit order, separations enforced by the later visit's presence. */
+    private void addVisits(Structure.VisitRule rule, java.util.Map<Integer, Integer> pos, boolean whole) {
+      Literal[] p = presence(rule.tasks(), pos, whole);
+      int[] t = rule.tasks();
+      for (int i = 0; i + 1 < t.length; i++) {
+        Integer a = pos.get(t[i]);
+        Integer b = pos.get(t[i + 1]);
+        model.addImplication(p[i + 1], p[i]);
+        if (rule.allOrNothing()) {
+          model.addEquality(p[i + 1], p[i]);
+        }
+        if (a != null && b != null) {
+          model.addGreaterOrEqual(startS.get(b), LinearExpr.affine(startS.get(a), 1, rule.minSeparationS()))
+              .onlyEnforceIf(present.get(b));
+          if (rule.hasMax()) {
+            model.addLessOrEqual(startS.get(b), LinearExpr.affine(startS.get(a), 1, rule.maxSeparationS()))
+                .onlyEnforceIf(present.get(b));
+          }
+        }
+      }
+      if (rule.onePerWindow()) {
+        addOnePerWindow(t, pos);
+      }
+    }
+
+    /**
+     * Visits across resources (A4, A6): visit v is held when one of its options is (Σ present ≤ 1 per visit,
+     * {@link #addUnits}); Σ present[v+1] ≤ Σ present[v] (= with all or nothing); for options a of visit v and b
+     * of visit v + 1 both present, the separations on the resources' own clocks: startS[b] − offset(b) −
+     * (startS[a] − offset(a)) within [min, max]; one per window on the merged windows of every resource.
+     */
+    private void addVisitsAcross(Structure.VisitRule rule, java.util.Map<Integer, Integer> pos, boolean whole) {
+      int[][] v = rule.visits();
+      for (int i = 0; i + 1 < v.length; i++) {
+        LinearExpr held = LinearExpr.sum(presence(v[i], pos, whole));
+        LinearExpr next = LinearExpr.sum(presence(v[i + 1], pos, whole));
+        if (rule.allOrNothing()) {
+          model.addEquality(next, held);
+        } else {
+          model.addLessOrEqual(next, held);
+        }
+        for (int ka : v[i]) {
+          Integer a = pos.get(ka);
+          for (int kb : v[i + 1]) {
+            Integer b = pos.get(kb);
+            if (a == null || b == null) {
+              continue;
+            }
+            long shift = offsetS(kb) - offsetS(ka);
+            Literal[] both = {present.get(a), present.get(b)};
+            model.addGreaterOrEqual(startS.get(b), LinearExpr.affine(startS.get(a), 1, rule.minSeparationS() + shift))
+                .onlyEnforceIf(both);
+            if (rule.hasMax()) {
+              model.addLessOrEqual(startS.get(b), LinearExpr.affine(startS.get(a), 1, rule.maxSeparationS() + shift))
+                  .onlyEnforceIf(both);
+            }
+          }
+        }
+      }
+      if (rule.onePerWindow()) {
+        java.util.Map<Span, List<Literal>> bySpan = new java.util.LinkedHashMap<>();
+        List<Span> merged = problem.structure().mergedWindows(problem, rule);
+        for (int k : rule.tasks()) {
+          Integer a = pos.get(k);
+          if (a == null) {
+            continue;
+          }
+          Task t = problem.task(k);
+          long off = offsetS(k);
+          List<Literal> mine = new ArrayList<>();
+          for (Span w : merged) {
+            if (w.toS() - w.fromS() < t.durationS()) {
+              continue;
+            }
+            BoolVar y = model.newBoolVar("inWindow[" + t.id() + "][" + w.fromS() + "]");
+            model.addGreaterOrEqual(startS.get(a), w.fromS() + off).onlyEnforceIf(y);
+            model.addLessOrEqual(endPlus(a, 0), w.toS() + off).onlyEnforceIf(y);
+            mine.add(y);
+            bySpan.computeIfAbsent(w, x -> new ArrayList<>()).add(y);
+          }
+          model.addEquality(LinearExpr.sum(mine.toArray(new Literal[0])), present.get(a));
+        }
+        for (List<Literal> ys : bySpan.values()) {
+          if (ys.size() > 1) {
+            model.addAtMostOne(ys);
+          }
+        }
+      }
+    }
+
+    /** Planner seconds at which task k's resource clock starts (0 with one resource). */
+    private long offsetS(int k) {
+      Sections sec = problem.sections();
+      return sec == null ? 0 : sec.offsetS(sec.sectionOf(k));
+    }
+
+    /**
+     * Ordered groups: for options a of member i and b of a later member j, both present, startS[b] ≥ endS[a]
+     * on the resources' own clocks; with a maximum gap, startS[b] ≤ endS[a] + maxGapS when no option of a
+     * member between them is present.
+     */
+    private void addOrder(Structure.GroupRule g, java.util.Map<Integer, Integer> pos) {
+      int[][] m = g.members(); // ordered members have one visit: their tasks are its options
+      for (int j = 1; j < m.length; j++) {
+        for (int kb : m[j]) {
+          Integer b = pos.get(kb);
           if (b == null) {
             continue;
           }
           for (int i = j - 1; i >= 0; i--) {
-            Integer a = pos.get(m[i]);
-            if (a == null) {
-              continue;
-            }
-            model.addGreaterOrEqual(startS.get(b), endPlus(a, 0))
-                .onlyEnforceIf(new Literal[] {present.get(a), present.get(b)});
-            if (g.hasMaxGap()) {
-              List<Literal> when = new ArrayList<>(List.of(present.get(a), present.get(b)));
-              for (int between = i + 1; between < j; between++) {
-                Integer c = pos.get(m[between]);
-                if (c != null) {
-                  when.add(present.get(c).not());
-                }
+            for (int ka : m[i]) {
+              Integer a = pos.get(ka);
+              if (a == null) {
+                continue;
               }
-              model.addLessOrEqual(startS.get(b), endPlus(a, g.maxGapS())).onlyEnforceIf(when.toArray(new Literal[0]));
+              long shift = offsetS(kb) - offsetS(ka);
+              model.addGreaterOrEqual(startS.get(b), endPlus(a, shift))
+                  .onlyEnforceIf(new Literal[] {present.get(a), present.get(b)});
+              if (g.hasMaxGap()) {
+                List<Literal> when = new ArrayList<>(List.of(present.get(a), present.get(b)));
+                for (int between = i + 1; between < j; between++) {
+                  for (int kc : m[between]) {
+                    Integer c = pos.get(kc);
+                    if (c != null) {
+                      when.add(present.get(c).not());
+                    }
+                  }
+                }
+                model.addLessOrEqual(startS.get(b), endPlus(a, g.maxGapS() + shift))
+                    .onlyEnforceIf(when.toArray(new Literal[0]));
+              }
             }
           }
         }

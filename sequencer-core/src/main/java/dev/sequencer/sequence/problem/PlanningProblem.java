@@ -141,11 +141,26 @@ public final class PlanningProblem {
       }
       tasksOf.put(r.id(), mine);
       if (r.hasVisits()) {
-        visitRules.add(new Structure.VisitRule(k, mine, (long) Math.ceil(v.minSeparationS() - 1e-9),
+        int[][] perVisit = new int[mine.length][];
+        for (int i = 0; i < mine.length; i++) {
+          perVisit[i] = new int[] {mine[i]};
+        }
+        visitRules.add(new Structure.VisitRule(k, perVisit, (long) Math.ceil(v.minSeparationS() - 1e-9),
             v.maxSeparationS() == null ? -1 : (long) Math.floor(v.maxSeparationS() + 1e-9), v.onePerWindow(),
             v.allOrNothing()));
       }
     }
+    List<Structure.GroupRule> groupRules = groupRules(groups, tasksOf);
+    int[] rq = requestOf.stream().mapToInt(Integer::intValue).toArray();
+    Structure structure = new Structure(rq, visitOf.stream().mapToInt(Integer::intValue).toArray(), visitRules,
+        groupRules);
+    Transitions byTask = tasks.size() == requests.size() ? transitions : new TaskTransitions(transitions, rq);
+    return new PlanningProblem(t0, horizonS, tasks, byTask, -1, horizon, requests, windows, null, structure,
+        transitions, groups);
+  }
+
+  /** The groups in solver units: per member the tasks of {@code tasksOf} (by request id). */
+  private static List<Structure.GroupRule> groupRules(List<Group> groups, Map<String, int[]> tasksOf) {
     List<Structure.GroupRule> groupRules = new ArrayList<>();
     for (Group g : groups) {
       int[][] members = new int[g.members().size()][];
@@ -156,14 +171,9 @@ public final class PlanningProblem {
         }
       }
       groupRules.add(new Structure.GroupRule(g.id(), members, g.allOrNothing(), g.ordered(),
-          g.maxGapS() == null ? -1 : (long) Math.floor(g.maxGapS() + 1e-9)));
+          g.maxGapS() == null ? -1 : (long) Math.floor(g.maxGapS() + 1e-9), g.sameResource()));
     }
-    int[] rq = requestOf.stream().mapToInt(Integer::intValue).toArray();
-    Structure structure = new Structure(rq, visitOf.stream().mapToInt(Integer::intValue).toArray(), visitRules,
-        groupRules);
-    Transitions byTask = tasks.size() == requests.size() ? transitions : new TaskTransitions(transitions, rq);
-    return new PlanningProblem(t0, horizonS, tasks, byTask, -1, horizon, requests, windows, null, structure,
-        transitions, groups);
+    return groupRules;
   }
 
   /**
@@ -422,8 +432,8 @@ public final class PlanningProblem {
    * order) the windows of the requests it may observe ({@code windows.get(r)}, by id; a request without an
    * entry is not observable there) and its transitions indexed by request ({@code transitions.get(r)},
    * configuration changes folded in). Each request becomes one option per resource that has an entry for it,
-   * named {@code id@resource}; sections 1… open with a marker task. Requests with visits and groups are not
-   * supported here (the caller refuses them).
+   * named {@code id@resource}; sections 1… open with a marker task. No groups: see
+   * {@link #ofSections(TimeWindow, List, List, List, List, List, long[])}.
    */
   public static PlanningProblem ofSections(TimeWindow horizon, List<Request> requests, List<String> resourceIds,
       List<List<RequestWindows>> windows, List<Transitions> transitions) {
@@ -439,6 +449,18 @@ public final class PlanningProblem {
    */
   public static PlanningProblem ofSections(TimeWindow horizon, List<Request> requests, List<String> resourceIds,
       List<List<RequestWindows>> windows, List<Transitions> transitions, long[] readyS) {
+    return ofSections(horizon, requests, List.of(), resourceIds, windows, transitions, readyS);
+  }
+
+  /**
+   * As {@link #ofSections(TimeWindow, List, List, List, List, long[])}, with visits (A4) and groups (A5): each
+   * visit of a request becomes one option per resource that may observe it ({@code id#v@resource}), the
+   * options of one visit a unit of alternatives, so different visits may use different resources (A6); the
+   * visit rules hold the options per visit and the groups all options of their members, compared on the
+   * resources' own clocks ({@link Structure}).
+   */
+  public static PlanningProblem ofSections(TimeWindow horizon, List<Request> requests, List<Group> groups,
+      List<String> resourceIds, List<List<RequestWindows>> windows, List<Transitions> transitions, long[] readyS) {
     int m = resourceIds.size();
     if (windows.size() != m || transitions.size() != m || readyS.length != m) {
       throw new IllegalArgumentException("ofSections: " + m + " resources, " + windows.size() + " window lists, "
@@ -467,7 +489,13 @@ public final class PlanningProblem {
     List<Integer> sectionOf = new ArrayList<>();
     List<Boolean> marker = new ArrayList<>();
     List<Integer> requestOf = new ArrayList<>();
-    boolean[] required = new boolean[requests.size()];
+    List<Integer> visitOf = new ArrayList<>();
+    List<Integer> unitOf = new ArrayList<>();
+    int[] firstUnit = new int[requests.size() + 1];
+    for (int k = 0; k < requests.size(); k++) {
+      firstUnit[k + 1] = firstUnit[k] + requests.get(k).visits().count();
+    }
+    boolean[] required = new boolean[firstUnit[requests.size()]];
     boolean[] anywhere = new boolean[requests.size()];
     for (int r = 0; r < m; r++) {
       for (int k = 0; k < requests.size(); k++) {
@@ -484,15 +512,14 @@ public final class PlanningProblem {
         sectionOf.add(r);
         marker.add(true);
         requestOf.add(-1);
+        visitOf.add(1);
+        unitOf.add(-1);
       }
       for (int k = 0; k < requests.size(); k++) {
         Request q = requests.get(k);
         RequestWindows rw = byId.get(r).get(q.id());
         if (rw == null && (anywhere[k] || r > 0)) {
           continue; // a request no resource may observe keeps one option, never visible, to be listed
-        }
-        if (q.hasVisits()) {
-          throw new IllegalArgumentException("requests[" + k + "]: visits with several resources are not supported");
         }
         String where = "requests[" + k + "] (id \"" + q.id() + "\")";
         List<Span> spans = new ArrayList<>();
@@ -501,11 +528,17 @@ public final class PlanningProblem {
         }
         Task one = q.isFlexible() ? flexibleTask(q, where, spans)
             : Task.fixedInSpans(q.id(), whole(q.durationS(), where + ".durationS"), q.priority(), false, spans);
-        tasks.add(one.withRequired(false).withId(q.id() + "@" + resourceIds.get(r)));
-        sectionOf.add(r);
-        marker.add(false);
-        requestOf.add(k);
-        required[k] = q.required();
+        int count = q.visits().count();
+        for (int i = 0; i < count; i++) {
+          tasks.add(one.withRequired(false).withId(q.id() + (count > 1 ? "#" + (i + 1) : "") + "@"
+              + resourceIds.get(r)));
+          sectionOf.add(r);
+          marker.add(false);
+          requestOf.add(k);
+          visitOf.add(i + 1);
+          unitOf.add(firstUnit[k] + i);
+          required[firstUnit[k] + i] = q.required();
+        }
       }
     }
     int n = tasks.size();
@@ -515,13 +548,32 @@ public final class PlanningProblem {
       mk[k] = marker.get(k);
     }
     int[] rq = requestOf.stream().mapToInt(Integer::intValue).toArray();
-    Sections sections = new Sections(resourceIds, offsets, sec, mk, rq, required).withInputs(windows, transitions);
-    int[] one = new int[n];
-    java.util.Arrays.fill(one, 1);
-    Structure structure = new Structure(rq, one, List.of(), List.of(), sections);
+    int[] units = unitOf.stream().mapToInt(Integer::intValue).toArray();
+    Sections sections = new Sections(resourceIds, offsets, sec, mk, units, rq, required)
+        .withInputs(windows, transitions);
+    List<Structure.VisitRule> visitRules = new ArrayList<>();
+    Map<String, int[]> tasksOf = new HashMap<>();
+    for (int k = 0; k < requests.size(); k++) {
+      Request q = requests.get(k);
+      tasksOf.put(q.id(), sections.requestOptions(k));
+      if (!q.hasVisits()) {
+        continue;
+      }
+      int[][] perVisit = new int[q.visits().count()][];
+      for (int i = 0; i < perVisit.length; i++) {
+        perVisit[i] = sections.options(firstUnit[k] + i);
+      }
+      Visits v = q.visits();
+      visitRules.add(new Structure.VisitRule(k, perVisit, (long) Math.ceil(v.minSeparationS() - 1e-9),
+          v.maxSeparationS() == null ? -1 : (long) Math.floor(v.maxSeparationS() + 1e-9), v.onePerWindow(),
+          v.allOrNothing()));
+    }
+    List<Structure.GroupRule> groupRules = groupRules(groups, tasksOf);
+    Structure structure = new Structure(rq, visitOf.stream().mapToInt(Integer::intValue).toArray(), visitRules,
+        groupRules, sections);
     Transitions byTask = new SectionTransitions(transitions, sections, rq);
     Prizes prizes = Prizes.of(tasks, mk);
     return new PlanningProblem(t0, offsets[m - 1] + horizonS, tasks, byTask, -1, horizon, requests, List.of(),
-        prizes, structure, byTask, List.of());
+        prizes, structure, byTask, groups);
   }
 }

@@ -39,12 +39,22 @@ public final class Reasons {
     }
     int i = st.memberOf(k);
     if (g.ordered()) {
-      for (int j = 0; j < g.members().length; j++) {
-        int a = g.members()[j][0];
-        int b = g.members()[Math.min(j + 1, g.members().length - 1)][0];
-        if (j + 1 < g.members().length && p.task(a).schedulable() && p.task(b).schedulable()
-            && p.task(b).latestStartS() < p.task(a).earliestStartS() + p.task(a).durationS()) {
-          return "group " + g.id() + " incomplete: " + p.requestId(b) + " has no window after " + p.requestId(a);
+      for (int j = 0; j + 1 < g.members().length; j++) {
+        long aEnd = Long.MAX_VALUE; // earliest end of member j, latest start of member j + 1 (own clocks)
+        long bStart = Long.MIN_VALUE;
+        for (int a : g.members()[j]) {
+          if (p.task(a).schedulable()) {
+            aEnd = Math.min(aEnd, local(p, a, p.task(a).earliestStartS() + p.task(a).durationS()));
+          }
+        }
+        for (int b : g.members()[j + 1]) {
+          if (p.task(b).schedulable()) {
+            bStart = Math.max(bStart, local(p, b, p.task(b).latestStartS()));
+          }
+        }
+        if (aEnd != Long.MAX_VALUE && bStart != Long.MIN_VALUE && bStart < aEnd) {
+          return "group " + g.id() + " incomplete: " + p.requestId(g.members()[j + 1][0]) + " has no window after "
+              + p.requestId(g.members()[j][0]);
         }
       }
     }
@@ -54,14 +64,24 @@ public final class Reasons {
     boolean[] in = plan.membership(p.size());
     java.util.List<String> lacking = new java.util.ArrayList<>();
     for (int[] member : g.members()) {
+      int held = 0;
       for (int t : member) {
-        if (!in[t] && !lacking.contains(p.requestId(t))) {
-          lacking.add(p.requestId(t));
-        }
+        held += in[t] ? 1 : 0;
+      }
+      String id = p.requestId(member[0]);
+      int wanted = p.requests().stream().filter(q -> q.id().equals(id)).findFirst()
+          .map(q -> q.visits().count()).orElse(1);
+      if (held < wanted && !lacking.contains(id)) {
+        lacking.add(id);
       }
     }
     String self = p.requestId(g.members()[i][0]);
     return "group " + g.id() + " (all or nothing) not scheduled: " + String.join(", ", lacking)
         + " not in the plan; " + self + ": " + reason;
+  }
+
+  /** Planner seconds {@code s} of task k on its own resource's clock. */
+  private static long local(PlanningProblem p, int k, long s) {
+    return p.sections() == null ? s : p.sections().localS(k, s);
   }
 }

@@ -17,9 +17,11 @@ import java.util.List;
  * therefore splits into one sequence per resource, each with exactly the timing rules of that resource alone
  * (the giant-tour representation of vehicle routing, with time reset at each marker).
  *
- * <p>The options of one request are <em>alternatives</em> (a unit): at most one is scheduled, exactly one when
- * the request is required ({@link #unitRequired}); the options themselves are not marked required. This class
- * owns that reading; {@link Structure#prune} keeps the first option of each unit in time order. Immutable.
+ * <p>The options of one request's visit (the request itself when it is observed once) are <em>alternatives</em>
+ * (a unit): at most one is scheduled, exactly one when the request is required ({@link #unitRequired}); the
+ * options themselves are not marked required. This class owns that reading; {@link Structure#prune} keeps the
+ * first option of each unit in time order, and numbers the visits of a request in time order whatever
+ * resources observe them (A4, A6). Immutable.
  */
 public final class Sections {
   private final List<String> resourceIds;
@@ -27,6 +29,7 @@ public final class Sections {
   private final int[] sectionOf;
   private final boolean[] marker;
   private final int[] unitOf;
+  private final int[] requestOf;
   private final int[][] units;
   private final boolean[] unitRequired;
   private final int[] markerOf;
@@ -35,10 +38,20 @@ public final class Sections {
 
   /**
    * Sections from, per task, its section, whether it is a marker and its unit (the request index; -1 for
-   * markers), with the offsets of the sections and which units are required.
+   * markers), with the offsets of the sections and which units are required: every request observed once.
    */
   public Sections(List<String> resourceIds, long[] offsetS, int[] sectionOf, boolean[] marker, int[] unitOf,
       boolean[] unitRequired) {
+    this(resourceIds, offsetS, sectionOf, marker, unitOf, unitOf, unitRequired);
+  }
+
+  /**
+   * As {@link #Sections(List, long[], int[], boolean[], int[], boolean[])}, with visits (A4): {@code unitOf}
+   * numbers the (request, visit) pairs, {@code requestOf} gives each task's request index (-1 for markers).
+   */
+  public Sections(List<String> resourceIds, long[] offsetS, int[] sectionOf, boolean[] marker, int[] unitOf,
+      int[] requestOf, boolean[] unitRequired) {
+    this.requestOf = requestOf.clone();
     this.resourceIds = List.copyOf(resourceIds);
     this.offsetS = offsetS.clone();
     this.sectionOf = sectionOf.clone();
@@ -66,7 +79,7 @@ public final class Sections {
 
   /** This with each resource's windows and request transitions as given (for the plan's own check). */
   Sections withInputs(List<List<RequestWindows>> resourceWindows, List<Transitions> resourceTransitions) {
-    Sections c = new Sections(resourceIds, offsetS, sectionOf, marker, unitOf, unitRequired);
+    Sections c = new Sections(resourceIds, offsetS, sectionOf, marker, unitOf, requestOf, unitRequired);
     c.windows = List.copyOf(resourceWindows);
     c.transitions = List.copyOf(resourceTransitions);
     return c;
@@ -120,6 +133,11 @@ public final class Sections {
   /** The unit (request index) of option k, -1 for a marker. */
   public int unitOf(int k) {
     return unitOf[k];
+  }
+
+  /** Every option of request q (scenario index): of each of its visits, on every resource, in task order. */
+  public int[] requestOptions(int q) {
+    return java.util.stream.IntStream.range(0, requestOf.length).filter(k -> requestOf[k] == q).toArray();
   }
 
   /** Number of units. */

@@ -18,21 +18,41 @@ import java.util.List;
  * rounded up and the maximum rounded down, so every plan kept here keeps the rule as written. Immutable.
  */
 public final class Structure {
-  /** The visits of one request: its tasks in visit order and the rules between consecutive visits. */
-  public record VisitRule(int request, int[] tasks, long minSeparationS, long maxSeparationS, boolean onePerWindow,
+  /**
+   * The visits of one request: per visit (in visit order) its tasks, one per resource that may observe it
+   * (a single task with one resource), and the rules between consecutive visits.
+   */
+  public record VisitRule(int request, int[][] visits, long minSeparationS, long maxSeparationS, boolean onePerWindow,
       boolean allOrNothing) {
     /** True when a maximum separation is given. */
     public boolean hasMax() {
       return maxSeparationS >= 0;
     }
+
+    /** Number of visits. */
+    public int count() {
+      return visits.length;
+    }
+
+    /** Every task of the rule, visit by visit. */
+    public int[] tasks() {
+      return Arrays.stream(visits).flatMapToInt(Arrays::stream).toArray();
+    }
   }
 
   /**
-   * One group: per member (in list order) its tasks (one per visit), whether all or none are scheduled,
-   * whether members follow in list order, and the largest gap from a member's end to the next member's
-   * start ({@code -1} for none).
+   * One group: per member (in list order) its tasks (one per visit and, with several resources, per
+   * resource), whether all or none are scheduled, whether members follow in list order, the largest gap from
+   * a member's end to the next member's start ({@code -1} for none), and whether all members must be on one
+   * resource (A6).
    */
-  public record GroupRule(String id, int[][] members, boolean allOrNothing, boolean ordered, long maxGapS) {
+  public record GroupRule(String id, int[][] members, boolean allOrNothing, boolean ordered, long maxGapS,
+      boolean sameResource) {
+    /** A group without the one-resource rule. */
+    public GroupRule(String id, int[][] members, boolean allOrNothing, boolean ordered, long maxGapS) {
+      this(id, members, allOrNothing, ordered, maxGapS, false);
+    }
+
     /** True when a maximum gap is given. */
     public boolean hasMaxGap() {
       return maxGapS >= 0;
@@ -80,8 +100,10 @@ public final class Structure {
     Arrays.fill(groupOf, -1);
     Arrays.fill(memberOf, -1);
     for (int v = 0; v < this.visits.size(); v++) {
-      for (int k : this.visits.get(v).tasks()) {
-        visitRuleOf[k] = v;
+      for (int[] options : this.visits.get(v).visits()) {
+        for (int k : options) {
+          visitRuleOf[k] = v;
+        }
       }
     }
     for (int g = 0; g < this.groups.size(); g++) {
@@ -145,66 +167,127 @@ public final class Structure {
     return memberOf[k];
   }
 
+  /** Task k's planner seconds {@code s} on its own resource's clock (the same with one resource). */
+  private long realS(int k, long s) {
+    return sections == null ? s : sections.localS(k, s);
+  }
+
+  /** Offset of task k's section (0 with one resource). */
+  private long offsetS(int k) {
+    return sections == null ? 0 : sections.offsetS(sections.sectionOf(k));
+  }
+
   /**
    * The earliest start the rules allow task k, given the observations placed before it ({@code order},
-   * {@code startS}, {@code endS}, first {@code count} entries, in time order): after the previous visit's
-   * start plus the minimum separation, after the end of the previous member of an ordered group.
+   * {@code startS}, {@code endS}, first {@code count} entries): after the latest placed visit's start plus the
+   * minimum separation, after the end of every placed earlier member of an ordered group. Times compare on
+   * the resources' own clocks (several resources, A6), so a visit on one resource keeps its separation from a
+   * visit on another.
    */
   public long earliestStartS(int k, int[] order, long[] startS, long[] endS, int count) {
-    long lo = 0;
+    long lo = Long.MIN_VALUE;
     int v = visitRuleOf[k];
     int g = groupOf[k];
-    for (int q = count - 1; q >= 0; q--) {
+    boolean ordered = g >= 0 && groups.get(g).ordered();
+    for (int q = 0; q < count; q++) {
       int j = order[q];
       if (v >= 0 && visitRuleOf[j] == v) {
-        lo = Math.max(lo, startS[q] + visits.get(v).minSeparationS());
-        v = -1;
+        lo = Math.max(lo, realS(j, startS[q]) + visits.get(v).minSeparationS());
       }
-      if (g >= 0 && groupOf[j] == g && groups.get(g).ordered() && memberOf[j] < memberOf[k]) {
-        lo = Math.max(lo, endS[q]);
-        g = -1;
+      if (ordered && groupOf[j] == g && memberOf[j] < memberOf[k]) {
+        lo = Math.max(lo, realS(j, endS[q]));
       }
     }
-    return lo;
+    return lo == Long.MIN_VALUE ? 0 : Math.max(0, lo + offsetS(k));
   }
 
   /**
    * The latest start the rules allow task k after the same placed observations: within the maximum
-   * separation of the previous visit, within the maximum gap after the previous member's end;
-   * {@code Long.MAX_VALUE} when nothing limits it.
+   * separation of the latest placed visit, within the maximum gap after the end of the placed member that
+   * comes last in list order; {@code Long.MAX_VALUE} when nothing limits it.
    */
   public long latestStartS(int k, int[] order, long[] startS, long[] endS, int count) {
-    long hi = Long.MAX_VALUE;
     int v = visitRuleOf[k];
     int g = groupOf[k];
-    for (int q = count - 1; q >= 0; q--) {
+    boolean gap = g >= 0 && groups.get(g).ordered() && groups.get(g).hasMaxGap();
+    boolean sep = v >= 0 && visits.get(v).hasMax();
+    long lastVisit = Long.MIN_VALUE;
+    int lastMember = -1;
+    long lastMemberEnd = Long.MIN_VALUE;
+    for (int q = 0; q < count; q++) {
       int j = order[q];
-      if (v >= 0 && visitRuleOf[j] == v) {
-        if (visits.get(v).hasMax()) {
-          hi = Math.min(hi, startS[q] + visits.get(v).maxSeparationS());
-        }
-        v = -1;
+      if (sep && visitRuleOf[j] == v) {
+        lastVisit = Math.max(lastVisit, realS(j, startS[q]));
       }
-      if (g >= 0 && groupOf[j] == g && groups.get(g).ordered() && memberOf[j] < memberOf[k]) {
-        if (groups.get(g).hasMaxGap()) {
-          hi = Math.min(hi, endS[q] + groups.get(g).maxGapS());
-        }
-        g = -1;
+      if (gap && groupOf[j] == g && memberOf[j] < memberOf[k] && (memberOf[j] > lastMember
+          || memberOf[j] == lastMember && realS(j, endS[q]) > lastMemberEnd)) {
+        lastMember = memberOf[j];
+        lastMemberEnd = realS(j, endS[q]);
       }
     }
-    return hi;
+    long hi = Long.MAX_VALUE;
+    if (lastVisit != Long.MIN_VALUE) {
+      hi = Math.min(hi, lastVisit + visits.get(v).maxSeparationS());
+    }
+    if (lastMember >= 0) {
+      hi = Math.min(hi, lastMemberEnd + groups.get(g).maxGapS());
+    }
+    return hi == Long.MAX_VALUE ? hi : hi + offsetS(k);
+  }
+
+  /** The task of visit {@code visit} (0-based) of {@code rule} on the resource of task {@code like}. */
+  private int visitTask(VisitRule rule, int visit, int like) {
+    int[] options = rule.visits()[visit];
+    if (sections == null) {
+      return options[0];
+    }
+    for (int k : options) {
+      if (sections.sectionOf(k) == sections.sectionOf(like)) {
+        return k;
+      }
+    }
+    throw new IllegalStateException("visit " + (visit + 1) + " of request " + rule.request() + " has no task on "
+        + "the resource of task " + like);
+  }
+
+  /**
+   * With several resources (A4, A6), the windows one-per-window counts in, on the resources' own clock: the
+   * spans of every option of the rule merged (a pass seen by two antennas is one window), joining spans less
+   * than a second apart (the inward rounding of two overlapping windows leaves such a gap).
+   */
+  public List<Span> mergedWindows(PlanningProblem p, VisitRule rule) {
+    List<Span> all = new ArrayList<>();
+    for (int t : rule.tasks()) {
+      long off = offsetS(t);
+      for (Span sp : p.task(t).spans()) {
+        all.add(new Span(sp.fromS() - off, sp.toS() - off));
+      }
+    }
+    all.sort(java.util.Comparator.comparingLong(Span::fromS));
+    List<Span> merged = new ArrayList<>();
+    for (Span sp : all) {
+      Span last = merged.isEmpty() ? null : merged.get(merged.size() - 1);
+      if (last != null && sp.fromS() <= last.toS() + 1) {
+        merged.set(merged.size() - 1, new Span(last.fromS(), Math.max(last.toS(), sp.toS())));
+      } else {
+        merged.add(sp);
+      }
+    }
+    return merged;
   }
 
   /**
    * The plan with its visits numbered in time order and every observation that breaks a rule left out:
-   * walking in time order, a visit that starts too soon or too late after the previous kept visit, or in
-   * the same span as a kept visit (one per window), is dropped (and, with several resources, every option of
-   * a request after its first); then requests with all-or-nothing visits
-   * that lack some; then, per ordered group in list order, a member that starts before the previous kept
-   * member ends or after its maximum gap; then all-or-nothing groups that lack some member's visits.
-   * Returns {@code plan} itself when it keeps every rule. Starts are unchanged, so a plan that was timed
-   * stays timed as long as leaving an observation out never lengthens the slew that replaces it (true of
-   * the models here up to their state, which the exact timer re-checks).
+   * walking in time order (on the resources' own clocks with several), a visit that starts too soon or too
+   * late after the previous kept visit, or in the same window as a kept visit (one per window; with several
+   * resources their windows merged), is dropped, and so is, with several resources, every option of a request
+   * observed once after its first; then requests with all-or-nothing visits that lack some; then, per group
+   * in list order, with one resource asked (A6) every member on another resource than the first kept one's,
+   * for an ordered group a member that starts before the previous kept member ends or after its maximum gap;
+   * then all-or-nothing groups that lack some member's visits. Returns {@code plan} itself when it keeps every
+   * rule. Starts are unchanged, so a plan that was timed stays timed as long as leaving an observation out
+   * never lengthens the slew that replaces it (true of the models here up to their state, which the exact
+   * timer re-checks).
    */
   public Plan prune(PlanningProblem p, Plan plan) {
     if (isEmpty()) {
@@ -214,11 +297,16 @@ public final class Structure {
     int[] order = plan.order().clone();
     boolean[] keep = new boolean[n];
     Arrays.fill(keep, true);
+    Integer[] byTime = new Integer[n];
+    for (int q = 0; q < n; q++) {
+      byTime[q] = q;
+    }
     if (sections != null) {
+      Arrays.sort(byTime, java.util.Comparator.comparingLong(q -> realS(order[q], plan.startS()[q])));
       boolean[] held = new boolean[sections.unitCount()];
-      for (int q = 0; q < n; q++) {
+      for (int q : byTime) {
         int u = sections.unitOf(order[q]);
-        if (u >= 0) {
+        if (u >= 0 && visitRuleOf[order[q]] < 0) {
           keep[q] = !held[u];
           held[u] = true;
         }
@@ -228,20 +316,21 @@ public final class Structure {
       int next = 0;
       int last = -1;
       List<Span> used = new ArrayList<>();
-      for (int q = 0; q < n; q++) {
+      List<Span> merged = sections != null && rule.onePerWindow() ? mergedWindows(p, rule) : null;
+      for (int q : byTime) {
         if (visitRuleOf[order[q]] < 0 || visits.get(visitRuleOf[order[q]]) != rule) {
           continue;
         }
-        long s = plan.startS()[q];
-        boolean ok = last < 0 || s - plan.startS()[last] >= rule.minSeparationS()
-            && (!rule.hasMax() || s - plan.startS()[last] <= rule.maxSeparationS());
+        long s = realS(order[q], plan.startS()[q]);
+        long gapS = last < 0 ? 0 : s - realS(order[last], plan.startS()[last]);
+        boolean ok = last < 0 || gapS >= rule.minSeparationS() && (!rule.hasMax() || gapS <= rule.maxSeparationS());
         Span span = null;
         if (ok && rule.onePerWindow()) {
-          span = spanHolding(p.task(order[q]), s, plan.durationS()[q]);
+          span = spanHolding(merged != null ? merged : p.task(order[q]).spans(), s, plan.durationS()[q]);
           ok = span == null || !used.contains(span);
         }
-        if (ok && next < rule.tasks().length) {
-          order[q] = rule.tasks()[next++];
+        if (ok && next < rule.count()) {
+          order[q] = visitTask(rule, next++, order[q]);
           last = q;
           if (span != null) {
             used.add(span);
@@ -250,7 +339,7 @@ public final class Structure {
           keep[q] = false;
         }
       }
-      if (rule.allOrNothing() && next < rule.tasks().length) {
+      if (rule.allOrNothing() && next < rule.count()) {
         for (int q = 0; q < n; q++) {
           if (visitRuleOf[order[q]] >= 0 && visits.get(visitRuleOf[order[q]]) == rule) {
             keep[q] = false;
@@ -259,20 +348,30 @@ public final class Structure {
       }
     }
     for (GroupRule group : groups) {
+      if (group.sameResource() && sections != null) {
+        int section = -1;
+        for (int q : byTime) {
+          int k = order[q];
+          if (keep[q] && groupOf[k] >= 0 && groups.get(groupOf[k]) == group) {
+            section = section < 0 ? sections.sectionOf(k) : section;
+            keep[q] = sections.sectionOf(k) == section;
+          }
+        }
+      }
       if (group.ordered()) {
         int lastMember = -1;
         long lastEnd = 0;
-        for (int q = 0; q < n; q++) {
+        for (int q : byTime) {
           int k = order[q];
           if (!keep[q] || groupOf[k] < 0 || groups.get(groupOf[k]) != group) {
             continue;
           }
-          long s = plan.startS()[q];
+          long s = realS(k, plan.startS()[q]);
           boolean ok = lastMember < 0 || memberOf[k] > lastMember && s >= lastEnd
               && (!group.hasMaxGap() || s <= lastEnd + group.maxGapS());
           if (ok) {
             lastMember = memberOf[k];
-            lastEnd = plan.endS(q);
+            lastEnd = realS(k, plan.endS(q));
           } else {
             keep[q] = false;
           }
@@ -282,6 +381,12 @@ public final class Structure {
         int wanted = 0;
         for (int[] m : group.members()) {
           wanted += m.length;
+        }
+        if (sections != null) {
+          wanted = 0; // one task per visit is wanted, not one per resource
+          for (int[] m : group.members()) {
+            wanted += visitsOfMember(m);
+          }
         }
         int held = 0;
         for (int q = 0; q < n; q++) {
@@ -318,15 +423,19 @@ public final class Structure {
     return new Plan(o, st, du);
   }
 
-  private static Span spanHolding(Task t, long s, long d) {
-    for (Span sp : t.spans()) {
+  /** Number of visits among a member's tasks (its distinct units with several resources). */
+  private int visitsOfMember(int[] tasks) {
+    return (int) Arrays.stream(tasks).map(sections::unitOf).distinct().count();
+  }
+
+  private static Span spanHolding(List<Span> spans, long s, long d) {
+    for (Span sp : spans) {
       if (sp.holds(s, d)) {
         return sp;
       }
     }
     return null;
   }
-
   /** True when {@code plan} keeps every rule as it is (visits numbered in time order included). */
   public boolean holds(PlanningProblem p, Plan plan) {
     return prune(p, plan) == plan;

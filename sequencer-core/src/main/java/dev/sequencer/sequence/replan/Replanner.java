@@ -519,11 +519,15 @@ public final class Replanner {
         int r = order.get(i);
         subSectionOf[r] = i;
         subIds.add(fullSec.resourceId(r));
-        windows.add(fullSec.windows(r).stream().filter(w -> ids.contains(w.id())).toList());
+        String resource = fullSec.resourceId(r);
+        windows.add(fullSec.windows(r).stream().filter(w -> ids.contains(w.id()))
+            .map(w -> residual.windowsOn(w, resource)).toList());
         transitions.add(departures(fullSec.transitions(r), r, offsetS));
         ready[i] = departureS(r) - offsetS;
       }
-      PlanningProblem p = PlanningProblem.ofSections(h, requests, subIds, windows, transitions, ready);
+      PlanningProblem p = PlanningProblem.ofSections(h, requests, residual.groups(ids), subIds, windows, transitions,
+          ready);
+      p = residual.clipFirstVisits(p);
       sub = p.withPrizes(stabilityPrizes(p));
     }
 
@@ -657,15 +661,58 @@ public final class Replanner {
           from = from == null || sep.isAfter(from) ? sep : from;
         }
         List<TimeWindow> out = new ArrayList<>();
+        List<TimeWindow> passes = q.visits().onePerWindow() ? passesDone(w.id(), mine) : List.of();
         for (TimeWindow t : w.intervals()) {
           boolean holdsDone = q.visits().onePerWindow()
-              && mine.stream().anyMatch(o -> o.start().isBefore(t.end()) && t.start().isBefore(o.end()));
+              && (mine.stream().anyMatch(o -> o.start().isBefore(t.end()) && t.start().isBefore(o.end()))
+              || passes.stream().anyMatch(x -> !x.start().isAfter(t.end()) && !t.start().isAfter(x.end())));
           if (holdsDone || from != null && !t.end().isAfter(from)) {
             continue;
           }
           out.add(from != null && t.start().isBefore(from) ? new TimeWindow(from, t.end()) : t);
         }
         return new RequestWindows(w.id(), out);
+      }
+
+      /**
+       * {@link #windows(RequestWindows)} on {@code resource} (A6): none there when the request's group keeps its
+       * members on one resource and a member is already observed (done or running) on another.
+       */
+      RequestWindows windowsOn(RequestWindows w, String resource) {
+        for (Group g : full.groups()) {
+          if (g.sameResource() && g.members().contains(w.id()) && frozen.stream()
+              .anyMatch(o -> g.members().contains(o.id()) && o.resource() != null && !o.resource().equals(resource))) {
+            return new RequestWindows(w.id(), List.of());
+          }
+        }
+        return windows(w);
+      }
+
+      /**
+       * With several resources (A4, A6), the windows of request {@code id} on every resource merged (joined
+       * across gaps under a second, as the planner's {@code Structure} does) that hold a visit done: one per
+       * window counts each of them as used on every resource. Empty with one resource.
+       */
+      private List<TimeWindow> passesDone(String id, List<Observation> done) {
+        if (fullSec == null || done.isEmpty()) {
+          return List.of();
+        }
+        List<TimeWindow> all = new ArrayList<>();
+        for (int r = 0; r < fullSec.count(); r++) {
+          fullSec.windows(r).stream().filter(x -> x.id().equals(id)).forEach(x -> all.addAll(x.intervals()));
+        }
+        all.sort(java.util.Comparator.comparing(TimeWindow::start));
+        List<TimeWindow> merged = new ArrayList<>();
+        for (TimeWindow t : all) {
+          TimeWindow last = merged.isEmpty() ? null : merged.get(merged.size() - 1);
+          if (last != null && !t.start().isAfter(last.end().plusSeconds(1))) {
+            merged.set(merged.size() - 1, new TimeWindow(last.start(), t.end().isAfter(last.end()) ? t.end() : last.end()));
+          } else {
+            merged.add(t);
+          }
+        }
+        return merged.stream().filter(x -> done.stream().anyMatch(o -> o.start().isBefore(x.end())
+            && x.start().isBefore(o.end()))).toList();
       }
 
       /** The scenario's groups over the requests still to plan, each as its rules now read. */
@@ -689,10 +736,13 @@ public final class Replanner {
         List<Task> tasks = new ArrayList<>(p.tasks());
         boolean changed = false;
         for (int k = 0; k < tasks.size(); k++) {
+          if (p.isMarker(k)) {
+            continue;
+          }
           Request q = p.requests().get(p.structure().requestOf(k));
           Request original = full.requests().get(index.get(q.id()));
           Double max = original.visits().maxSeparationS();
-          boolean firstLeft = k == 0 || p.structure().requestOf(k - 1) != p.structure().requestOf(k);
+          boolean firstLeft = p.structure().visitOf(k) == 1; // on whichever resource
           Instant latest = null;
           String why = null;
           if (max != null && firstLeft && frozenCount(q.id()) > 0) {
@@ -703,7 +753,8 @@ public final class Replanner {
             why = "no window within its group's maxGapS of the member done before it";
           }
           if (latest != null) {
-            long s = (long) Math.floor(Duration.between(p.horizonStart(), latest).toNanos() * 1e-9 + 1e-9);
+            long s = (long) Math.floor(Duration.between(p.horizonStart(), latest).toNanos() * 1e-9 + 1e-9)
+                + (p.sections() == null ? 0 : p.sections().offsetS(p.sections().sectionOf(k)));
             tasks.set(k, tasks.get(k).withLatestStart(s, why));
             changed = true;
           }
@@ -737,14 +788,14 @@ public final class Replanner {
         return -1;
       }
       Sections sec = p.sections();
-      if (sec == null) {
-        int rank = 0;
-        for (Observation t : tail) {
-          if (t == o) {
-            break;
-          }
-          rank += t.id().equals(o.id()) ? 1 : 0;
+      int rank = 0;
+      for (Observation t : tail) {
+        if (t == o) {
+          break;
         }
+        rank += t.id().equals(o.id()) ? 1 : 0;
+      }
+      if (sec == null) {
         for (int k = 0; k < p.size(); k++) {
           if (p.structure().requestOf(k) == q && rank-- == 0) {
             return k;
@@ -753,9 +804,9 @@ public final class Replanner {
         return -1;
       }
       int section = subSectionOf[resourceOf(o)];
-      for (int k : sec.options(q)) {
-        if (sec.sectionOf(k) == section) {
-          return k;
+      for (int k : sec.requestOptions(q)) {
+        if (sec.sectionOf(k) == section && p.structure().visitOf(k) == rank + 1) {
+          return k; // the remaining visit of that rank (visits are numbered in time order on every resource)
         }
       }
       return -1;
@@ -927,8 +978,8 @@ public final class Replanner {
         return out;
       }
       List<Task> out = new ArrayList<>();
-      for (int k : p.sections().options(q)) {
-        out.add(p.task(k));
+      for (int k : p.sections().requestOptions(q)) {
+        out.add(p.task(k)); // every visit's option on every resource
       }
       return out;
     }
@@ -996,7 +1047,7 @@ public final class Replanner {
       if (fullSec == null || options.unavailable().isEmpty()) {
         return false;
       }
-      for (int o : fullSec.options(k)) {
+      for (int o : fullSec.requestOptions(k)) {
         if (full.task(o).schedulable() && !unavailable(fullSec.sectionOf(o))) {
           return false;
         }

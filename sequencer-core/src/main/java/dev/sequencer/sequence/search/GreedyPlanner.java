@@ -261,21 +261,41 @@ public final class GreedyPlanner {
     }
     Structure.VisitRule v = rules.visitRuleOf(j);
     if (v != null) {
-      for (int q = 0; q < v.tasks().length && v.tasks()[q] != j; q++) {
-        if (!done[v.tasks()[q]]) {
-          return false;
+      for (int q = 0; q < rules.visitOf(j) - 1; q++) {
+        if (java.util.Arrays.stream(v.visits()[q]).noneMatch(k -> done[k])) {
+          return false; // visit q + 1 is not observed yet, on any resource
         }
       }
     }
     Structure.GroupRule g = rules.groupOf(j);
     if (g != null && g.ordered()) {
       for (int i = rules.memberOf(j) + 1; i < g.members().length; i++) {
-        if (done[g.members()[i][0]]) {
+        if (java.util.Arrays.stream(g.members()[i]).anyMatch(k -> done[k])) {
           return false;
         }
       }
     }
+    if (g != null && g.sameResource() && sec != null) {
+      for (int[] member : g.members()) {
+        for (int k : member) {
+          if (done[k] && sec.sectionOf(k) != sec.sectionOf(j)) {
+            return false; // the group is on another resource already
+          }
+        }
+      }
+    }
     return true;
+  }
+
+  /** The task among {@code options} on task {@code like}'s resource (the first one with one resource); -1: none. */
+  private int onResourceOf(int[] options, int like) {
+    Sections sec = rules.sections();
+    for (int k : options) {
+      if (sec == null || sec.sectionOf(k) == sec.sectionOf(like)) {
+        return k;
+      }
+    }
+    return -1;
   }
 
   /**
@@ -290,9 +310,9 @@ public final class GreedyPlanner {
     Path p = path.then(j, t, s);
     long end = s + d;
     for (int i = 1; i < chain.members().length; i++) {
-      int k = chain.members()[i][0];
-      Task tk = problem.task(k);
-      if (done[k] || !tk.schedulable()) {
+      int k = onResourceOf(chain.members()[i], j); // a chain greedy takes in one step stays on j's resource
+      Task tk = k < 0 ? null : problem.task(k);
+      if (k < 0 || done[k] || !tk.schedulable()) {
         return null;
       }
       long latest = chain.hasMaxGap() ? Math.min(tk.latestStartS(), end + chain.maxGapS()) : tk.latestStartS();
