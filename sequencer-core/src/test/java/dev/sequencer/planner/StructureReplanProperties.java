@@ -20,8 +20,8 @@ import net.jqwik.api.Provide;
  * re-planned at a random instant with random done and failed observations ({@link PlannerFuzzProperties#replan}:
  * done kept, nothing new before now, each request at most its visits). Every re-plan passes the façade's
  * independent validator on the merged night — visit numbers, separations from the visits done, one per window,
- * all or nothing once begun, the order and gaps of groups — or it is a bug (thrown); the only refusal allowed
- * is an ordered group with {@code maxGapS} part done.
+ * all or nothing once begun, the order and gaps of groups (a chain with {@code maxGapS} part done included) —
+ * or it is a bug (thrown); nothing is refused.
  */
 class StructureReplanProperties {
   private static final AstroContext CTX = AstroContext.offline();

@@ -627,6 +627,26 @@ public final class RoutingModel {
      */
     private void addOrder(Structure.GroupRule g, java.util.Map<Integer, Integer> pos) {
       int[][] m = g.members(); // ordered members have one visit: their tasks are its options
+      for (int j = 0; j < m.length && g.hasMaxGap() && g.hasFirstLatestStart(); j++) {
+        for (int kb : m[j]) {
+          Integer b = pos.get(kb);
+          if (b == null) {
+            continue;
+          }
+          // The first member present starts at most maxGapS after the member observed before the horizon.
+          List<Literal> when = new ArrayList<>(List.of(present.get(b)));
+          for (int before = 0; before < j; before++) {
+            for (int kc : m[before]) {
+              Integer c = pos.get(kc);
+              if (c != null) {
+                when.add(present.get(c).not());
+              }
+            }
+          }
+          model.addLessOrEqual(startS.get(b), g.firstLatestStartS() + offsetS(kb))
+              .onlyEnforceIf(when.toArray(new Literal[0]));
+        }
+      }
       for (int j = 1; j < m.length; j++) {
         for (int kb : m[j]) {
           Integer b = pos.get(kb);

@@ -270,6 +270,15 @@ public final class PlanningProblem {
         newPrizes, structure, requestTransitions, groups);
   }
 
+  /**
+   * A copy whose groups named in {@code latestS} bound the start of their first member scheduled (a re-plan of
+   * an ordered group with {@code maxGapS} part done; {@link Structure.GroupRule#hasFirstLatestStart}).
+   */
+  public PlanningProblem withFirstLatestStarts(Map<String, Long> latestS) {
+    return new PlanningProblem(horizonStart, horizonS, tasks, transitions, lastIndex, horizon, requests, windows,
+        prizes, structure.withFirstLatestStarts(latestS), requestTransitions, groups);
+  }
+
   /** A copy with these tasks (same ids, same order) and everything else as is. */
   public PlanningProblem withTasks(List<Task> newTasks) {
     for (int k = 0; k < tasks.size(); k++) {

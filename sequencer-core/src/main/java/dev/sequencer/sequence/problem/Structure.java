@@ -47,10 +47,25 @@ public final class Structure {
    * resource (A6).
    */
   public record GroupRule(String id, int[][] members, boolean allOrNothing, boolean ordered, long maxGapS,
-      boolean sameResource) {
+      boolean sameResource, long firstLatestStartS) {
     /** A group without the one-resource rule. */
     public GroupRule(String id, int[][] members, boolean allOrNothing, boolean ordered, long maxGapS) {
       this(id, members, allOrNothing, ordered, maxGapS, false);
+    }
+
+    /** A group as the format gives it: no member observed before the horizon. */
+    public GroupRule(String id, int[][] members, boolean allOrNothing, boolean ordered, long maxGapS,
+        boolean sameResource) {
+      this(id, members, allOrNothing, ordered, maxGapS, sameResource, Long.MAX_VALUE);
+    }
+
+    /**
+     * True when the first member scheduled has a latest start ({@code firstLatestStartS}, on the resources'
+     * common clock): a re-plan of an ordered group with {@code maxGapS} whose earlier members are observed, the
+     * next one scheduled at most that gap after the last one's end, whichever member it is.
+     */
+    public boolean hasFirstLatestStart() {
+      return firstLatestStartS != Long.MAX_VALUE;
     }
 
     /** True when a maximum gap is given. */
@@ -115,6 +130,20 @@ public final class Structure {
         }
       }
     }
+  }
+
+  /**
+   * These rules with the first member scheduled of the named groups bounded: at most {@code latestS} (group id
+   * to seconds on the common clock; see {@link GroupRule#hasFirstLatestStart}).
+   */
+  public Structure withFirstLatestStarts(java.util.Map<String, Long> latestS) {
+    List<GroupRule> out = new ArrayList<>();
+    for (GroupRule g : groups) {
+      Long l = latestS.get(g.id());
+      out.add(l == null ? g : new GroupRule(g.id(), g.members(), g.allOrNothing(), g.ordered(), g.maxGapS(),
+          g.sameResource(), l));
+    }
+    return new Structure(requestOf, visitOf, visits, out, sections);
   }
 
   /** True when no rule ties tasks together. */
@@ -231,6 +260,8 @@ public final class Structure {
     }
     if (lastMember >= 0) {
       hi = Math.min(hi, lastMemberEnd + groups.get(g).maxGapS());
+    } else if (gap && groups.get(g).hasFirstLatestStart()) {
+      hi = Math.min(hi, groups.get(g).firstLatestStartS()); // no earlier member placed: k would be the first
     }
     return hi == Long.MAX_VALUE ? hi : hi + offsetS(k);
   }
@@ -367,8 +398,8 @@ public final class Structure {
             continue;
           }
           long s = realS(k, plan.startS()[q]);
-          boolean ok = lastMember < 0 || memberOf[k] > lastMember && s >= lastEnd
-              && (!group.hasMaxGap() || s <= lastEnd + group.maxGapS());
+          boolean ok = lastMember < 0 ? !group.hasMaxGap() || s <= group.firstLatestStartS()
+              : memberOf[k] > lastMember && s >= lastEnd && (!group.hasMaxGap() || s <= lastEnd + group.maxGapS());
           if (ok) {
             lastMember = memberOf[k];
             lastEnd = realS(k, plan.endS(q));

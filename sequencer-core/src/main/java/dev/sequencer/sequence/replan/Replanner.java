@@ -495,7 +495,7 @@ public final class Replanner {
             .map(residual::windows).toList();
         PlanningProblem p = PlanningProblem.of(h, requests, residual.groups(ids), windows,
             departures(full.requestTransitions(), 0, offsetS));
-        p = residual.clipFirstVisits(p);
+        p = residual.boundFirstMembers(residual.clipFirstVisits(p));
         int last = full.mustBeLastIndex();
         p = last >= 0 && fullToSub[full.structure().requestOf(last)] >= 0 ? p.withMustBeLast(full.task(last).id()) : p;
         sub = p.withPrizes(stabilityPrizes(p));
@@ -527,7 +527,7 @@ public final class Replanner {
       }
       PlanningProblem p = PlanningProblem.ofSections(h, requests, residual.groups(ids), subIds, windows, transitions,
           ready);
-      p = residual.clipFirstVisits(p);
+      p = residual.boundFirstMembers(residual.clipFirstVisits(p));
       sub = p.withPrizes(stabilityPrizes(p));
     }
 
@@ -540,10 +540,10 @@ public final class Replanner {
      * required. A group with a member done: all or nothing makes every other member required; ordered
      * means the members after the last one done start after it ends (windows clipped) and the members before
      * it can no longer be observed (windows removed); with {@code maxGapS} and all or nothing the next member
-     * (required, so the next scheduled) starts at most that long after it (its latest start clipped). An
-     * ordered group with {@code maxGapS} that is not all or nothing and part done is refused (the next
-     * scheduled member may be any later one: not modelled across the re-planning instant yet). A member failed
-     * and not retried closes the rest of its all-or-nothing group.
+     * (required, so the next scheduled) starts at most that long after it (its latest start clipped); when
+     * the group is not all or nothing, whichever member is scheduled first starts at most that long after it
+     * ({@link PlanningProblem#withFirstLatestStarts}). A member failed and not retried closes the rest of its
+     * all-or-nothing group.
      * The merged night is checked by the validator against the scenario's own rules.
      */
     private final class Residual {
@@ -554,6 +554,8 @@ public final class Replanner {
       private final Set<String> mustComplete = new HashSet<>();
       /** Latest start (scenario instant) of a group member next after one done, by id. */
       private final Map<String, Instant> latestStart = new HashMap<>();
+      /** Ordered groups with maxGapS part done, not all or nothing: latest start of the first member scheduled. */
+      private final Map<String, Instant> firstLatestStart = new HashMap<>();
 
       Residual() {
         for (Group g : full.groups()) {
@@ -589,9 +591,8 @@ public final class Replanner {
             String next = g.members().get(lastDone + 1);
             latestStart.put(next, lastEnd(g.members().get(lastDone)).plusNanos(Math.round(g.maxGapS() * 1e9)));
           } else if (g.ordered() && g.maxGapS() != null && more) {
-            throw badInput("previous", "group " + g.id() + " is ordered with maxGapS and part done ("
-                + String.join(", ", done) + "); re-planning the rest of such a group is not supported yet: plan it "
-                + "as a new scenario");
+            // Any remaining member may be the next scheduled: the first one present is bounded (the model's rule).
+            firstLatestStart.put(g.id(), lastEnd(g.members().get(lastDone)).plusNanos(Math.round(g.maxGapS() * 1e9)));
           }
         }
         for (Group g : full.groups()) {
@@ -726,6 +727,17 @@ public final class Replanner {
           }
         }
         return out;
+      }
+
+      /** {@code p} with the first-member latest starts of {@link #firstLatestStart}, in whole seconds of its clock. */
+      PlanningProblem boundFirstMembers(PlanningProblem p) {
+        if (firstLatestStart.isEmpty()) {
+          return p;
+        }
+        Map<String, Long> s = new HashMap<>();
+        firstLatestStart.forEach((id, t) -> s.put(id,
+            (long) Math.floor(Duration.between(p.horizonStart(), t).toNanos() * 1e-9 + 1e-9)));
+        return p.withFirstLatestStarts(s);
       }
 
       /**
