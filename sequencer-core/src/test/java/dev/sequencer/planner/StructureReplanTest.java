@@ -129,6 +129,31 @@ class StructureReplanTest {
   }
 
   /**
+   * A chain A, B, C with a 120 s gap, not all or nothing, A done: B or C may only follow within 120 s of A's
+   * end, and X (worth more, its window right after A) would push them past it. The re-plan takes X and leaves
+   * the chain's rest out; a re-planner that let the next member start anywhere after A would return X, B, C
+   * and fail the validator ("the sequencer produced an invalid plan (a bug)").
+   */
+  @Test
+  void aChainWithAGapPartDoneKeepsItsGapFromTheLastMemberObserved() {
+    Request a = fixed("A", 600, 3).withWindows(List.of(new TimeWindow(T0, T0.plusSeconds(700)))).withRequired(true);
+    Request x = fixed("X", 600, 10).withWindows(List.of(new TimeWindow(T0.plusSeconds(700), T0.plusSeconds(1400))));
+    Scenario s = scenario(List.of(a, fixed("B", 600, 3), fixed("C", 600, 3), x),
+        List.of(new Group("G", List.of("A", "B", "C"), false, true, 120.0, false)));
+    Timeline previous = Planner.plan(s, CTX, SequencerOptions.defaults().withTimeLimitS(3).withReproducible(3))
+        .timeline();
+    Instant aEnd = first(previous, "A").end();
+    ReplanResult r = replan(s, previous, aEnd.plusSeconds(5), Set.of("A"), Set.of());
+    assertTrue(r.hasPlan(), r.message());
+    for (Observation o : r.timeline().observations()) {
+      if (o.id().equals("B") || o.id().equals("C")) {
+        assertTrue(Duration.between(aEnd, o.start()).getSeconds() <= 120, o.id() + " too late: " + r.timeline());
+      }
+    }
+    assertTrue(r.timeline().observations().stream().anyMatch(o -> o.id().equals("X")), r.timeline().toString());
+  }
+
+  /**
    * What the fuzz ({@link StructureReplanProperties}) found before it landed, kept as plain examples: with
    * {@code --drop-failed}, a failed member of an all-or-nothing group is still retried once another member is
    * done (the group is owed whole), and closes the rest of the group when none is done.
