@@ -311,7 +311,7 @@ public final class Structure {
    * The plan with its visits numbered in time order and every observation that breaks a rule left out:
    * walking in time order (on the resources' own clocks with several), a visit that starts too soon or too
    * late after the previous kept visit, or in the same window as a kept visit (one per window; with several
-   * resources their windows merged), is dropped, and so is, with several resources, every option of a request
+   * resources their windows merged), or that does not fit the task of its visit number, is dropped, and so is, with several resources, every option of a request
    * observed once after its first; then requests with all-or-nothing visits that lack some; then, per group
    * in list order, with one resource asked (A6) every member on another resource than the first kept one's,
    * for an ordered group a member that starts before the previous kept member ends or after its maximum gap;
@@ -360,7 +360,11 @@ public final class Structure {
           span = spanHolding(merged != null ? merged : p.task(order[q]).spans(), s, plan.durationS()[q]);
           ok = span == null || !used.contains(span);
         }
-        if (ok && next < rule.count()) {
+        // Renumbered, the observation must fit the task of its new visit number: the visits of one request are
+        // alike except in a re-plan, where the first visit left may carry a latest start (maxSeparationS from
+        // the visit done) that a later one does not; a visit that cannot be the next one is no visit.
+        if (ok && next < rule.count() && p.task(visitTask(rule, next, order[q])).fits(plan.startS()[q],
+            plan.durationS()[q])) {
           order[q] = visitTask(rule, next++, order[q]);
           last = q;
           if (span != null) {
