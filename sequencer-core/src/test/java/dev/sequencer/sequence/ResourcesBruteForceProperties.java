@@ -99,33 +99,48 @@ class ResourcesBruteForceProperties {
         if (rnd.nextInt(4) == 0) {
           continue; // not allowed on this resource
         }
-        List<TimeWindow> w = new ArrayList<>();
-        long cursor = 0;
-        int count = 1 + rnd.nextInt(2);
-        for (int i = 0; i < count && cursor < HORIZON_S; i++) {
-          long a = cursor + 10 * rnd.nextInt(40);
-          long b = Math.min(HORIZON_S, a + 10 * (5 + rnd.nextInt(40)));
-          if (a >= HORIZON_S) {
-            break;
-          }
-          w.add(new TimeWindow(T0.plusSeconds(a), T0.plusSeconds(b)));
-          cursor = b + 10;
-        }
-        mine.put(q.id(), w);
+        mine.put(q.id(), windows(rnd, T0, HORIZON_S, 40, 5, 40));
       }
       windows.add(mine);
-      double[][] t = new double[n][n];
       double[] s = new double[n];
-      for (int i = 0; i < n; i++) {
-        s[i] = 10 * rnd.nextInt(6);
-        for (int j = 0; j < n; j++) {
-          t[i][j] = i == j ? 0 : 10 * rnd.nextInt(10);
-        }
-      }
-      slew.add(t);
+      slew.add(table(rnd, s, 6, 10));
       fromStart.add(s);
     }
     return new Instance(requests, resources, windows, slew, fromStart);
+  }
+
+  /**
+   * One or two windows in [0, horizonS] on a 10 s grid (shared with {@link ResourcesStructureBruteForceProperties}):
+   * each starts up to 10·gapSteps s after the previous one's end plus 10 s and lasts 10·(minSteps + [0,
+   * lenSteps)) s, cut at the horizon.
+   */
+  static List<TimeWindow> windows(Random rnd, Instant t0, long horizonS, int gapSteps, int minSteps, int lenSteps) {
+    List<TimeWindow> w = new ArrayList<>();
+    long cursor = 0;
+    int count = 1 + rnd.nextInt(2);
+    for (int i = 0; i < count && cursor < horizonS; i++) {
+      long a = cursor + 10 * rnd.nextInt(gapSteps);
+      long b = Math.min(horizonS, a + 10 * (minSteps + rnd.nextInt(lenSteps)));
+      if (a >= horizonS) {
+        break;
+      }
+      w.add(new TimeWindow(t0.plusSeconds(a), t0.plusSeconds(b)));
+      cursor = b + 10;
+    }
+    return w;
+  }
+
+  /** A random slew table on a 10 s grid (0 to itself, legs below 10·legSteps s), start legs into {@code fromStart}. */
+  static double[][] table(Random rnd, double[] fromStart, int startSteps, int legSteps) {
+    int n = fromStart.length;
+    double[][] t = new double[n][n];
+    for (int i = 0; i < n; i++) {
+      fromStart[i] = 10 * rnd.nextInt(startSteps);
+      for (int j = 0; j < n; j++) {
+        t[i][j] = i == j ? 0 : 10 * rnd.nextInt(legSteps);
+      }
+    }
+    return t;
   }
 
   // ------------------------------------------------------------------ the exhaustive search

@@ -545,7 +545,7 @@ public final class RoutingModel {
         }
       }
       if (rule.onePerWindow()) {
-        addOnePerWindow(t, pos);
+        addOnePerWindow(t, pos, null);
       }
     }
 
@@ -584,33 +584,7 @@ public final class RoutingModel {
         }
       }
       if (rule.onePerWindow()) {
-        java.util.Map<Span, List<Literal>> bySpan = new java.util.LinkedHashMap<>();
-        List<Span> merged = problem.structure().mergedWindows(problem, rule);
-        for (int k : rule.tasks()) {
-          Integer a = pos.get(k);
-          if (a == null) {
-            continue;
-          }
-          Task t = problem.task(k);
-          long off = offsetS(k);
-          List<Literal> mine = new ArrayList<>();
-          for (Span w : merged) {
-            if (w.toS() - w.fromS() < t.durationS()) {
-              continue;
-            }
-            BoolVar y = model.newBoolVar("inWindow[" + t.id() + "][" + w.fromS() + "]");
-            model.addGreaterOrEqual(startS.get(a), w.fromS() + off).onlyEnforceIf(y);
-            model.addLessOrEqual(endPlus(a, 0), w.toS() + off).onlyEnforceIf(y);
-            mine.add(y);
-            bySpan.computeIfAbsent(w, x -> new ArrayList<>()).add(y);
-          }
-          model.addEquality(LinearExpr.sum(mine.toArray(new Literal[0])), present.get(a));
-        }
-        for (List<Literal> ys : bySpan.values()) {
-          if (ys.size() > 1) {
-            model.addAtMostOne(ys);
-          }
-        }
+        addOnePerWindow(rule.tasks(), pos, problem.structure().mergedWindows(problem, rule));
       }
     }
 
@@ -741,8 +715,12 @@ public final class RoutingModel {
       return absentLiteral;
     }
 
-    /** One per window: inWindow[v][w] ⇒ span w holds visit v; Σ_w inWindow[v][w] = present[v]; Σ_v inWindow[v][w] ≤ 1. */
-    private void addOnePerWindow(int[] tasks, java.util.Map<Integer, Integer> pos) {
+    /**
+     * One per window: inWindow[v][w] ⇒ window w holds visit v; Σ_w inWindow[v][w] = present[v]; Σ_v inWindow[v][w]
+     * ≤ 1. The windows are each task's own spans, or with several resources {@code merged} (on the common clock,
+     * shifted by each task's offset).
+     */
+    private void addOnePerWindow(int[] tasks, java.util.Map<Integer, Integer> pos, List<Span> merged) {
       java.util.Map<Span, List<Literal>> bySpan = new java.util.LinkedHashMap<>();
       for (int k : tasks) {
         Integer a = pos.get(k);
@@ -750,14 +728,15 @@ public final class RoutingModel {
           continue;
         }
         Task t = problem.task(k);
+        long off = merged == null ? 0 : offsetS(k);
         List<Literal> mine = new ArrayList<>();
-        for (Span sp : t.spans()) {
+        for (Span sp : merged == null ? t.spans() : merged) {
           if (sp.toS() - sp.fromS() < t.durationS()) {
             continue;
           }
           BoolVar y = model.newBoolVar("inWindow[" + t.id() + "][" + sp.fromS() + "]");
-          model.addGreaterOrEqual(startS.get(a), sp.fromS()).onlyEnforceIf(y);
-          model.addLessOrEqual(endPlus(a, 0), sp.toS()).onlyEnforceIf(y);
+          model.addGreaterOrEqual(startS.get(a), sp.fromS() + off).onlyEnforceIf(y);
+          model.addLessOrEqual(endPlus(a, 0), sp.toS() + off).onlyEnforceIf(y);
           mine.add(y);
           bySpan.computeIfAbsent(sp, x -> new ArrayList<>()).add(y);
         }
