@@ -21,7 +21,9 @@ import java.util.Random;
  *
  * <p>The slice is solved between its fixed neighbours: it may start after the previous observation ends
  * and must leave the transition to the next observation before that one starts, so the spliced plan is
- * feasible by construction (and checked). The slice length adapts: it grows after a sub-problem is
+ * feasible by construction (and checked). The rules between tasks (visits, groups) are stated with the plan
+ * around the slice as constants ({@link RoutingModel.Spec#context}), and a candidate comes with the unplanned
+ * tasks of its group and visits, so a chain or a visit sequence can enter in one move and no move breaks one. The slice length adapts: it grows after a sub-problem is
  * proven optimal quickly and shrinks after one times out. Slices are drawn with a seeded
  * {@link Random}, so with reproducible CP-SAT settings and a deterministic budget the search repeats
  * exactly.
@@ -84,7 +86,7 @@ public final class NeighbourhoodSearch {
           java.util.Arrays.copyOfRange(current.startS(), a, b),
           java.util.Arrays.copyOfRange(current.durationS(), a, b));
       RoutingModel.Spec spec = new RoutingModel.Spec(free, from, departS, to, arriveByS, slicePlan,
-          free.length > 30 ? 12 : 0);
+          free.length > 30 ? 12 : 0, current);
       double roundDet = Math.min(ROUND_TIME_S, Math.max(0.05, deterministicBudget - detUsed));
       RoutingModel.Outcome o = model.solve(spec,
           params.withTime(Math.min(ROUND_TIME_S, Math.max(0.05, remaining)), roundDet).withSink(null));
@@ -101,7 +103,11 @@ public final class NeighbourhoodSearch {
         continue;
       }
       Plan next = splice(current, a, b, o.plan());
-      if (arcs.score(next).betterThan(arcs.score(current))) {
+      // The slice model states every rule between tasks with the plan around it as constants, so a spliced
+      // plan keeps them; one that does not is a bug (tests run with assertions) and is never taken.
+      boolean keeps = problem.structure().holds(problem, next);
+      assert keeps : "an LNS slice broke a rule between tasks (a bug): " + next;
+      if (keeps && arcs.score(next).betterThan(arcs.score(current))) {
         if (!arcs.feasible(next)) {
           throw new IllegalStateException("LNS produced an infeasible plan (a bug): " + next);
         }
@@ -158,8 +164,22 @@ public final class NeighbourhoodSearch {
       score[k] = t.priority() / (double) (t.durationS() + in + 1) * (0.5 + random.nextDouble());
     }
     candidates.sort(Comparator.comparingDouble((Integer k) -> -score[k]).thenComparingInt(k -> k));
+    java.util.Set<Integer> offered = new java.util.HashSet<>(candidates);
+    int added = 0;
     for (int q = 0; q < candidates.size() && q < MAX_CANDIDATES; q++) {
-      free.add(candidates.get(q));
+      int k = candidates.get(q);
+      if (free.contains(k)) {
+        continue;
+      }
+      free.add(k);
+      // Rules kept whole: a candidate comes with the other unplanned tasks of its group and visits that could
+      // start in the slice, so that a chain or a visit sequence can enter the plan in one move.
+      for (int o : ruleMates(k)) {
+        if (added < MAX_CANDIDATES && offered.contains(o) && !free.contains(o)) {
+          free.add(o);
+          added++;
+        }
+      }
     }
     if (sections != null) {
       // A slice across a section marker frees the end of one resource and the start of the next: the other
@@ -175,6 +195,20 @@ public final class NeighbourhoodSearch {
       }
     }
     return free.stream().mapToInt(Integer::intValue).toArray();
+  }
+
+  /** The other tasks of k's visit rule and group (empty without rules). */
+  private int[] ruleMates(int k) {
+    dev.sequencer.sequence.problem.Structure st = problem.structure();
+    java.util.stream.IntStream mates = java.util.stream.IntStream.empty();
+    if (st.visitRuleOf(k) != null) {
+      mates = java.util.stream.IntStream.concat(mates, java.util.Arrays.stream(st.visitRuleOf(k).tasks()));
+    }
+    if (st.groupOf(k) != null) {
+      mates = java.util.stream.IntStream.concat(mates, java.util.Arrays.stream(st.groupOf(k).members())
+          .flatMapToInt(java.util.Arrays::stream));
+    }
+    return mates.filter(o -> o != k).distinct().toArray();
   }
 
   private static boolean startsBetween(Task t, long departS, long arriveByS) {

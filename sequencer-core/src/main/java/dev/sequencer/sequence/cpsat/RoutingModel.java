@@ -62,7 +62,12 @@ public final class RoutingModel {
    * {@code arriveByS} (or the horizon end), a hint (may be null), and the arc limit per request ({@code
    * kBest} ≤ 0 keeps all time-feasible arcs).
    */
-  public record Spec(int[] nodes, int from, long departS, int to, long arriveByS, Plan hint, int kBest) {}
+  public record Spec(int[] nodes, int from, long departS, int to, long arriveByS, Plan hint, int kBest, Plan context) {
+    /** A spec without a surrounding plan: the whole problem, or a slice whose rules reach nothing outside. */
+    public Spec(int[] nodes, int from, long departS, int to, long arriveByS, Plan hint, int kBest) {
+      this(nodes, from, departS, to, arriveByS, hint, kBest, null);
+    }
+  }
 
   /** Solver settings for one solve. */
   public record Params(double timeLimitS, int workers, int seed, boolean reproducible, double deterministicLimit,
@@ -138,7 +143,7 @@ public final class RoutingModel {
       return o1;
     }
     Spec spec2 = new Spec(spec.nodes(), spec.from(), spec.departS(), spec.to(), spec.arriveByS(), o1.plan(),
-        spec.kBest());
+        spec.kBest(), spec.context());
     Built stage2 = new Built(spec2, Mode.TRANSITION, o1.prize(), params);
     Outcome o2 = stage2.run(params.withTime(params.timeLimitS(), params.deterministicLimit() / 2), start, 1.0);
     boolean bothOptimal = o1.status() == CpSolverStatus.OPTIMAL && o2.status() == CpSolverStatus.OPTIMAL;
@@ -455,45 +460,53 @@ public final class RoutingModel {
      * startS[j] ≤ endS[i] + maxGapS when i and j are present and no member between them is.</li>
      * </ul>
      * The rules only restrict which plans are feasible; the objective is untouched, so the lexicographic
-     * objective stays exact. In the whole problem a task without a start (not in the model) is absent;
-     * in a slice of the timeline (the large-neighbourhood search) a rule that reaches a task outside the
-     * slice is left out, and the incumbent ({@link Structure#prune}) keeps the rules of what the slice
-     * returns.
+     * objective stays exact. In the whole problem a task without a start (not in the model) is absent. In a
+     * slice of the timeline (the large-neighbourhood search, {@link Spec#context} the plan around it) a task
+     * outside the slice is a constant: present at its start in the plan, or absent when the plan leaves it
+     * out; so every rule is stated exactly and the spliced plan keeps it (a move that would break a chain or
+     * a visit sequence outside the slice is not offered). Without a context a rule that reaches a task
+     * outside the model is left to the incumbent ({@link Structure#prune}).
      */
     private void addStructure() {
       Structure st = problem.structure();
       if (st.isEmpty()) {
         return;
       }
-      java.util.Map<Integer, Integer> pos = new java.util.HashMap<>();
       for (int a = 0; a < nodes.size(); a++) {
         pos.put(nodes.get(a), a);
       }
-      boolean whole = spec.from() == Transitions.START && spec.to() < 0 && spec.departS() == 0;
-      if (st.sections() != null) {
-        addUnits(st.sections(), pos, whole);
+      whole = spec.from() == Transitions.START && spec.to() < 0 && spec.departS() == 0;
+      if (spec.context() != null) {
+        Plan c = spec.context();
+        for (int q = 0; q < c.size(); q++) {
+          if (!pos.containsKey(c.order()[q])) {
+            fixed.put(c.order()[q], new long[] {c.startS()[q], c.endS(q)});
+          }
+        }
       }
       Sections sec = st.sections();
+      if (sec != null) {
+        addUnits(sec, pos, whole);
+      }
       for (Structure.VisitRule rule : st.visits()) {
-        if (presence(rule.tasks(), pos, whole) == null) {
+        if (!stated(rule.tasks())) {
           continue;
         }
         if (sec == null) {
-          addVisits(rule, pos, whole);
+          addVisits(rule);
         } else {
-          addVisitsAcross(rule, pos, whole);
+          addVisitsAcross(rule);
         }
       }
       for (Structure.GroupRule g : st.groups()) {
         int[] all = java.util.Arrays.stream(g.members()).flatMapToInt(java.util.Arrays::stream).toArray();
-        if (presence(all, pos, whole) == null) {
+        if (!stated(all)) {
           continue;
         }
         if (g.allOrNothing()) {
           java.util.Map<Integer, List<Literal>> byUnit = new java.util.LinkedHashMap<>();
           for (int k : all) {
-            byUnit.computeIfAbsent(sec == null ? k : sec.unitOf(k), x -> new ArrayList<>())
-                .add(presence(new int[] {k}, pos, whole)[0]);
+            byUnit.computeIfAbsent(sec == null ? k : sec.unitOf(k), x -> new ArrayList<>()).add(presentOf(k));
           }
           LinearExpr first = null;
           for (List<Literal> unit : byUnit.values()) {
@@ -512,40 +525,83 @@ public final class RoutingModel {
           }
           model.addAtMostOne(on);
           for (int k : all) {
-            Integer a = pos.get(k);
-            if (a != null) {
-              model.addImplication(present.get(a), on[sec.sectionOf(k)]);
+            if (!isAbsent(k)) {
+              model.addImplication(presentOf(k), on[sec.sectionOf(k)]);
             }
           }
         }
         if (g.ordered()) {
-          addOrder(g, pos);
+          addOrder(g);
         }
       }
     }
 
-    /** Visits of one resource: presence in visit order, separations enforced by the later visit's presence. */
-    private void addVisits(Structure.VisitRule rule, java.util.Map<Integer, Integer> pos, boolean whole) {
-      Literal[] p = presence(rule.tasks(), pos, whole);
+    /** Model position by task (the structure's rules only). */
+    private final java.util.Map<Integer, Integer> pos = new java.util.HashMap<>();
+    /** Tasks outside a slice that the plan around it holds: {start, end} (planner seconds). */
+    private final java.util.Map<Integer, long[]> fixed = new java.util.HashMap<>();
+    private boolean whole;
+
+    /** True when every task of a rule has a presence here (a variable or a constant): the rule can be stated. */
+    private boolean stated(int[] tasks) {
+      for (int k : tasks) {
+        if (!pos.containsKey(k) && !fixed.containsKey(k) && !(spec.context() != null || whole
+            && !problem.task(k).schedulable())) {
+          return false;
+        }
+      }
+      return true;
+    }
+
+    /** Task k's presence: its variable, constant true for a task fixed outside the slice, else constant false. */
+    private Literal presentOf(int k) {
+      Integer a = pos.get(k);
+      return a != null ? present.get(a) : fixed.containsKey(k) ? held() : absent();
+    }
+
+    private boolean isAbsent(int k) {
+      return !pos.containsKey(k) && !fixed.containsKey(k);
+    }
+
+    /** Task k's start: its variable or the fixed start (not for an absent task). */
+    private LinearExpr startOf(int k, long plus) {
+      Integer a = pos.get(k);
+      return a != null ? LinearExpr.affine(startS.get(a), 1, plus) : LinearExpr.constant(fixed.get(k)[0] + plus);
+    }
+
+    /** Task k's end plus {@code plus}: its expression or the fixed end (not for an absent task). */
+    private LinearExpr endOf(int k, long plus) {
+      Integer a = pos.get(k);
+      return a != null ? endPlus(a, plus) : LinearExpr.constant(fixed.get(k)[1] + plus);
+    }
+
+    /** True when task k is decided here: in the model as a variable (false for a constant). */
+    private boolean variable(int k) {
+      return pos.containsKey(k);
+    }
+
+    /** Visits of one resource: presence in visit order, separations enforced when both visits are present. */
+    private void addVisits(Structure.VisitRule rule) {
       int[] t = rule.tasks();
       for (int i = 0; i + 1 < t.length; i++) {
-        Integer a = pos.get(t[i]);
-        Integer b = pos.get(t[i + 1]);
-        model.addImplication(p[i + 1], p[i]);
-        if (rule.allOrNothing()) {
-          model.addEquality(p[i + 1], p[i]);
+        int ka = t[i];
+        int kb = t[i + 1];
+        if (variable(ka) || variable(kb)) {
+          model.addImplication(presentOf(kb), presentOf(ka));
+          if (rule.allOrNothing()) {
+            model.addEquality(presentOf(kb), presentOf(ka));
+          }
         }
-        if (a != null && b != null) {
-          model.addGreaterOrEqual(startS.get(b), LinearExpr.affine(startS.get(a), 1, rule.minSeparationS()))
-              .onlyEnforceIf(present.get(b));
+        if (!isAbsent(ka) && !isAbsent(kb) && (variable(ka) || variable(kb))) {
+          Literal[] both = {presentOf(ka), presentOf(kb)};
+          model.addGreaterOrEqual(startOf(kb, 0), startOf(ka, rule.minSeparationS())).onlyEnforceIf(both);
           if (rule.hasMax()) {
-            model.addLessOrEqual(startS.get(b), LinearExpr.affine(startS.get(a), 1, rule.maxSeparationS()))
-                .onlyEnforceIf(present.get(b));
+            model.addLessOrEqual(startOf(kb, 0), startOf(ka, rule.maxSeparationS())).onlyEnforceIf(both);
           }
         }
       }
       if (rule.onePerWindow()) {
-        addOnePerWindow(t, pos, null);
+        addOnePerWindow(t, null);
       }
     }
 
@@ -555,36 +611,33 @@ public final class RoutingModel {
      * of visit v + 1 both present, the separations on the resources' own clocks: startS[b] − offset(b) −
      * (startS[a] − offset(a)) within [min, max]; one per window on the merged windows of every resource.
      */
-    private void addVisitsAcross(Structure.VisitRule rule, java.util.Map<Integer, Integer> pos, boolean whole) {
+    private void addVisitsAcross(Structure.VisitRule rule) {
       int[][] v = rule.visits();
       for (int i = 0; i + 1 < v.length; i++) {
-        LinearExpr held = LinearExpr.sum(presence(v[i], pos, whole));
-        LinearExpr next = LinearExpr.sum(presence(v[i + 1], pos, whole));
+        LinearExpr held = LinearExpr.sum(java.util.Arrays.stream(v[i]).mapToObj(this::presentOf).toArray(Literal[]::new));
+        LinearExpr next = LinearExpr.sum(java.util.Arrays.stream(v[i + 1]).mapToObj(this::presentOf)
+            .toArray(Literal[]::new));
         if (rule.allOrNothing()) {
           model.addEquality(next, held);
         } else {
           model.addLessOrEqual(next, held);
         }
         for (int ka : v[i]) {
-          Integer a = pos.get(ka);
           for (int kb : v[i + 1]) {
-            Integer b = pos.get(kb);
-            if (a == null || b == null) {
+            if (isAbsent(ka) || isAbsent(kb) || !variable(ka) && !variable(kb)) {
               continue;
             }
             long shift = offsetS(kb) - offsetS(ka);
-            Literal[] both = {present.get(a), present.get(b)};
-            model.addGreaterOrEqual(startS.get(b), LinearExpr.affine(startS.get(a), 1, rule.minSeparationS() + shift))
-                .onlyEnforceIf(both);
+            Literal[] both = {presentOf(ka), presentOf(kb)};
+            model.addGreaterOrEqual(startOf(kb, 0), startOf(ka, rule.minSeparationS() + shift)).onlyEnforceIf(both);
             if (rule.hasMax()) {
-              model.addLessOrEqual(startS.get(b), LinearExpr.affine(startS.get(a), 1, rule.maxSeparationS() + shift))
-                  .onlyEnforceIf(both);
+              model.addLessOrEqual(startOf(kb, 0), startOf(ka, rule.maxSeparationS() + shift)).onlyEnforceIf(both);
             }
           }
         }
       }
       if (rule.onePerWindow()) {
-        addOnePerWindow(rule.tasks(), pos, problem.structure().mergedWindows(problem, rule));
+        addOnePerWindow(rule.tasks(), problem.structure().mergedWindows(problem, rule));
       }
     }
 
@@ -597,56 +650,47 @@ public final class RoutingModel {
     /**
      * Ordered groups: for options a of member i and b of a later member j, both present, startS[b] ≥ endS[a]
      * on the resources' own clocks; with a maximum gap, startS[b] ≤ endS[a] + maxGapS when no option of a
-     * member between them is present.
+     * member between them is present; the first member present within its latest start when a re-plan gives
+     * one ({@link Structure.GroupRule#hasFirstLatestStart}).
      */
-    private void addOrder(Structure.GroupRule g, java.util.Map<Integer, Integer> pos) {
+    private void addOrder(Structure.GroupRule g) {
       int[][] m = g.members(); // ordered members have one visit: their tasks are its options
       for (int j = 0; j < m.length && g.hasMaxGap() && g.hasFirstLatestStart(); j++) {
         for (int kb : m[j]) {
-          Integer b = pos.get(kb);
-          if (b == null) {
+          if (!variable(kb)) {
             continue;
           }
-          // The first member present starts at most maxGapS after the member observed before the horizon.
-          List<Literal> when = new ArrayList<>(List.of(present.get(b)));
+          List<Literal> when = new ArrayList<>(List.of(presentOf(kb)));
           for (int before = 0; before < j; before++) {
             for (int kc : m[before]) {
-              Integer c = pos.get(kc);
-              if (c != null) {
-                when.add(present.get(c).not());
-              }
+              when.add(presentOf(kc).not());
             }
           }
-          model.addLessOrEqual(startS.get(b), g.firstLatestStartS() + offsetS(kb))
+          model.addLessOrEqual(startOf(kb, 0), g.firstLatestStartS() + offsetS(kb))
               .onlyEnforceIf(when.toArray(new Literal[0]));
         }
       }
       for (int j = 1; j < m.length; j++) {
         for (int kb : m[j]) {
-          Integer b = pos.get(kb);
-          if (b == null) {
+          if (isAbsent(kb)) {
             continue;
           }
           for (int i = j - 1; i >= 0; i--) {
             for (int ka : m[i]) {
-              Integer a = pos.get(ka);
-              if (a == null) {
+              if (isAbsent(ka) || !variable(ka) && !variable(kb)) {
                 continue;
               }
               long shift = offsetS(kb) - offsetS(ka);
-              model.addGreaterOrEqual(startS.get(b), endPlus(a, shift))
-                  .onlyEnforceIf(new Literal[] {present.get(a), present.get(b)});
+              model.addGreaterOrEqual(startOf(kb, 0), endOf(ka, shift))
+                  .onlyEnforceIf(new Literal[] {presentOf(ka), presentOf(kb)});
               if (g.hasMaxGap()) {
-                List<Literal> when = new ArrayList<>(List.of(present.get(a), present.get(b)));
+                List<Literal> when = new ArrayList<>(List.of(presentOf(ka), presentOf(kb)));
                 for (int between = i + 1; between < j; between++) {
                   for (int kc : m[between]) {
-                    Integer c = pos.get(kc);
-                    if (c != null) {
-                      when.add(present.get(c).not());
-                    }
+                    when.add(presentOf(kc).not());
                   }
                 }
-                model.addLessOrEqual(startS.get(b), endPlus(a, g.maxGapS() + shift))
+                model.addLessOrEqual(startOf(kb, 0), endOf(ka, g.maxGapS() + shift))
                     .onlyEnforceIf(when.toArray(new Literal[0]));
               }
             }
@@ -686,25 +730,6 @@ public final class RoutingModel {
       }
     }
 
-    /**
-     * The presence literals of {@code tasks}: the model's, or constant false for a task without a start in
-     * the whole problem; null when some task lies outside a slice (the rule is then left to the incumbent).
-     */
-    private Literal[] presence(int[] tasks, java.util.Map<Integer, Integer> pos, boolean whole) {
-      Literal[] out = new Literal[tasks.length];
-      for (int i = 0; i < tasks.length; i++) {
-        Integer a = pos.get(tasks[i]);
-        if (a != null) {
-          out[i] = present.get(a);
-        } else if (whole && !problem.task(tasks[i]).schedulable()) {
-          out[i] = absent();
-        } else {
-          return null;
-        }
-      }
-      return out;
-    }
-
     private BoolVar absentLiteral;
 
     private Literal absent() {
@@ -715,13 +740,37 @@ public final class RoutingModel {
       return absentLiteral;
     }
 
+    private BoolVar heldLiteral;
+
+    /** Constant true: a task the plan around a slice holds. */
+    private Literal held() {
+      if (heldLiteral == null) {
+        heldLiteral = model.newBoolVar("held");
+        model.addEquality(heldLiteral, 1);
+      }
+      return heldLiteral;
+    }
+
     /**
      * One per window: inWindow[v][w] ⇒ window w holds visit v; Σ_w inWindow[v][w] = present[v]; Σ_v inWindow[v][w]
      * ≤ 1. The windows are each task's own spans, or with several resources {@code merged} (on the common clock,
-     * shifted by each task's offset).
+     * shifted by each task's offset); a window that holds a task fixed outside a slice takes no visit here.
      */
-    private void addOnePerWindow(int[] tasks, java.util.Map<Integer, Integer> pos, List<Span> merged) {
+    private void addOnePerWindow(int[] tasks, List<Span> merged) {
       java.util.Map<Span, List<Literal>> bySpan = new java.util.LinkedHashMap<>();
+      java.util.Set<Span> taken = new java.util.HashSet<>();
+      for (int k : tasks) {
+        long[] f = fixed.get(k);
+        if (f == null) {
+          continue;
+        }
+        long off = merged == null ? 0 : offsetS(k);
+        for (Span sp : merged == null ? problem.task(k).spans() : merged) {
+          if (sp.fromS() + off <= f[0] && f[1] <= sp.toS() + off) {
+            taken.add(sp);
+          }
+        }
+      }
       for (int k : tasks) {
         Integer a = pos.get(k);
         if (a == null) {
@@ -731,7 +780,7 @@ public final class RoutingModel {
         long off = merged == null ? 0 : offsetS(k);
         List<Literal> mine = new ArrayList<>();
         for (Span sp : merged == null ? t.spans() : merged) {
-          if (sp.toS() - sp.fromS() < t.durationS()) {
+          if (sp.toS() - sp.fromS() < t.durationS() || taken.contains(sp)) {
             continue;
           }
           BoolVar y = model.newBoolVar("inWindow[" + t.id() + "][" + sp.fromS() + "]");
