@@ -17,6 +17,7 @@ import dev.sequencer.sequence.problem.Plan;
 import dev.sequencer.sequence.problem.PlanningProblem;
 import dev.sequencer.sequence.problem.Reasons;
 import dev.sequencer.sequence.problem.Sections;
+import dev.sequencer.sequence.problem.Structure;
 import dev.sequencer.sequence.problem.Task;
 import dev.sequencer.sequence.search.DeadlineOrders;
 import dev.sequencer.sequence.search.ExactRepair;
@@ -66,6 +67,12 @@ public final class Sequencer {
   static final double MIN_MAIN_S_LARGE = 3.0;
   /** Share of the solve time the whole-model solve gets on large models before LNS takes over. */
   static final double MAIN_SHARE_LARGE = 0.35;
+  /**
+   * The insertion search runs only while fewer than this share of the schedulable tasks are bound by visits or
+   * groups: its moves do not keep those rules, and on the 200-request cadence night (about half the tasks
+   * bound) none of its improvements survived the prune (docs/benchmarks.md).
+   */
+  static final double INSERTION_RULES_MAX = 0.25;
   /** Share of the time left (before the end reserve) the insertion search gets to improve the warm start (fixed durations). */
   static final double INSERTION_SHARE = 0.5;
   /**
@@ -265,8 +272,12 @@ public final class Sequencer {
       }
       if (problem.hasFlexible()) {
         timed("moves", this::movesStart);
-      } else if (options.hint()) {
+      } else if (options.hint() && ruleBoundShare() < INSERTION_RULES_MAX) {
         timed("insertion", this::insertionSearch);
+      } else if (options.hint()) {
+        note(Note.Kind.SEARCH, String.format(Locale.ROOT, "insertion search skipped: %.0f %% of the requests' "
+            + "observations are bound by visits or groups, which its moves do not keep (its time goes to CP-SAT "
+            + "and the LNS, whose slices keep them).", 100 * ruleBoundShare()));
       }
       if (options.relaxationBound()) {
         timed("bound", () -> lpBound = relaxation(Math.min(LP_MAX_S, budget.phaseS(LP_SHARE, endReserveS()))));
@@ -402,6 +413,15 @@ public final class Sequencer {
       }
       lnsRounds = lns.rounds();
       lnsImprovements += lns.improvements();
+    }
+
+    /** Share of the schedulable tasks bound by a visit rule or a group (format additions A4, A5). */
+    private double ruleBoundShare() {
+      Structure st = problem.structure();
+      long schedulable = IntStream.range(0, problem.size()).filter(k -> problem.task(k).schedulable()).count();
+      long bound = IntStream.range(0, problem.size()).filter(k -> problem.task(k).schedulable()
+          && (st.visitRuleOf(k) != null || st.groupOf(k) != null)).count();
+      return schedulable == 0 ? 0 : bound / (double) schedulable;
     }
 
     /**

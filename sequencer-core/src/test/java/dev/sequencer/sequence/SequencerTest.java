@@ -183,4 +183,20 @@ class SequencerTest {
       assertTrue(seen.get(k)[1] >= seen.get(k - 1)[1], "priority never decreases");
     }
   }
+
+  /**
+   * The insertion search, whose moves do not keep visits and groups, runs on a night without rules and is
+   * skipped on the cadence night (about half the observations bound by them), saying so; its time goes to
+   * CP-SAT and the LNS (measured in docs/benchmarks.md).
+   */
+  @Test
+  void theInsertionSearchIsSkippedWhereMostObservationsAreBoundByRules() {
+    SequencerOptions o = SequencerOptions.defaults().withTimeLimitS(2).withWorkers(2).withReproducible(1);
+    SequencerResult plain = new Sequencer().plan(NightScenario.generate(40, 1), o);
+    SequencerResult rules = new Sequencer().plan(NightScenario.cadence(40, 1), o);
+    assertTrue(plain.stats().notes().stream().anyMatch(n -> n.text().startsWith("insertion search: ")),
+        plain.stats().notes().toString());
+    assertTrue(rules.stats().notes().stream().anyMatch(n -> n.text().startsWith("insertion search skipped: ")),
+        rules.stats().notes().toString());
+  }
 }
