@@ -64,9 +64,7 @@ public final class InventedPlans {
   /**
    * Two sites three nautical zones apart, east-ridge (28 N, 65 E: UTC+4) and west-mesa (32 N, 20 E: UTC+1), and
    * an ordered group RELAY whose first member only east-ridge may observe, in the east's evening, and whose second
-   * only west-mesa, after 20:00 UTC. The planner does not plan groups on several resources yet (its input rules
-   * refuse them), so the scenario is planned without RELAY and returned with it: the windows put its members in
-   * order, as the validator's group rule asks.
+   * only west-mesa, after 20:00 UTC: a group across two resources, planned as it is (format additions A5, A6).
    */
   public static NetworkPlans.Planned twoZones() {
     return PLANNED.computeIfAbsent("zones", k -> {
@@ -82,13 +80,10 @@ public final class InventedPlans {
           fixed("E-1", 310, 10, 900, 3).withResources(List.of("east-ridge")),
           fixed("W-1", 40, 15, 900, 3).withResources(List.of("west-mesa")),
           fixed("ANY-1", 0, 20, 900, 2));
-      Scenario ungrouped = new Scenario(1, "invented two-zone network", horizon, null, nightConstraints(),
-          new SlewSettings.Fixed(60), null, requests, null, List.of(), Reconfiguration.NONE, "", resources);
-      NetworkPlans.Planned p = plan(ungrouped);
-      Scenario grouped = new Scenario(1, ungrouped.name(), horizon, null, ungrouped.constraints(), ungrouped.slew(),
-          null, requests, null, List.of(new Group("RELAY", List.of("RLY-1", "RLY-2"), false, true, null, false)),
-          Reconfiguration.NONE, "", resources);
-      return new NetworkPlans.Planned(grouped, p.geometry(), p.timeline());
+      return plan(new Scenario(1, "invented two-zone network", horizon, null, nightConstraints(),
+          new SlewSettings.Fixed(60), null, requests, null,
+          List.of(new Group("RELAY", List.of("RLY-1", "RLY-2"), false, true, null, false)), Reconfiguration.NONE, "",
+          resources));
     });
   }
 
