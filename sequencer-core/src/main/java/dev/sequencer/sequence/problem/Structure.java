@@ -218,6 +218,9 @@ public final class Structure {
     int v = visitRuleOf[k];
     int g = groupOf[k];
     boolean ordered = g >= 0 && groups.get(g).ordered();
+    if (v < 0 && !ordered) {
+      return 0; // no rule orders k after anything: not worth a scan of the plan
+    }
     for (int q = 0; q < count; q++) {
       int j = order[q];
       if (v >= 0 && visitRuleOf[j] == v) {
@@ -240,6 +243,9 @@ public final class Structure {
     int g = groupOf[k];
     boolean gap = g >= 0 && groups.get(g).ordered() && groups.get(g).hasMaxGap();
     boolean sep = v >= 0 && visits.get(v).hasMax();
+    if (!sep && !gap) {
+      return Long.MAX_VALUE;
+    }
     long lastVisit = Long.MIN_VALUE;
     int lastMember = -1;
     long lastMemberEnd = Long.MIN_VALUE;
