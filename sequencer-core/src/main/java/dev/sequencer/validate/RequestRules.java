@@ -121,7 +121,7 @@ public final class RequestRules {
             Locale.ROOT, "visit %d of %s starts %.3f s after visit %d starts, less than minSeparationS", i + 1,
             r.id(), sep, i)));
       }
-      if (v.maxSeparationS() != null && sep > v.maxSeparationS() + TOLERANCE_S) {
+      if (v.maxSeparationS() != null && sep > v.maxSeparationS() + TOLERANCE_S && !history(o)) {
         out.add(Violation.of(Kind.VISIT_SEPARATION, r.id(), o.start(), sep, v.maxSeparationS(), String.format(
             Locale.ROOT, "visit %d of %s starts %.3f s after visit %d starts, more than maxSeparationS", i + 1,
             r.id(), sep, i)));
@@ -144,6 +144,15 @@ public final class RequestRules {
       out.add(Violation.of(Kind.VISITS_INCOMPLETE, r.id(), null, n, wanted, "required request " + r.id() + " has "
           + n + " of its " + wanted + " visits (a required request needs all)"));
     }
+  }
+
+  /**
+   * True for an observation of a re-plan's history (done or running): an upper bound between it and the one
+   * before it (maxSeparationS, maxGapS) is not judged, since a failed observation between them may have been
+   * removed; what the re-plan adds is judged as always. Lower bounds and order still hold for the history.
+   */
+  private static boolean history(Observation o) {
+    return Observation.DONE.equals(o.state()) || Observation.RUNNING.equals(o.state());
   }
 
   private void group(Group g, Map<String, List<Observation>> byId, Map<String, Integer> held, List<Violation> out) {
@@ -182,7 +191,7 @@ public final class RequestRules {
         if (after < -TOLERANCE_S) {
           out.add(Violation.of(Kind.GROUP_ORDER, id, o.start(), -after, 0, "group " + g.id() + " is ordered, but "
               + id + " starts at " + o.start() + ", before " + prevId + " ends at " + prev.end()));
-        } else if (g.maxGapS() != null && after > g.maxGapS() + TOLERANCE_S) {
+        } else if (g.maxGapS() != null && after > g.maxGapS() + TOLERANCE_S && !history(o)) {
           out.add(Violation.of(Kind.GROUP_GAP, id, o.start(), after, g.maxGapS(), String.format(Locale.ROOT,
               "group %s: %s starts %.3f s after %s ends, more than maxGapS", g.id(), id, after, prevId)));
         }
