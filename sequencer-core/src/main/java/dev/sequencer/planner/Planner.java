@@ -167,6 +167,31 @@ public final class Planner {
   }
 
   /**
+   * {@code v} on the timeline as it is written ({@link #annotate}: the slews' departures and waypoints, A3), as
+   * {@link #check(PlanValidator, Scenario, Geometry)} does for a plan: a re-plan's night with a slew around a
+   * keep-out is judged with its waypoints, not as the direct slew it replaces.
+   */
+  static dev.sequencer.validate.TimelineCheck annotating(dev.sequencer.validate.TimelineCheck v, Scenario s,
+      Geometry g) {
+    return new dev.sequencer.validate.TimelineCheck() {
+      @Override
+      public List<String> violations(Timeline t) {
+        return v.violations(annotate(s, g, t));
+      }
+
+      @Override
+      public dev.sequencer.validate.TimelineCheck withNow(Instant now) {
+        return annotating(v.withNow(now), s, g);
+      }
+
+      @Override
+      public dev.sequencer.validate.TimelineCheck withRequiredIgnored() {
+        return annotating(v.withRequiredIgnored(), s, g);
+      }
+    };
+  }
+
+  /**
    * The façade's one check: the independent validator, with its expected cost (it samples each observation's
    * constraints every {@link PlanValidator#SAMPLE_STEP_S} seconds, about {@link #CHECK_SAMPLE_S} each).
    */
@@ -227,7 +252,8 @@ public final class Planner {
     preloadSolver();
     Geometry g = geometry(s, ctx);
     PlanningProblem problem = problem(s, g);
-    ReplanOptions o = options.withSequencer(options.sequencer().withClock(clock)).withValidator(validator(g, ctx));
+    ReplanOptions o = options.withSequencer(options.sequencer().withClock(clock))
+        .withValidator(annotating(validator(g, ctx), s, g));
     ReplanResult r = new Replanner().replan(problem, previous, now, done, failed, o);
     ReplanResult annotated = new ReplanResult(annotate(s, g, r.timeline()), r.source(),
         r.newPriority(), r.tailPriority(), r.solverPriority(), r.tailRequests(), r.keptRequests(), r.keptArcs(),

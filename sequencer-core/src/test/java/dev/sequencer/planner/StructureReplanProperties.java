@@ -62,6 +62,17 @@ class StructureReplanProperties {
     check(new Try(FuzzScenarios.Kind.GROUND_FIELDS_FIXED, 14627, SequencerOptions.Solver.CPSAT));
   }
 
+  /**
+   * Found by this property (2026-12-04): a re-plan from a low orbit whose new plan slews around a keep-out; the
+   * re-plan's check judged the night without the slews' waypoints (as the direct slew) and stopped with "the
+   * sequencer produced an invalid plan (a bug): slewSeconds is 113.068, but the slew from S0 takes 88.646 s".
+   * The re-plan's check now reads the night as it is written, as the plan's check does.
+   */
+  @net.jqwik.api.Example
+  void aReplanWithASlewAroundAKeepOutIsCheckedWithItsWaypoints() {
+    check(new Try(FuzzScenarios.Kind.LEO_TLE_FIELDS, 5, SequencerOptions.Solver.GREEDY));
+  }
+
   static void check(Try t) {
     Random rnd = new Random(t.seed());
     Scenario s = FuzzScenarios.withStructure(FuzzScenarios.generate(t.kind(), t.seed(), CTX), rnd);
