@@ -9,9 +9,7 @@ import dev.sequencer.sequence.SequencerOptions;
 import java.util.ArrayList;
 import java.util.List;
 import java.util.Random;
-import net.jqwik.api.Arbitraries;
 import net.jqwik.api.Arbitrary;
-import net.jqwik.api.Combinators;
 import net.jqwik.api.ForAll;
 import net.jqwik.api.Property;
 import net.jqwik.api.Provide;
@@ -29,21 +27,18 @@ import net.jqwik.api.Provide;
 class ResourcesStructureFuzzProperties {
   private static final AstroContext CTX = AstroContext.offline();
 
-  /** One try's settings. */
-  record Try(FuzzScenarios.Kind kind, long seed, SequencerOptions.Solver solver) {}
-
+  /** The tries of {@link StructureReplanProperties}: every observer kind, a seed, CP-SAT or greedy. */
   @Provide
-  Arbitrary<Try> tries() {
-    return Combinators.combine(Arbitraries.of(FuzzScenarios.Kind.class), Arbitraries.longs().between(1, 1_000_000),
-        Arbitraries.of(SequencerOptions.Solver.CPSAT, SequencerOptions.Solver.GREEDY)).as(Try::new);
+  Arbitrary<StructureReplanProperties.Try> tries() {
+    return new StructureReplanProperties().tries();
   }
 
   @Property(tries = 16, shrinking = net.jqwik.api.ShrinkingMode.OFF)
-  void visitsAndGroupsOnSeveralResourcesKeepEveryRule(@ForAll("tries") Try t) {
+  void visitsAndGroupsOnSeveralResourcesKeepEveryRule(@ForAll("tries") StructureReplanProperties.Try t) {
     check(t);
   }
 
-  static void check(Try t) {
+  static void check(StructureReplanProperties.Try t) {
     Random rnd = new Random(t.seed());
     Scenario s = FuzzScenarios.withStructure(FuzzScenarios.withResources(FuzzScenarios.generate(t.kind(), t.seed(),
         CTX), rnd), rnd);

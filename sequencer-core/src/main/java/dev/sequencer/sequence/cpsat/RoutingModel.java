@@ -730,25 +730,24 @@ public final class RoutingModel {
       }
     }
 
-    private BoolVar absentLiteral;
+    private final BoolVar[] constants = new BoolVar[2];
 
+    /** Constant false: a task that is not in the plan (or has no start). */
     private Literal absent() {
-      if (absentLiteral == null) {
-        absentLiteral = model.newBoolVar("absent");
-        model.addEquality(absentLiteral, 0);
-      }
-      return absentLiteral;
+      return constant(0);
     }
-
-    private BoolVar heldLiteral;
 
     /** Constant true: a task the plan around a slice holds. */
     private Literal held() {
-      if (heldLiteral == null) {
-        heldLiteral = model.newBoolVar("held");
-        model.addEquality(heldLiteral, 1);
+      return constant(1);
+    }
+
+    private Literal constant(int value) {
+      if (constants[value] == null) {
+        constants[value] = model.newBoolVar(value == 0 ? "absent" : "held");
+        model.addEquality(constants[value], value);
       }
-      return heldLiteral;
+      return constants[value];
     }
 
     /**
