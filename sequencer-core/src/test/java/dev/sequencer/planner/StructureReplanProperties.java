@@ -73,6 +73,17 @@ class StructureReplanProperties {
     check(new Try(FuzzScenarios.Kind.LEO_TLE_FIELDS, 5, SequencerOptions.Solver.GREEDY));
   }
 
+  /**
+   * Found by this property (2026-12-04): a re-plan with no observer where a request's windows overlap once the
+   * re-plan clips them; the planner counted one per window in its spans while the validator asked whether one of
+   * the request's own windows holds both visits, and stopped with "the sequencer produced an invalid plan (a
+   * bug): visits 2 and 3 of W0 lie in one visibility window (onePerWindow)".
+   */
+  @net.jqwik.api.Example
+  void onePerWindowIsCountedAlikeByThePlannerAndTheCheckInAReplan() {
+    check(new Try(FuzzScenarios.Kind.NO_OBSERVER_MATRIX, 16999, SequencerOptions.Solver.GREEDY));
+  }
+
   static void check(Try t) {
     Random rnd = new Random(t.seed());
     Scenario s = FuzzScenarios.withStructure(FuzzScenarios.generate(t.kind(), t.seed(), CTX), rnd);

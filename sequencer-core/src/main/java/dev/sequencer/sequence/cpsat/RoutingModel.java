@@ -601,7 +601,7 @@ public final class RoutingModel {
         }
       }
       if (rule.onePerWindow()) {
-        addOnePerWindow(t, null);
+        addOnePerWindow(t, problem.structure().mergedWindows(problem, rule));
       }
     }
 
@@ -752,8 +752,9 @@ public final class RoutingModel {
 
     /**
      * One per window: inWindow[v][w] ⇒ window w holds visit v; Σ_w inWindow[v][w] = present[v]; Σ_v inWindow[v][w]
-     * ≤ 1. The windows are each task's own spans, or with several resources {@code merged} (on the common clock,
-     * shifted by each task's offset); a window that holds a task fixed outside a slice takes no visit here.
+     * ≤ 1. The windows are the rule's {@code merged} ones ({@link Structure#mergedWindows}, on the resources' own
+     * clocks, shifted by each task's offset): a task's own spans would miss two visits in one window when a
+     * re-plan clipped one of them. A window that holds a task fixed outside a slice takes no visit here.
      */
     private void addOnePerWindow(int[] tasks, List<Span> merged) {
       java.util.Map<Span, List<Literal>> bySpan = new java.util.LinkedHashMap<>();
@@ -763,8 +764,8 @@ public final class RoutingModel {
         if (f == null) {
           continue;
         }
-        long off = merged == null ? 0 : offsetS(k);
-        for (Span sp : merged == null ? problem.task(k).spans() : merged) {
+        long off = offsetS(k);
+        for (Span sp : merged) {
           if (sp.fromS() + off <= f[0] && f[1] <= sp.toS() + off) {
             taken.add(sp);
           }
@@ -776,9 +777,9 @@ public final class RoutingModel {
           continue;
         }
         Task t = problem.task(k);
-        long off = merged == null ? 0 : offsetS(k);
+        long off = offsetS(k);
         List<Literal> mine = new ArrayList<>();
-        for (Span sp : merged == null ? t.spans() : merged) {
+        for (Span sp : merged) {
           if (sp.toS() - sp.fromS() < t.durationS() || taken.contains(sp)) {
             continue;
           }

@@ -288,9 +288,11 @@ public final class Structure {
   }
 
   /**
-   * With several resources (A4, A6), the windows one-per-window counts in, on the resources' own clock: the
-   * spans of every option of the rule merged (a pass seen by two antennas is one window), joining spans less
-   * than a second apart (the inward rounding of two overlapping windows leaves such a gap).
+   * The windows one-per-window counts in, on the resources' own clock: the spans of every task of the rule
+   * merged, joining spans less than a second apart (the inward rounding of two overlapping windows leaves such
+   * a gap). With several resources (A4, A6) a pass seen by two antennas is one window; with one, the visits'
+   * tasks differ where a re-plan clipped one of them (the first visit left ends at its maxSeparationS from the
+   * visit done), and a clipped span is still part of the window it was clipped from.
    */
   public List<Span> mergedWindows(PlanningProblem p, VisitRule rule) {
     List<Span> all = new ArrayList<>();
@@ -353,7 +355,7 @@ public final class Structure {
       int next = 0;
       int last = -1;
       List<Span> used = new ArrayList<>();
-      List<Span> merged = sections != null && rule.onePerWindow() ? mergedWindows(p, rule) : null;
+      List<Span> merged = rule.onePerWindow() ? mergedWindows(p, rule) : null;
       for (int q : byTime) {
         if (visitRuleOf[order[q]] < 0 || visits.get(visitRuleOf[order[q]]) != rule) {
           continue;
@@ -363,7 +365,7 @@ public final class Structure {
         boolean ok = last < 0 || gapS >= rule.minSeparationS() && (!rule.hasMax() || gapS <= rule.maxSeparationS());
         Span span = null;
         if (ok && rule.onePerWindow()) {
-          span = spanHolding(merged != null ? merged : p.task(order[q]).spans(), s, plan.durationS()[q]);
+          span = spanHolding(merged, s, plan.durationS()[q]);
           ok = span == null || !used.contains(span);
         }
         // Renumbered, the observation must fit the task of its new visit number: the visits of one request are
