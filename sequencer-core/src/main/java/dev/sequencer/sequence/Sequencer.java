@@ -504,15 +504,13 @@ public final class Sequencer {
           picked.add(new long[] {sec.markerOf(r + 1), problem.task(sec.markerOf(r + 1)).earliestStartS(), 0});
         }
       }
-      int[] order = new int[picked.size()];
-      long[] starts = new long[picked.size()];
-      long[] durs = new long[picked.size()];
-      for (int i = 0; i < order.length; i++) {
-        order[i] = (int) picked.get(i)[0];
-        starts[i] = picked.get(i)[1];
-        durs[i] = picked.get(i)[2];
+      // Each resource's problem is built from the requests; when this problem's tasks were derived from them
+      // (the two-stage baseline's preset exposures) an exposure chosen there may not be an option here.
+      if (picked.stream().anyMatch(x -> !problem.task((int) x[0]).hasOption(x[2]) && !problem.isMarker((int) x[0]))) {
+        note(Note.Kind.SOURCE, "resources in turn: not offered, its exposures are not this problem's options.");
+        return;
       }
-      if (incumbent.offer(new Plan(order, starts, durs), Source.RESOURCES_IN_TURN)) {
+      if (incumbent.offer(plan(picked), Source.RESOURCES_IN_TURN)) {
         note(Note.Kind.SOURCE, "warm start: the resources planned one after the other beat greedy.");
       }
     }
@@ -549,18 +547,51 @@ public final class Sequencer {
       note(Note.Kind.SOURCE, "two-stage baseline: preset exposures, then continuous re-allocation.");
     }
 
+    /**
+     * The plan of {@code p} that result {@code r} of it describes: each observation's task by request, visit
+     * and resource (a request with visits, A4, or several resources, A6, has a task per visit and resource), at
+     * its start in planner seconds (a resource's own seconds plus its offset), in planner time order with each
+     * later resource's boundary marker before its first observation (as {@link #resourcesInTurn} builds one).
+     */
     private static Plan planOf(PlanningProblem p, SequencerResult r) {
-      int m = r.observations().size();
-      int[] order = new int[m];
-      long[] starts = new long[m];
-      long[] durs = new long[m];
-      for (int q = 0; q < m; q++) {
-        Planned o = r.observations().get(q);
-        order[q] = p.indexOf(o.id());
-        starts[q] = o.startS();
-        durs[q] = o.endS() - o.startS();
+      Sections sec = p.sections();
+      List<long[]> picked = new ArrayList<>();
+      for (Planned o : r.observations()) {
+        int k = taskOf(p, o);
+        long off = sec == null ? 0 : sec.offsetS(sec.sectionOf(k));
+        picked.add(new long[] {k, o.startS() + off, o.endS() - o.startS()});
+      }
+      for (int s = 1; sec != null && s < sec.count(); s++) {
+        picked.add(new long[] {sec.markerOf(s), p.task(sec.markerOf(s)).earliestStartS(), 0});
+      }
+      picked.sort(java.util.Comparator.comparingLong((long[] x) -> x[1]).thenComparingInt(x -> p.isMarker((int) x[0])
+          ? 0 : 1));
+      return plan(picked);
+    }
+
+    /** A plan from its entries in order, each {task, start, duration}. */
+    private static Plan plan(List<long[]> picked) {
+      int[] order = new int[picked.size()];
+      long[] starts = new long[picked.size()];
+      long[] durs = new long[picked.size()];
+      for (int i = 0; i < order.length; i++) {
+        order[i] = (int) picked.get(i)[0];
+        starts[i] = picked.get(i)[1];
+        durs[i] = picked.get(i)[2];
       }
       return new Plan(order, starts, durs);
+    }
+
+    private static int taskOf(PlanningProblem p, Planned o) {
+      Sections sec = p.sections();
+      int visit = o.visit() == null ? 1 : o.visit();
+      for (int k = 0; k < p.size(); k++) {
+        if (!p.isMarker(k) && p.requestId(k).equals(o.id()) && p.structure().visitOf(k) == visit
+            && (sec == null || sec.resourceId(sec.sectionOf(k)).equals(o.resource()))) {
+          return k;
+        }
+      }
+      throw new IllegalStateException("no task for " + o.id() + " visit " + visit + " on " + o.resource());
     }
 
     private double relaxation(double timeLimitS) {

@@ -185,4 +185,33 @@ class StructureReplanTest {
         .orElseThrow();
     assertEquals("group P is all or nothing and " + earlier.id() + " failed and is not retried", partner.reason());
   }
+
+  /**
+   * One per window when the re-plan clips the first visit left: three visits, one per window, at most 3 h
+   * apart, in two windows; with the first visit done in the first window, the first visit left may start until
+   * 3 h after it (inside the second window) and the one after it until the window ends. Both tasks lie in the
+   * second window, so only one of them may be planned; the planner compared the tasks' own (clipped and
+   * unclipped) spans, saw two windows and planned both ("visits 2 and 3 of V lie in one visibility window").
+   */
+  @Test
+  void aClippedFirstVisitLeftStillSharesItsWindowWithTheNextOne() {
+    Request v = new Request("V", null, 600.0, 5.0, false, List.of(new TimeWindow(T0, T0.plusSeconds(3600)),
+        new TimeWindow(T0.plusSeconds(7200), T0.plusSeconds(6 * 3600))), null)
+        .withVisits(new Visits(3, 600, 10800.0, true, false));
+    Scenario s = scenario(List.of(v, fixed("A", 900, 1)), List.of());
+    for (SequencerOptions.Solver solver : SequencerOptions.Solver.values()) {
+      SequencerOptions o = SequencerOptions.defaults().withTimeLimitS(3).withWorkers(2).withReproducible(3)
+          .withSolver(solver);
+      Timeline previous = Planner.plan(s, CTX, o).timeline();
+      Observation done = first(previous, "V");
+      assertTrue(done.end().isBefore(T0.plusSeconds(3600)), solver + ": precondition, visit 1 in the first window");
+      ReplanResult r = Planner.replan(s, CTX, previous, T0.plusSeconds(3600), Set.of("V"), Set.of(),
+          ReplanOptions.defaults().withSequencer(o)).result();
+      assertTrue(r.hasPlan(), solver + ": " + r.message());
+      List<Observation> mine = r.timeline().observations().stream().filter(x -> x.id().equals("V")).toList();
+      assertEquals(2, mine.size(), solver + ": visit 1 done and one visit in the second window: " + mine);
+      assertEquals(Observation.DONE, mine.get(0).state());
+      assertTrue(!mine.get(1).start().isAfter(done.start().plusSeconds(10800)), solver + ": within 3 h: " + mine);
+    }
+  }
 }

@@ -197,10 +197,16 @@ public final class Task {
     return Math.max(m, MIN_FLEXIBLE_PRIORITY);
   }
 
+  /** True when an exposure of {@code durationS} seconds is one of this task's options. */
+  public boolean hasOption(long durationS) {
+    long off = durationS - minDurationS;
+    return off >= 0 && off % stepS == 0 && off / stepS < values.length;
+  }
+
   /** The option index of an exposure of {@code durationS}; throws when it is not an option (a bug). */
   public int option(long durationS) {
     long off = durationS - minDurationS;
-    if (off < 0 || off % stepS != 0 || off / stepS >= values.length) {
+    if (!hasOption(durationS)) {
       throw new IllegalStateException("request " + id + ": exposure " + durationS + " s is not an option ("
           + minDurationS + " + k·" + stepS + " s, k < " + values.length + ")");
     }
