@@ -41,11 +41,11 @@ import org.orekit.time.AbsoluteDate;
  */
 class SlewKeepOutDenseTest {
   private static final AstroContext CTX = AstroContext.offline();
-  private static final Scenario LEO = FuzzScenarios.generate(FuzzScenarios.Kind.LEO_TLE_FIELDS, 1, CTX);
-  private static final double RATE = 1.0;
-  private static final double ACCEL = 0.05;
-  private static final double SETTLE = 10;
-  private static final Instant T = LEO.horizon().start().plusSeconds(3600);
+  static final Scenario LEO = FuzzScenarios.generate(FuzzScenarios.Kind.LEO_TLE_FIELDS, 1, CTX);
+  static final double RATE = 1.0;
+  static final double ACCEL = 0.05;
+  static final double SETTLE = 10;
+  static final Instant T = LEO.horizon().start().plusSeconds(3600);
   private static final TLEPropagator ORBIT;
 
   static {
@@ -54,16 +54,16 @@ class SlewKeepOutDenseTest {
         CTX.dataContext().getFrames().getTEME());
   }
 
-  private static Vector3D observer(AbsoluteDate d) {
+  static Vector3D observer(AbsoluteDate d) {
     return ORBIT.getPosition(d, CTX.inertial());
   }
 
-  private static Vector3D sunFromObserver(AbsoluteDate d) {
+  static Vector3D sunFromObserver(AbsoluteDate d) {
     return CTX.sun().getPosition(d, CTX.inertial()).subtract(observer(d)).normalize();
   }
 
   /** Degrees covered s seconds into a rest-to-rest slew of {@code total} degrees (trapezoid or triangle). */
-  private static double angleAt(double s, double total) {
+  static double angleAt(double s, double total) {
     double ramp = RATE / ACCEL;
     double rampDeg = 0.5 * ACCEL * ramp * ramp;
     if (total < 2 * rampDeg) {
@@ -77,17 +77,17 @@ class SlewKeepOutDenseTest {
     return s <= length - ramp ? rampDeg + (s - ramp) * RATE : total - 0.5 * ACCEL * (length - s) * (length - s);
   }
 
-  private static double slewSeconds(double total) {
+  static double slewSeconds(double total) {
     double ramp = RATE / ACCEL;
     return total < 0.5 * ACCEL * ramp * ramp * 2 ? 2 * Math.sqrt(total / ACCEL) : total / RATE + ramp;
   }
 
-  private static RaDec raDec(Vector3D u) {
+  static RaDec raDec(Vector3D u) {
     double ra = Math.toDegrees(Math.atan2(u.getY(), u.getX()));
     return new RaDec(ra < 0 ? ra + 360 : ra, Math.toDegrees(Math.asin(u.getZ())));
   }
 
-  private static Vector3D turn(Vector3D u, Vector3D axis, double deg) {
+  static Vector3D turn(Vector3D u, Vector3D axis, double deg) {
     return new Rotation(axis, Math.toRadians(deg), RotationConvention.VECTOR_OPERATOR).applyTo(u);
   }
 
